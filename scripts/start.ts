@@ -1,0 +1,98 @@
+/**
+ * `npm start`: the whole app on one machine. Starts Postgres (embedded unless DATABASE_URL is
+ * set), applies migrations, loads the demo data once, builds the web app if needed, starts one
+ * worker and the web server, prints the URL, and stops everything on Ctrl-C or SIGTERM.
+ * A crash of the database, the worker or the web server stops the whole start (exit 1).
+ */
+import path from "node:path";
+import { fileURLToPath } from "node:url";
+import { applyMigrations, DatabaseUnavailableError, openDatabase, type DatabaseHandle } from "@teardown/db";
+import { loadDemoData } from "@teardown/seed-demo";
+import { buildWebIfStale } from "./start/build-web.js";
+import { startChild, type ManagedChild } from "./start/child-processes.js";
+import { portProblem } from "./start/port-check.js";
+
+const ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "..");
+/** How long the web server may take to answer its health check after it starts. */
+const WEB_READY_TIMEOUT_MS = 60_000;
+
+const log = (line: string) => process.stdout.write(`[start] ${line}\n`);
+const fail = (line: string): never => {
+  process.stderr.write(`teardown-ledger: ${line}\n`);
+  process.exit(1);
+};
+
+async function waitForHealth(url: string, child: ManagedChild): Promise<void> {
+  const deadline = Date.now() + WEB_READY_TIMEOUT_MS;
+  let exited = false;
+  void child.exited.then(() => (exited = true));
+  while (Date.now() < deadline && !exited) {
+    try {
+      const res = await fetch(`${url}/api/health`);
+      if (res.ok) return;
+    } catch {
+      /* not listening yet */
+    }
+    await new Promise((r) => setTimeout(r, 300));
+  }
+  throw new Error(exited ? "the web server exited during start-up" : `the web server did not become healthy within ${WEB_READY_TIMEOUT_MS / 1000} s`);
+}
+
+async function main(): Promise<void> {
+  const port = Number(process.env.PORT ?? 3000);
+  if (!Number.isInteger(port) || port <= 0 || port > 65535) fail(`PORT must be a TCP port number, got "${process.env.PORT}"`);
+  const busy = await portProblem(port);
+  if (busy) fail(busy);
+
+  let handle: DatabaseHandle;
+  try {
+    handle = await openDatabase({ poolSize: 4 });
+  } catch (err) {
+    if (err instanceof DatabaseUnavailableError) fail(err.message);
+    fail(`cannot start the database: ${err instanceof Error ? err.message.split("\n")[0] : String(err)}`);
+  }
+  const children: ManagedChild[] = [];
+  let shuttingDown = false;
+  const shutdown = async (code: number, why?: string) => {
+    if (shuttingDown) return;
+    shuttingDown = true;
+    if (why) process.stderr.write(`teardown-ledger: ${why}; stopping everything\n`);
+    else log("stopping ...");
+    await Promise.all(children.map((c) => c.stop()));
+    await handle.close();
+    log("stopped");
+    process.exit(code);
+  };
+  process.on("SIGINT", () => void shutdown(0));
+  process.on("SIGTERM", () => void shutdown(0));
+  process.on("SIGHUP", () => void shutdown(0));
+
+  try {
+    log(handle.embedded ? `embedded Postgres on port ${handle.embedded.port} (data in ${path.relative(ROOT, handle.embedded.dataDir)})` : "using DATABASE_URL");
+    void handle.embedded?.exited.then(({ code, signal }) => shutdown(1, `the embedded Postgres server exited (code ${code}, signal ${signal})`));
+    await applyMigrations(handle.url);
+    const seeded = await loadDemoData(handle.db);
+    log(seeded.loaded ? `demo data loaded (${seeded.entries} entries)` : "demo data already present");
+    await buildWebIfStale(ROOT, log);
+  } catch (err) {
+    const msg = err instanceof Error ? err.message : String(err);
+    return shutdown(1, msg);
+  }
+  if (shuttingDown) return;
+
+  const env = { ...process.env, DATABASE_URL: handle.url, PORT: String(port), NODE_ENV: "production", NEXT_TELEMETRY_DISABLED: "1" };
+  const worker = startChild("worker", ["--import", "tsx", "analysis-worker/src/main.ts"], env, ROOT);
+  const web = startChild("web", [path.join(ROOT, "node_modules", "next", "dist", "bin", "next"), "start", "web", "-p", String(port)], env, ROOT);
+  children.push(worker, web);
+  for (const c of children) void c.exited.then(({ code, signal }) => shutdown(1, `the ${c.name} process exited (code ${code}, signal ${signal})`));
+
+  const url = `http://localhost:${port}`;
+  try {
+    await waitForHealth(url, web);
+  } catch (err) {
+    return shutdown(1, err instanceof Error ? err.message : String(err));
+  }
+  log(`Teardown Ledger is running at ${url}  (Ctrl-C stops it)`);
+}
+
+void main();
