@@ -1,0 +1,85 @@
+/**
+ * The engine's whole analysis of one stored record, stage by stage: validate, check, blocks,
+ * solve and figures, flags, fingerprint, layout. Each stage's expected failure is returned as a
+ * value naming the stage; the worker stores it as the analysis's failure reason.
+ */
+import { parseRecord } from "./record/parse-record.js";
+import type { InputError, TeardownRecord } from "./record/types.js";
+import { checkCircuit } from "./graph/check-circuit.js";
+import { findBlocks } from "./blocks/find-blocks.js";
+import { fingerprint } from "./fingerprint/wl-fingerprint.js";
+import { layoutSchematic } from "./layout/layout-schematic.js";
+import { ENGINE_VERSION } from "./engine-version.js";
+import { searchColumnsFor, type SearchColumns } from "./search-columns.js";
+
+export type AnalysisStage = "validate" | "check" | "blocks" | "solve" | "flags" | "fingerprint" | "layout";
+
+export interface AnalysisOptions {
+  /** A clock for stage timings and budgets (the engine never reads the clock itself). */
+  now?: () => number;
+}
+
+export interface AnalysisOutput {
+  /** The result of shared/record-format.md section 2 (fields as far as the engine computes them). */
+  result: Record<string, unknown>;
+  layout: unknown;
+  search: SearchColumns;
+  /** Milliseconds per stage. */
+  timings: Partial<Record<AnalysisStage, number>>;
+}
+
+export type AnalysisOutcome =
+  | { ok: true; output: AnalysisOutput }
+  | { ok: false; stage: AnalysisStage; code: string; message: string; errors: InputError[] };
+
+/** Analyses a record given as its stored JSON document (record format version 1). */
+export async function analyzeStoredRecord(doc: unknown, opts: AnalysisOptions = {}): Promise<AnalysisOutcome> {
+  const now = opts.now ?? (() => 0);
+  const timings: Partial<Record<AnalysisStage, number>> = {};
+  const timed = <T>(stage: AnalysisStage, fn: () => T): T => {
+    const t0 = now();
+    const out = fn();
+    timings[stage] = now() - t0;
+    return out;
+  };
+  const parsed = timed("validate", () => parseRecord(JSON.stringify(doc), { filename: "revision.json" }));
+  if (!parsed.ok) {
+    const first = parsed.errors[0];
+    const message = `${parsed.errors.length} error(s) in the record; first: ${first ? `${first.path}: ${first.message}` : "unknown"}`;
+    return { ok: false, stage: "validate", code: "invalid-record", message, errors: parsed.errors };
+  }
+  return analyzeRecord(parsed.record, { now, timings });
+}
+
+/** Analyses a validated record. */
+export async function analyzeRecord(
+  record: TeardownRecord,
+  opts: { now: () => number; timings?: Partial<Record<AnalysisStage, number>> },
+): Promise<AnalysisOutcome> {
+  const { now } = opts;
+  const timings = opts.timings ?? {};
+  const timed = <T>(stage: AnalysisStage, fn: () => T): T => {
+    const t0 = now();
+    const out = fn();
+    timings[stage] = (timings[stage] ?? 0) + (now() - t0);
+    return out;
+  };
+  const checks = timed("check", () => checkCircuit(record));
+  const blocks = timed("blocks", () => findBlocks(record));
+  const features = timed("fingerprint", () => fingerprint(record));
+  const t0 = now();
+  const layout = await layoutSchematic(record);
+  timings.layout = now() - t0;
+  if (!layout.ok) return { ok: false, stage: "layout", code: layout.code, message: layout.message, errors: [] };
+  const result: Record<string, unknown> = {
+    engine: ENGINE_VERSION,
+    supply: record.device.rated_supply,
+    blocks,
+    checks,
+    flags: [],
+  };
+  return {
+    ok: true,
+    output: { result, layout: layout.layout, search: searchColumnsFor(record, result, features), timings },
+  };
+}

@@ -1,0 +1,153 @@
+/**
+ * Front doors of the circuit solver: `solveCircuit` (periodic steady state of a record at a
+ * supply) and `analyzeCircuit` (the record-format result fields the solver owns: supply, input,
+ * parts, nets, triggers, waveforms, the linear view and the solver's own account).
+ */
+import type { Supply, TeardownRecord } from "../record/types.js";
+import { ENGINE_VERSION } from "../engine-version.js";
+import type { CycleFigures, FiringFigures } from "../figures/circuit-figures.js";
+import { cycleFigures } from "../figures/circuit-figures.js";
+import type { AcSolution } from "./ac-phasor.js";
+import { solveAcCircuit } from "./ac-phasor.js";
+import type { Circuit } from "./circuit-model.js";
+import { compileCircuit } from "./circuit-model.js";
+import type { LuChoice } from "./mna.js";
+import { GMIN_SIEMENS } from "./mna.js";
+import type { SteadyState } from "./periodic-steady-state.js";
+import { periodicSteadyState } from "./periodic-steady-state.js";
+import type { SolverOutcome } from "./solver-error.js";
+import type { Budget } from "./transient.js";
+import { MAX_NEWTON_ITERATIONS, TransientSolver } from "./transient.js";
+
+/** Default time budget of one analysis (only enforced when a clock is passed). */
+export const DEFAULT_BUDGET_MS = 20_000;
+/** Step cap of one analysis, enforced with or without a clock. */
+export const MAX_STEPS_PER_ANALYSIS = 3_000_000;
+/** The lowest firing supply is bisected to this many volts RMS. */
+export const MIN_SUPPLY_RESOLUTION_V = 0.5;
+
+/** Options of the solver's front doors. */
+export interface SolveOptions {
+  supply?: Supply;
+  budgetMs?: number;
+  /** Milliseconds clock; without one only the step cap limits the run. */
+  now?: () => number;
+  lu?: LuChoice;
+  maxNewtonIterations?: number;
+  /** Bisect each trigger's lowest firing supply (default true). */
+  minSupply?: boolean;
+}
+
+/** A solved circuit: compiled model, steady cycle and figures. */
+export interface SolvedCircuit {
+  circuit: Circuit;
+  steady: SteadyState;
+  figures: CycleFigures;
+  steps: number;
+}
+
+/** The record-format fields the solver owns. */
+export interface CircuitAnalysis {
+  engine: string;
+  supply: Supply;
+  input: CycleFigures["input"];
+  parts: CycleFigures["parts"];
+  nets: CycleFigures["nets"];
+  triggers: Array<{ part: string; fires: boolean; angle_deg: number | null; angle_negative_deg: number | null; min_supply_vrms: number | null }>;
+  waveforms: CycleFigures["waveforms"];
+  linear: AcSolution;
+  solver: {
+    method: "cycles" | "shooting";
+    cycles: number;
+    steps: number;
+    assumptions: string[];
+    notes: string[];
+    kcl_residual_amps: number;
+    periodic_residual: number;
+    gmin_siemens: number;
+  };
+}
+
+function budgetFrom(opts: SolveOptions): Budget {
+  const now = opts.now ?? null;
+  return { now, deadlineMs: now ? now() + (opts.budgetMs ?? DEFAULT_BUDGET_MS) : Infinity, stepsLeft: MAX_STEPS_PER_ANALYSIS };
+}
+
+function solveWith(rec: TeardownRecord, supply: Supply, opts: SolveOptions, budget: Budget, warm?: { mem: Float64Array; scale: number }): SolverOutcome<SolvedCircuit> {
+  const compiled = compileCircuit(rec, supply);
+  if (!compiled.ok) return compiled;
+  const circuit = compiled.value;
+  const solver = new TransientSolver(circuit, { lu: opts.lu ?? "sparse", maxNewtonIterations: opts.maxNewtonIterations ?? MAX_NEWTON_ITERATIONS });
+  const start = warm ? warm.mem.map((v) => v * warm.scale) : undefined;
+  if (start) for (const d of circuit.devices) if (d.type === "switching") start[d.mem] = warm!.mem[d.mem]!;
+  const steady = periodicSteadyState(solver, budget, start);
+  if (!steady.ok) return steady;
+  return { ok: true, value: { circuit, steady: steady.value, figures: cycleFigures(circuit, steady.value), steps: solver.totalSteps } };
+}
+
+/** Periodic steady state of a record at a supply (the rated supply by default), with its figures. */
+export function solveCircuit(rec: TeardownRecord, opts: SolveOptions = {}): SolverOutcome<SolvedCircuit> {
+  return solveWith(rec, opts.supply ?? rec.device.rated_supply, opts, budgetFrom(opts));
+}
+
+/** True when `f` fires in every half-cycle that `ref` fires in. */
+function coversHalves(f: FiringFigures | undefined, ref: FiringFigures): boolean {
+  if (f === undefined || !f.fires) return false;
+  return (!ref.halves.positive || f.halves.positive) && (!ref.halves.negative || f.halves.negative);
+}
+
+/** Full analysis: AC linear view, periodic steady state, figures, triggers with their lowest firing supply. */
+export function analyzeCircuit(rec: TeardownRecord, opts: SolveOptions = {}): SolverOutcome<CircuitAnalysis> {
+  const supply = opts.supply ?? rec.device.rated_supply;
+  const budget = budgetFrom(opts);
+  const solved = solveWith(rec, supply, opts, budget);
+  if (!solved.ok) return solved;
+  const { circuit, steady, figures } = solved.value;
+  const linear = solveAcCircuit(circuit, opts.lu ?? "sparse");
+  if (!linear.ok) return linear;
+  let steps = solved.value.steps;
+  let cycles = steady.cycles;
+  const triggers: CircuitAnalysis["triggers"] = [];
+  for (const f of figures.firings) {
+    let minSupply: number | null = null;
+    if (f.fires && opts.minSupply !== false) {
+      // Bisection on the supply voltage: `hi` fires in every half it fires at the rated supply.
+      let lo = 0;
+      let hi = supply.vrms;
+      while (hi - lo > MIN_SUPPLY_RESOLUTION_V) {
+        const mid = 0.5 * (lo + hi);
+        const r = solveWith(rec, { vrms: mid, hz: supply.hz }, opts, budget, { mem: steady.startMem, scale: mid / supply.vrms });
+        if (!r.ok) return r;
+        steps += r.value.steps;
+        cycles += r.value.steady.cycles;
+        if (coversHalves(r.value.figures.firings.find((g) => g.part === f.part), f)) hi = mid;
+        else lo = mid;
+      }
+      minSupply = hi;
+    }
+    triggers.push({ part: f.part, fires: f.fires, angle_deg: f.angle_deg, angle_negative_deg: f.angle_negative_deg, min_supply_vrms: minSupply });
+  }
+  return {
+    ok: true,
+    value: {
+      engine: ENGINE_VERSION,
+      supply,
+      input: figures.input,
+      parts: figures.parts,
+      nets: figures.nets,
+      triggers,
+      waveforms: figures.waveforms,
+      linear: linear.value,
+      solver: {
+        method: steady.method,
+        cycles,
+        steps,
+        assumptions: [...circuit.assumptions, `gmin ${GMIN_SIEMENS} S from every net to ${circuit.reference}`],
+        notes: circuit.notes,
+        kcl_residual_amps: figures.kclResidualAmps,
+        periodic_residual: steady.residual,
+        gmin_siemens: GMIN_SIEMENS,
+      },
+    },
+  };
+}

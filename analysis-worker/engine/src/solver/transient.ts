@@ -1,0 +1,298 @@
+/**
+ * Time domain over one mains cycle: trapezoidal companion models with a backward-Euler step at
+ * the start and after every switching event, Newton-Raphson at each step, an adaptive step from
+ * the local truncation error of the storage states, breakpoints at the supply's zero crossings
+ * and peaks, and thyristor/triac events located in time by bisection on the step.
+ */
+import type { Circuit, CircuitDevice } from "./circuit-model.js";
+import type { LuChoice, MnaPattern } from "./mna.js";
+import { GMIN_SIEMENS, reserveTransientPattern } from "./mna.js";
+import type { LinearSolver } from "./sparse-lu.js";
+import type { SolverError } from "./solver-error.js";
+import { solverFailure } from "./solver-error.js";
+import type { StampContext } from "./transient-stamps.js";
+import { commitDevice, latchEvent, stampDevice } from "./transient-stamps.js";
+
+/** Newton iterations per step before the step is cut. */
+export const MAX_NEWTON_ITERATIONS = 60;
+/** Newton convergence: relative change and absolute floor of the node voltages. */
+export const NEWTON_RELTOL = 1e-6;
+export const NEWTON_VOLT_ABSTOL_V = 1e-6;
+/** Newton also stops when every KCL residual is this small against the row's own terms... */
+export const NEWTON_RESIDUAL_RELTOL = 1e-9;
+/** ...plus this floor in amps. */
+export const NEWTON_RESIDUAL_ABSTOL_A = 1e-12;
+/** Local truncation error allowed, relative to the state's magnitude. */
+export const LTE_RELTOL = 1e-3;
+/** Absolute LTE floors, as fractions of the supply peak voltage (volts) and in amps. */
+export const LTE_VOLT_ABSTOL_PER_VPK = 1e-5;
+export const LTE_AMP_ABSTOL_A = 1e-7;
+/** Largest step, as a fraction of the supply period (1.8 degrees). */
+export const MAX_STEP_PER_PERIOD = 1 / 200;
+/** First step after the cycle start or a switching event, as a fraction of the period. */
+export const DAMPED_STEP_PER_PERIOD = 1e-5;
+/** Smallest step before Newton failure is reported, as a fraction of the period. */
+export const MIN_STEP_PER_PERIOD = 1e-10;
+/** Switching events are located to this many degrees of the supply cycle (the goal is 0.05). */
+export const EVENT_TOL_DEG = 0.01;
+
+/** Shared limits of one analysis: a clock deadline (when a clock is passed) and a step cap. */
+export interface Budget {
+  now: (() => number) | null;
+  deadlineMs: number;
+  stepsLeft: number;
+}
+
+/** Solver choices. */
+export interface TransientOptions {
+  lu: LuChoice;
+  maxNewtonIterations: number;
+}
+
+/** One recorded point of a cycle. */
+export interface CycleSample {
+  t: number;
+  x: Float64Array;
+  mem: Float64Array;
+}
+
+/** Result of simulating one cycle from a start memory. */
+export interface CycleRun {
+  endMem: Float64Array;
+  endX: Float64Array;
+  samples: CycleSample[];
+  /** Firing events: device ref, time in the cycle (s), turned on (true) or off. */
+  events: Array<{ ref: string; t: number; on: boolean }>;
+  steps: number;
+}
+
+type StepOutcome =
+  | { ok: true; x: Float64Array; work: Float64Array }
+  | { ok: false; kind: "newton"; part: string | null }
+  | { ok: false; kind: "singular"; unknown: number };
+
+/** A prepared transient solver for one circuit (pattern and LU order kept across steps). */
+export class TransientSolver {
+  readonly circuit: Circuit;
+  private readonly pattern: MnaPattern;
+  private readonly lu: LinearSolver;
+  private readonly vals: Float64Array;
+  private readonly rhs: Float64Array;
+  private readonly opts: TransientOptions;
+  private readonly diagSlots: number[];
+  private readonly nonlinear: CircuitDevice[];
+  private readonly switching: Array<Extract<CircuitDevice, { type: "switching" }>>;
+  private readonly storage: Array<{ index: number; isVolt: boolean }>;
+  totalSteps = 0;
+  newtonIterations = 0;
+
+  /** Prepares the pattern and the LU for a circuit. */
+  constructor(circuit: Circuit, opts: TransientOptions) {
+    this.circuit = circuit;
+    this.opts = opts;
+    this.pattern = reserveTransientPattern(circuit);
+    this.lu = this.pattern.solver(opts.lu);
+    this.vals = new Float64Array(this.pattern.count);
+    this.rhs = new Float64Array(circuit.size);
+    this.diagSlots = Array.from({ length: circuit.nodeCount }, (_, i) => this.pattern.slot(i, i));
+    this.nonlinear = circuit.devices.filter((d) => d.type === "junction" || d.type === "varistor" || d.type === "switching");
+    this.switching = circuit.devices.filter((d): d is Extract<CircuitDevice, { type: "switching" }> => d.type === "switching");
+    this.storage = [];
+    for (const d of circuit.devices) {
+      if (d.type === "capacitor") this.storage.push({ index: d.mem, isVolt: true });
+      if (d.type === "coupled") d.branches.forEach((_, w) => this.storage.push({ index: d.mem + 2 * w, isVolt: false }));
+    }
+  }
+
+  /** One step from (x, mem) at time t - h to time t. */
+  step(t: number, h: number, trap: boolean, xGuess: Float64Array, mem: Float64Array): StepOutcome {
+    const c = this.circuit;
+    const work = mem.slice();
+    let x: Float64Array = xGuess.slice();
+    let prev: Float64Array = x;
+    const ctx: StampContext = { p: this.pattern, vals: this.vals, rhs: this.rhs, x, mem, work, h, trap, t };
+    const maxIt = this.nonlinear.length === 0 ? 1 : this.opts.maxNewtonIterations;
+    for (let it = 0; it < maxIt; it++) {
+      this.newtonIterations++;
+      this.vals.fill(0);
+      this.rhs.fill(0);
+      for (const s of this.diagSlots) this.vals[s]! += GMIN_SIEMENS;
+      ctx.x = x;
+      let limited = false;
+      for (const d of c.devices) if (stampDevice(d, ctx)) limited = true;
+      if (it > 0 && !limited && this.pattern.residualSmall(this.vals, x, this.rhs, c.nodeCount, NEWTON_RESIDUAL_RELTOL, NEWTON_RESIDUAL_ABSTOL_A)) {
+        for (const d of c.devices) commitDevice(d, ctx);
+        return { ok: true, x, work };
+      }
+      const status = this.lu.factor(this.vals);
+      if (!status.ok) return { ok: false, kind: "singular", unknown: status.singularUnknown };
+      const next = this.lu.solve(this.rhs);
+      if (!next.every(Number.isFinite)) return { ok: false, kind: "newton", part: this.worstPart(x, prev) };
+      prev = x;
+      x = next;
+      if (this.nonlinear.length === 0 || (!limited && it > 0 && this.converged(prev, x))) {
+        ctx.x = x;
+        for (const d of c.devices) commitDevice(d, ctx);
+        return { ok: true, x, work };
+      }
+    }
+    return { ok: false, kind: "newton", part: this.worstPart(x, prev) };
+  }
+
+  private converged(a: Float64Array, b: Float64Array): boolean {
+    // Node voltages only: branch currents follow from them through linear rows, and behind a
+    // large companion conductance they amplify round-off far past any absolute current floor.
+    const nodes = this.circuit.nodeCount;
+    for (let i = 0; i < nodes; i++) {
+      const tol = NEWTON_RELTOL * Math.max(Math.abs(a[i]!), Math.abs(b[i]!)) + NEWTON_VOLT_ABSTOL_V;
+      if (Math.abs(a[i]! - b[i]!) > tol) return false;
+    }
+    return true;
+  }
+
+  /** The nonlinear part whose terminal voltages moved most in the last iteration. */
+  private worstPart(a: Float64Array, b: Float64Array): string | null {
+    let best: string | null = this.nonlinear[0]?.ref ?? null;
+    let most = -1;
+    for (const d of this.nonlinear) {
+      let m = 0;
+      for (const n of d.terminals) if (n >= 0) m = Math.max(m, Math.abs((a[n] ?? 0) - (b[n] ?? 0)));
+      if (!Number.isFinite(m)) m = Infinity;
+      if (m > most) {
+        most = m;
+        best = d.ref;
+      }
+    }
+    return best;
+  }
+
+  private lteRatio(hist: Array<{ t: number; s: Float64Array }>, trap: boolean, vpk: number): number {
+    // Divided differences of the storage states over the last points estimate x'' or x'''.
+    const need = trap ? 4 : 3;
+    if (hist.length < need) return 0;
+    const pts = hist.slice(-need);
+    let worst = 0;
+    for (let k = 0; k < this.storage.length; k++) {
+      const { isVolt } = this.storage[k]!;
+      let dd = pts.map((p) => p.s[k]!);
+      let ts = pts.map((p) => p.t);
+      for (let order = 1; order < need; order++) {
+        const nd: number[] = [];
+        for (let q = 0; q + 1 < dd.length; q++) nd.push((dd[q + 1]! - dd[q]!) / (ts[q + order]! - ts[q]!));
+        dd = nd;
+        ts = ts.slice(0);
+      }
+      const h = pts[need - 1]!.t - pts[need - 2]!.t;
+      const lte = trap ? (h ** 3 / 12) * 6 * Math.abs(dd[0]!) : (h ** 2 / 2) * 2 * Math.abs(dd[0]!);
+      const mag = Math.max(...pts.map((p) => Math.abs(p.s[k]!)));
+      const tol = LTE_RELTOL * mag + (isVolt ? LTE_VOLT_ABSTOL_PER_VPK * vpk : LTE_AMP_ABSTOL_A);
+      worst = Math.max(worst, lte / tol);
+    }
+    return worst;
+  }
+
+  private storageOf(mem: Float64Array): Float64Array {
+    return Float64Array.from(this.storage, (s) => mem[s.index]!);
+  }
+
+  /** Simulates one supply cycle [0, T] from a start memory; records samples when asked. */
+  runCycle(startMem: Float64Array, xGuess: Float64Array, record: boolean, budget: Budget): { ok: true; run: CycleRun } | { ok: false; error: SolverError } {
+    const c = this.circuit;
+    const period = 1 / c.supply.hz;
+    const vpk = c.supply.vrms * Math.SQRT2;
+    const hMax = period * MAX_STEP_PER_PERIOD;
+    const hDamped = period * DAMPED_STEP_PER_PERIOD;
+    const hMin = period * MIN_STEP_PER_PERIOD;
+    const eventTol = (EVENT_TOL_DEG / 360) * period;
+    const breaks = [0.25, 0.5, 0.75, 1].map((f) => f * period);
+    let mem: Float64Array = startMem.slice();
+    let x: Float64Array = xGuess.slice();
+    let t = 0;
+    let h = hDamped;
+    let damped = true;
+    let hist: Array<{ t: number; s: Float64Array }> = [{ t: 0, s: this.storageOf(mem) }];
+    const samples: CycleSample[] = [];
+    const events: CycleRun["events"] = [];
+    let steps = 0;
+    while (t < period * (1 - 1e-12)) {
+      if (budget.stepsLeft-- <= 0) return solverFailure("step-limit", "the step limit of the analysis was reached", { time_s: t });
+      if (budget.now && budget.now() > budget.deadlineMs)
+        return solverFailure("time-budget", "the analysis ran out of its time budget", { time_s: t });
+      const nextBreak = breaks.find((b) => b > t * (1 + 1e-12) + 1e-15) ?? period;
+      const hTry = Math.min(h, hMax, nextBreak - t);
+      const trap = !damped;
+      const out = this.step(t + hTry, hTry, trap, x, mem);
+      if (!out.ok) {
+        if (out.kind === "singular") {
+          const owner = c.unknownOwner[out.unknown] ?? `unknown ${out.unknown}`;
+          return solverFailure("singular-matrix", `the circuit matrix is singular at ${owner}`, {
+            nets: c.nodeNames.includes(owner) ? [owner] : [], parts: c.nodeNames.includes(owner) ? [] : [owner], time_s: t,
+          });
+        }
+        h = hTry / 4;
+        damped = true;
+        if (h < hMin) {
+          return solverFailure("no-convergence", `Newton-Raphson did not converge at ${out.part ?? "a part"} at t = ${t.toExponential(4)} s`, {
+            parts: out.part ? [out.part] : [], time_s: t,
+          });
+        }
+        continue;
+      }
+      const s = this.storageOf(out.work);
+      const ratio = this.lteRatio([...hist, { t: t + hTry, s }], trap, vpk);
+      if (ratio > 1.5 && hTry > 4 * hDamped) {
+        h = hTry * Math.max(0.2, 0.9 * Math.cbrt(1 / ratio));
+        continue;
+      }
+      // Switching events in this step: locate the earliest crossing by bisection on the step.
+      let accepted = out;
+      let hAcc = hTry;
+      let flips = this.switching.filter((d) => latchEvent(d, out.x, mem).flip);
+      if (flips.length > 0) {
+        const startValues = this.switching.map((d) => latchEvent(d, x, mem).value);
+        const crossesInside = flips.some((d) => startValues[this.switching.indexOf(d)]! < 0);
+        if (crossesInside && hTry > eventTol) {
+          let lo = 0;
+          let hi = hTry;
+          let best = out;
+          while (hi - lo > eventTol) {
+            const mid = 0.5 * (lo + hi);
+            const trial = this.step(t + mid, mid, trap, x, mem);
+            if (!trial.ok) break;
+            if (this.switching.some((d) => latchEvent(d, trial.x, mem).flip)) {
+              hi = mid;
+              best = trial;
+            } else lo = mid;
+          }
+          accepted = best;
+          hAcc = hi;
+          flips = this.switching.filter((d) => latchEvent(d, accepted.x, mem).flip);
+        }
+      }
+      t += hAcc;
+      x = accepted.x;
+      mem = accepted.work;
+      steps++;
+      // Recorded before a latch flips: the point was solved with the old latch state.
+      if (record) samples.push({ t, x, mem: mem.slice() });
+      if (flips.length > 0) {
+        for (const d of flips) {
+          const on = mem[d.mem]! < 0.5;
+          mem[d.mem] = on ? 1 : 0;
+          events.push({ ref: d.ref, t, on });
+        }
+        damped = true;
+        h = hDamped;
+        hist = [{ t, s: this.storageOf(mem) }];
+      } else {
+        hist.push({ t, s });
+        if (hist.length > 4) hist.shift();
+        const grow = ratio > 0 ? Math.min(2, Math.max(0.3, 0.9 * Math.cbrt(1 / ratio))) : 2;
+        h = hAcc * grow;
+        damped = false;
+      }
+    }
+    this.totalSteps += steps;
+    return { ok: true, run: { endMem: mem, endX: x, samples, events, steps } };
+  }
+}

@@ -1,0 +1,79 @@
+/**
+ * The mains circuits the solver's reference tests share: a capacitive dropper into a resistor,
+ * a bridge rectifier with a smoothing capacitor, a dropper supply with a zener and a large
+ * storage capacitor, and a phase-controlled full-wave rectifier triggered by a divider.
+ */
+import type { TeardownRecord } from "@teardown/engine";
+import { part, record } from "../../support/record-factory.js";
+
+/** Bridge rectifier between the AC nets `a`, `b` and the DC nets `plus`, `minus`. */
+export function bridge(a: string, b: string, plus: string, minus: string, model: Record<string, number> = {}) {
+  return [
+    part("D1", "diode", { anode: a, cathode: plus }, null, { model }),
+    part("D2", "diode", { anode: b, cathode: plus }, null, { model }),
+    part("D3", "diode", { anode: minus, cathode: a }, null, { model }),
+    part("D4", "diode", { anode: minus, cathode: b }, null, { model }),
+  ];
+}
+
+/** C1 in series with R1 across the mains. */
+export function dropperIntoResistor(c = 330e-9, r = 1000): TeardownRecord {
+  return record([part("C1", "capacitor", ["L", "A"], c), part("R1", "resistor", ["A", "N"], r)]);
+}
+
+/** Bridge from the mains into C1 ∥ RL (a plain smoothed rectifier). */
+export function smoothedRectifier(c = 470e-6, rl = 2000): TeardownRecord {
+  return record([
+    part("RS", "resistor", ["L", "B"], 1),
+    ...bridge("B", "N", "P", "M"),
+    part("C1", "capacitor", { plus: "P", minus: "M" }, c, { polarised: true }),
+    part("RL", "resistor", ["P", "M"], rl),
+  ]);
+}
+
+/** Dropper (330 nF with bleeder and surge resistor), bridge, 470 µF, 12 V zener and a load. */
+export function dropperSupply(): TeardownRecord {
+  return record([
+    part("C1", "capacitor", ["L", "A"], 330e-9),
+    part("R1", "resistor", ["L", "A"], 1e6),
+    part("R2", "resistor", ["A", "B"], 100),
+    ...bridge("B", "N", "P", "M"),
+    part("C2", "capacitor", { plus: "P", minus: "M" }, 470e-6, { polarised: true }),
+    part("Z1", "zener", { anode: "M", cathode: "P" }, 12),
+    part("RL", "resistor", ["P", "M"], 1000),
+  ]);
+}
+
+/** Full-wave phase control: bridge, load RL to the anode, thyristor to the minus rail, divider RA/RB on the gate. */
+export function phaseControlled(ra: number, rb = 1000, rl = 10_000, diodeModel: Record<string, number> = {}): TeardownRecord {
+  return record([
+    ...bridge("L", "N", "P", "M", diodeModel),
+    part("RL", "resistor", ["P", "A"], rl),
+    part("Q1", "thyristor", { anode: "A", gate: "G", cathode: "M" }, null, {
+      model: { vgt: 0.6, igt: 200e-6, ih: 5e-3, von: 1.0 },
+    }),
+    part("RA", "resistor", ["P", "G"], ra),
+    part("RB", "resistor", ["G", "M"], rb),
+  ]);
+}
+
+/** A triac phase controller: load in series with the triac across the mains, RC-less divider gate drive. */
+export function triacDimmer(ra = 47_000): TeardownRecord {
+  return record([
+    part("RL", "resistor", ["L", "A"], 500),
+    part("Q1", "triac", { mt1: "N", mt2: "A", gate: "G" }, null, { model: { vgt: 0.8, igt: 5e-3, ih: 10e-3, von: 1.2 } }),
+    part("RA", "resistor", ["A", "G"], ra),
+    part("RB", "resistor", ["G", "N"], 1000),
+  ]);
+}
+
+/** Every reference circuit, by name. */
+export function allReferenceCircuits(): Record<string, TeardownRecord> {
+  return {
+    "capacitive dropper into a resistor": dropperIntoResistor(),
+    "smoothed bridge rectifier": smoothedRectifier(),
+    "dropper supply with zener and storage capacitor": dropperSupply(),
+    "phase-controlled full-wave rectifier": phaseControlled(100_000),
+    "triac phase controller": triacDimmer(),
+  };
+}
