@@ -3,3 +3,5 @@ export * from "./client.js";
 export * from "./errors.js";
 export * from "./migrate.js";
 export * as schema from "./schema/index.js";
+export * from "./queue.js";
+export * from "./entries.js";

@@ -1,26 +1,59 @@
 /**
- * `npm run worker`: one analysis worker process. It connects to the database named by
- * DATABASE_URL and waits for analysis jobs; SIGTERM lets it finish and exit.
+ * `npm run worker`: one analysis worker process, with WORKER_CONCURRENCY jobs at a time. Many
+ * processes on many machines may run against one database: the queue hands each job to one of
+ * them, and results are idempotent upserts. SIGTERM finishes the jobs in hand within a grace
+ * period, else releases them to the queue.
  */
-import { DatabaseUnavailableError, openDatabase } from "@teardown/db";
+import { ANALYSIS_QUEUE, applyMigrations, createQueue, DatabaseUnavailableError, openDatabase, startQueue, type AnalysisJob } from "@teardown/db";
+import { runAnalysisJob } from "./analysis-job.js";
+import { EngineRunner } from "./engine-runner.js";
+import { logger } from "./logger.js";
+
+/** How long SIGTERM waits for jobs in hand before releasing them. */
+const SHUTDOWN_GRACE_MS = Number(process.env.WORKER_SHUTDOWN_GRACE_MS ?? 20_000);
+/** The time budget of one analysis. */
+const ANALYSIS_BUDGET_MS = Number(process.env.ANALYSIS_BUDGET_MS ?? 60_000);
 
 async function main(): Promise<void> {
+  const concurrency = Math.max(1, Number(process.env.WORKER_CONCURRENCY ?? 2));
   let handle;
   try {
-    handle = await openDatabase({ poolSize: 2 });
+    handle = await openDatabase({ poolSize: concurrency + 2 });
+    await applyMigrations(handle.url);
   } catch (err) {
     process.stderr.write(`teardown-ledger worker: ${err instanceof DatabaseUnavailableError ? err.message : String(err)}\n`);
     process.exit(1);
   }
-  process.stdout.write(JSON.stringify({ level: "info", msg: "worker ready" }) + "\n");
-  const keepAlive = setInterval(() => {}, 60_000);
-  const stop = async () => {
-    clearInterval(keepAlive);
+  const boss = createQueue(handle.url);
+  boss.on("error", (err: Error) => logger.warn({ err: err.message }, "queue error (retrying)"));
+  await startQueue(boss);
+  const engine = new EngineRunner();
+  const ctx = { db: handle.db, engine, budgetMs: ANALYSIS_BUDGET_MS };
+  await boss.work<AnalysisJob>(
+    ANALYSIS_QUEUE,
+    { localConcurrency: concurrency, pollingIntervalSeconds: Number(process.env.QUEUE_POLL_SECONDS ?? 0.5) },
+    async ([job]) => {
+      if (!job) return;
+      await runAnalysisJob(ctx, job.id, job.data);
+    },
+  );
+  logger.info({ concurrency, budgetMs: ANALYSIS_BUDGET_MS }, "worker ready");
+
+  let stopping = false;
+  const stop = async (signal: string) => {
+    if (stopping) return;
+    stopping = true;
+    logger.info({ signal, graceMs: SHUTDOWN_GRACE_MS }, "worker stopping");
+    // graceful: wait for handlers in hand up to the timeout; jobs still active then are left
+    // for the queue to hand to another worker when they expire.
+    await boss.stop({ graceful: true, timeout: SHUTDOWN_GRACE_MS, close: true }).catch(() => {});
+    await engine.close();
     await handle.close();
+    logger.info("worker stopped");
     process.exit(0);
   };
-  process.on("SIGTERM", () => void stop());
-  process.on("SIGINT", () => void stop());
+  process.on("SIGTERM", () => void stop("SIGTERM"));
+  process.on("SIGINT", () => void stop("SIGINT"));
 }
 
 void main();

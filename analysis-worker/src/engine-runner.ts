@@ -1,0 +1,70 @@
+/**
+ * Runs engine analyses in worker threads with a time budget each. A thread that overruns is
+ * terminated (so a runaway analysis cannot block other jobs) and replaced for the next job.
+ */
+import { Worker } from "node:worker_threads";
+import type { AnalysisOutcome } from "@teardown/engine";
+
+export type EngineRun =
+  | { kind: "outcome"; outcome: AnalysisOutcome }
+  | { kind: "timeout"; budgetMs: number }
+  | { kind: "crash"; message: string };
+
+const THREAD_FILE = new URL("./engine-thread-entry.mjs", import.meta.url);
+
+/** One engine call in a fresh-or-reused thread, stopped when it passes `budgetMs`. */
+export class EngineRunner {
+  private idle: Worker[] = [];
+  private nextId = 1;
+
+  private async take(): Promise<Worker> {
+    const reused = this.idle.pop();
+    if (reused) return reused;
+    const worker = new Worker(THREAD_FILE, { execArgv: process.execArgv });
+    await new Promise<void>((resolve, reject) => {
+      const onMessage = (msg: { ready?: boolean }) => {
+        if (!msg.ready) return;
+        worker.off("message", onMessage);
+        worker.off("error", reject);
+        resolve();
+      };
+      worker.on("message", onMessage);
+      worker.once("error", reject);
+    });
+    return worker;
+  }
+
+  async run(record: unknown, budgetMs: number): Promise<EngineRun> {
+    let worker: Worker;
+    try {
+      worker = await this.take();
+    } catch (err) {
+      return { kind: "crash", message: `the engine thread did not start: ${err instanceof Error ? err.message : String(err)}` };
+    }
+    const id = this.nextId++;
+    return new Promise<EngineRun>((resolve) => {
+      const done = (r: EngineRun, reuse: boolean) => {
+        clearTimeout(timer);
+        worker.off("message", onMessage);
+        worker.off("error", onError);
+        if (reuse) this.idle.push(worker);
+        else void worker.terminate();
+        resolve(r);
+      };
+      const onMessage = (msg: { id: number; outcome?: AnalysisOutcome; crash?: string }) => {
+        if (msg.id !== id) return;
+        if (msg.crash !== undefined) done({ kind: "crash", message: msg.crash }, true);
+        else done({ kind: "outcome", outcome: msg.outcome! }, true);
+      };
+      const onError = (err: Error) => done({ kind: "crash", message: `${err.message}\n${err.stack ?? ""}` }, false);
+      const timer = setTimeout(() => done({ kind: "timeout", budgetMs }, false), budgetMs);
+      worker.on("message", onMessage);
+      worker.on("error", onError);
+      worker.postMessage({ id, record });
+    });
+  }
+
+  async close(): Promise<void> {
+    await Promise.all(this.idle.splice(0).map((w) => w.terminate()));
+  }
+}

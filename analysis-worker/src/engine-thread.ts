@@ -1,0 +1,20 @@
+/**
+ * Runs inside a worker thread: one engine analysis per message. A thread can be terminated
+ * when an analysis overruns its time budget, which a call on the main thread could not.
+ */
+import { parentPort } from "node:worker_threads";
+import { analyzeStoredRecord } from "@teardown/engine";
+
+parentPort!.on("message", async (msg: { id: number; record: unknown }) => {
+  try {
+    const outcome = await analyzeStoredRecord(msg.record, { now: () => performance.now() });
+    parentPort!.postMessage({ id: msg.id, outcome });
+  } catch (err) {
+    // A thrown error is an engine bug, not bad input: report it as such, with the stack.
+    parentPort!.postMessage({ id: msg.id, crash: err instanceof Error ? `${err.message}\n${err.stack ?? ""}` : String(err) });
+  }
+});
+
+// Loading the engine is the slow part of a new thread; say when it is done, so the runner's
+// time budget counts the analysis alone.
+parentPort!.postMessage({ ready: true });
