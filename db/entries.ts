@@ -26,6 +26,9 @@ export function recordHash(doc: unknown): string {
   return createHash("sha256").update(canonicalJson(doc)).digest("hex");
 }
 
+/** The database or an open transaction (a nested call runs in a savepoint). */
+export type DatabaseOrTx = Database | Parameters<Parameters<Database["transaction"]>[0]>[0];
+
 export interface NewEntry {
   teamId: string;
   title: string;
@@ -39,7 +42,7 @@ export interface NewEntry {
 }
 
 /** Creates an entry with its first revision and queues its analysis, in one transaction. */
-export async function createEntry(db: Database, boss: PgBoss, input: NewEntry): Promise<{ entryId: string; revisionId: string }> {
+export async function createEntry(db: DatabaseOrTx, boss: PgBoss, input: NewEntry): Promise<{ entryId: string; revisionId: string }> {
   return db.transaction(async (tx) => {
     const [entry] = await tx
       .insert(schema.entries)
@@ -65,7 +68,7 @@ export type AddRevisionResult =
  * and the caller gets the current number, so it can show what changed (nothing is lost).
  */
 export async function addRevision(
-  db: Database,
+  db: DatabaseOrTx,
   boss: PgBoss,
   input: { entryId: string; baseRevision: number; record: unknown; title?: string; category?: string | null; authorId: string | null; message: string; engineVersion: string },
 ): Promise<AddRevisionResult> {

@@ -6,7 +6,7 @@
  */
 import path from "node:path";
 import { fileURLToPath } from "node:url";
-import { applyMigrations, DatabaseUnavailableError, openDatabase, type DatabaseHandle } from "@teardown/db";
+import { applyMigrations, createQueue, DatabaseUnavailableError, openDatabase, startQueue, type DatabaseHandle } from "@teardown/db";
 import { loadDemoData } from "@teardown/seed-demo";
 import { buildWebIfStale } from "./start/build-web.js";
 import { startChild, type ManagedChild } from "./start/child-processes.js";
@@ -17,10 +17,10 @@ const ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "..");
 const WEB_READY_TIMEOUT_MS = 60_000;
 
 const log = (line: string) => process.stdout.write(`[start] ${line}\n`);
-const fail = (line: string): never => {
+function fail(line: string): never {
   process.stderr.write(`teardown-ledger: ${line}\n`);
   process.exit(1);
-};
+}
 
 async function waitForHealth(url: string, child: ManagedChild): Promise<void> {
   const deadline = Date.now() + WEB_READY_TIMEOUT_MS;
@@ -71,7 +71,10 @@ async function main(): Promise<void> {
     log(handle.embedded ? `embedded Postgres on port ${handle.embedded.port} (data in ${path.relative(ROOT, handle.embedded.dataDir)})` : "using DATABASE_URL");
     void handle.embedded?.exited.then(({ code, signal }) => shutdown(1, `the embedded Postgres server exited (code ${code}, signal ${signal})`));
     await applyMigrations(handle.url);
-    const seeded = await loadDemoData(handle.db);
+    const boss = createQueue(handle.url, { supervise: false });
+    await startQueue(boss);
+    const seeded = await loadDemoData(handle.db, boss);
+    await boss.stop({ close: true });
     log(seeded.loaded ? `demo data loaded (${seeded.entries} entries)` : "demo data already present");
     await buildWebIfStale(ROOT, log);
   } catch (err) {

@@ -30,6 +30,8 @@ export async function runAnalysisJob(ctx: JobContext, jobId: string, job: Analys
   const rev = await loadRevision(ctx.db, job.revisionId);
   if (!rev) return finish("skipped", { why: "revision no longer exists" });
   await markRunning(ctx.db, rev.id, job.engineVersion);
+  // Logged once the row says running, so a log reader knows a job is in hand (crash tests use it).
+  log.info("analysis job started");
 
   const run = await ctx.engine.run(rev.record, ctx.budgetMs);
   switch (run.kind) {

@@ -4,7 +4,8 @@
  * value naming the stage; the worker stores it as the analysis's failure reason.
  */
 import { parseRecord } from "./record/parse-record.js";
-import type { InputError, TeardownRecord } from "./record/types.js";
+import type { InputError, Supply, TeardownRecord } from "./record/types.js";
+import { eSeriesOf } from "./values/e-series.js";
 import { checkCircuit } from "./graph/check-circuit.js";
 import { findBlocks } from "./blocks/find-blocks.js";
 import { fingerprint } from "./fingerprint/wl-fingerprint.js";
@@ -17,6 +18,8 @@ export type AnalysisStage = "validate" | "check" | "blocks" | "solve" | "flags" 
 export interface AnalysisOptions {
   /** A clock for stage timings and budgets (the engine never reads the clock itself). */
   now?: () => number;
+  /** Analyse at this supply instead of the record's rated supply (a what-if run). */
+  supply?: Supply;
 }
 
 export interface AnalysisOutput {
@@ -48,13 +51,13 @@ export async function analyzeStoredRecord(doc: unknown, opts: AnalysisOptions = 
     const message = `${parsed.errors.length} error(s) in the record; first: ${first ? `${first.path}: ${first.message}` : "unknown"}`;
     return { ok: false, stage: "validate", code: "invalid-record", message, errors: parsed.errors };
   }
-  return analyzeRecord(parsed.record, { now, timings });
+  return analyzeRecord(parsed.record, { now, timings, supply: opts.supply });
 }
 
 /** Analyses a validated record. */
 export async function analyzeRecord(
   record: TeardownRecord,
-  opts: { now: () => number; timings?: Partial<Record<AnalysisStage, number>> },
+  opts: { now: () => number; timings?: Partial<Record<AnalysisStage, number>>; supply?: Supply },
 ): Promise<AnalysisOutcome> {
   const { now } = opts;
   const timings = opts.timings ?? {};
@@ -71,15 +74,26 @@ export async function analyzeRecord(
   const layout = await layoutSchematic(record);
   timings.layout = now() - t0;
   if (!layout.ok) return { ok: false, stage: "layout", code: layout.code, message: layout.message, errors: [] };
+  const supply = opts.supply ?? record.device.rated_supply;
   const result: Record<string, unknown> = {
     engine: ENGINE_VERSION,
-    supply: record.device.rated_supply,
+    supply,
     blocks,
-    checks,
     flags: [],
+    // Additions to the documented result: the checks of the traced graph, and each valued
+    // part's IEC 60063 series (null when the value is on none).
+    checks,
+    series: seriesMembership(record),
   };
   return {
     ok: true,
     output: { result, layout: layout.layout, search: searchColumnsFor(record, result, features), timings },
   };
+}
+
+/** Each resistor, capacitor, inductor and zener value's smallest IEC 60063 series, or null. */
+function seriesMembership(record: TeardownRecord): Record<string, string | null> {
+  const out: Record<string, string | null> = {};
+  for (const p of record.parts) if (p.value !== null && ["resistor", "capacitor", "inductor", "zener"].includes(p.kind)) out[p.ref] = eSeriesOf(p.value, p.kind);
+  return out;
 }

@@ -1,0 +1,42 @@
+/**
+ * `npm run analyze -- FILE [--json] [--supply 120/60]`: the engine on one file, no database.
+ * Exit 0 on success; 1 on invalid input, with every error (file:line:column path: message) on
+ * stderr and never a stack trace.
+ */
+import { readFileSync } from "node:fs";
+import { analyzeRecord, readCircuitFile } from "@teardown/engine";
+import { parseAnalyzeArgs } from "./cli/parse-args.js";
+import { readableReport } from "./cli/readable-report.js";
+
+function fail(lines: string[]): never {
+  process.stderr.write(lines.join("\n") + "\n");
+  process.exit(1);
+}
+
+async function main(): Promise<void> {
+  const parsedArgs = parseAnalyzeArgs(process.argv.slice(2));
+  if (!parsedArgs.ok) fail([parsedArgs.message]);
+  const { file, json, supply } = parsedArgs.args;
+  let text: string;
+  try {
+    text = readFileSync(file, "utf8");
+  } catch (err) {
+    fail([`${file}: cannot read the file (${(err as NodeJS.ErrnoException).code ?? String(err)})`]);
+  }
+  const parsed = readCircuitFile(text, { filename: file });
+  if (!parsed.ok)
+    fail([
+      `${file}: ${parsed.errors.length} error(s)`,
+      ...parsed.errors.map((e) => `${file}:${e.line ?? "?"}:${e.column ?? "?"} ${e.path || "(file)"}: ${e.message}`),
+    ]);
+  for (const w of parsed.warnings) process.stderr.write(`${file}:${w.line ?? "?"}:${w.column ?? "?"} warning ${w.path || "(file)"}: ${w.message}\n`);
+  const outcome = await analyzeRecord(parsed.record, { now: () => performance.now(), supply: supply ?? undefined });
+  if (!outcome.ok) fail([`${file}: the analysis failed at the ${outcome.stage} stage: ${outcome.message}`]);
+  process.stdout.write(json ? JSON.stringify(outcome.output.result, null, 2) + "\n" : readableReport(parsed.record, outcome.output.result) + "\n");
+}
+
+main().catch((err: unknown) => {
+  // A bug, not bad input: still one line for the user, the detail for a bug report.
+  process.stderr.write(`analyze: internal error: ${err instanceof Error ? err.message : String(err)}\n`);
+  process.exit(2);
+});

@@ -1,0 +1,90 @@
+/**
+ * The analyze command's readable output: the record's parts, nets, blocks, series membership
+ * and checks, then whatever figures, triggers, flags and comparisons the engine computed, and
+ * the safety caution whenever a safety figure is shown.
+ */
+import type { TeardownRecord } from "@teardown/engine";
+import { eng, textTable } from "./text-table.js";
+
+/** The caution printed next to every safety figure (same words as the web app). */
+export const SAFETY_CAUTION =
+  "CAUTION: mains circuits and their outputs can kill, and capacitors can stay charged after unplugging; ozone and high voltage are hazards too. " +
+  "These figures are estimates computed from a traced netlist, not measurements or a compliance verdict. Local codes and licensed practice decide.";
+
+type Result = Record<string, unknown>;
+type Num = number | null | undefined;
+
+const UNIT_OF_KIND: Record<string, string> = { resistor: "Ω", capacitor: "F", inductor: "H", zener: "V", fuse: "A", varistor: "V" };
+
+function valueText(p: TeardownRecord["parts"][number]): string {
+  if (p.value === null) return p.value_text ?? "";
+  const unit = UNIT_OF_KIND[p.kind];
+  return unit ? eng(p.value, unit) : (p.value_text ?? String(p.value));
+}
+
+function ratingText(r: TeardownRecord["parts"][number]["rating"]): string {
+  const bits: string[] = [];
+  if (r.volts !== undefined) bits.push(eng(r.volts, "V"));
+  if (r.amps !== undefined) bits.push(eng(r.amps, "A"));
+  if (r.watts !== undefined) bits.push(eng(r.watts, "W"));
+  if (r.class) bits.push(r.class);
+  if (r.package) bits.push(r.package);
+  return bits.join(" ");
+}
+
+/** The whole readable report for one analysed record. */
+export function readableReport(record: TeardownRecord, result: Result): string {
+  const out: string[] = [];
+  const supply = result.supply as { vrms: number; hz: number };
+  out.push(`${record.title}`, `category: ${record.device.category ?? "—"}   supply analysed: ${supply.vrms} V / ${supply.hz} Hz   engine ${String(result.engine)}`, "");
+  const series = (result.series as Record<string, string | null> | undefined) ?? {};
+  out.push("Parts", textTable(
+    ["ref", "kind", "value", "series", "rating", "pins"],
+    record.parts.map((p) => [p.ref, p.kind, valueText(p), p.ref in series ? (series[p.ref] ?? "none") : "", ratingText(p.rating), Object.entries(p.pins).map(([role, net]) => `${role}=${net}`).join(" ")]),
+  ), "");
+  const pinCount = new Map<string, number>();
+  for (const p of record.parts) for (const n of Object.values(p.pins)) pinCount.set(n, (pinCount.get(n) ?? 0) + 1);
+  const netFigures = (result.nets as Record<string, { dc: Num; rms: Num; peak: Num }> | undefined) ?? {};
+  out.push("Nets", textTable(
+    ["net", "role", "accessible", "pins", "dc", "rms", "peak"],
+    Object.entries(record.nets).sort(([a], [b]) => a.localeCompare(b)).map(([name, info]) => [
+      name, info.role ?? "", info.accessible ? "yes" : "", pinCount.get(name) ?? 0,
+      eng(netFigures[name]?.dc, "V"), eng(netFigures[name]?.rms, "V"), eng(netFigures[name]?.peak, "V"),
+    ]),
+  ), "");
+  const blocks = (result.blocks as Array<{ kind: string; parts: string[] }> | undefined) ?? [];
+  out.push("Functional blocks", blocks.length ? blocks.map((b) => `  ${b.kind.padEnd(22)} ${b.parts.join(", ")}`).join("\n") : "  none found", "");
+  const checks = (result.checks as Array<{ severity: string; code: string; message: string }> | undefined) ?? [];
+  out.push("Checks", checks.length ? checks.map((c) => `  ${c.severity.padEnd(8)} ${c.code.padEnd(24)} ${c.message}`).join("\n") : "  no problems found", "");
+
+  const input = result.input as Record<string, Num> | undefined;
+  let safetyShown = false;
+  if (input) {
+    safetyShown = true;
+    out.push("Input", `  current ${eng(input.current_rms, "A")} rms   real power ${eng(input.power, "W")}   apparent ${eng(input.apparent_power, "VA")}   power factor ${input.power_factor?.toFixed(3) ?? "—"}   THD ${input.thd !== null && input.thd !== undefined ? `${(input.thd * 100).toFixed(1)} %` : "—"}`, "");
+    const parts = (result.parts as Record<string, { voltage_peak: Num; current_rms: Num; power: Num }> | undefined) ?? {};
+    out.push("Per part", textTable(["ref", "peak voltage", "rms current", "dissipation"], Object.entries(parts).map(([ref, f]) => [ref, eng(f.voltage_peak, "V"), eng(f.current_rms, "A"), eng(f.power, "W")])), "");
+  }
+  const triggers = (result.triggers as Array<{ part: string; fires: boolean; angle_deg: Num; min_supply_vrms: Num }> | undefined) ?? [];
+  if (triggers.length) {
+    out.push("Triggers", textTable(["part", "fires", "firing angle", "lowest firing supply"], triggers.map((t) => [t.part, t.fires ? "yes" : "no", t.angle_deg !== null && t.angle_deg !== undefined ? `${t.angle_deg.toFixed(1)}°` : null, eng(t.min_supply_vrms, "V")])), "");
+  }
+  const flags = (result.flags as Array<{ code: string; severity: string; message: string; evidence: Record<string, unknown>; source: string; parts: string[]; nets: string[] }> | undefined) ?? [];
+  if (flags.length) {
+    safetyShown = true;
+    out.push("Risk flags");
+    for (const f of flags) {
+      out.push(`  [${f.severity.toUpperCase()}] ${f.code}: ${f.message}`);
+      const where = [...f.parts, ...f.nets];
+      if (where.length) out.push(`      concerns: ${where.join(", ")}`);
+      out.push(`      evidence: ${JSON.stringify(f.evidence)}`, `      source: ${f.source}`);
+    }
+    out.push("");
+  }
+  const comparisons = (result.comparisons as Array<{ what: string; measured: number; predicted: Num; low: Num; high: Num; verdict: string }> | undefined) ?? [];
+  if (comparisons.length) {
+    out.push("Measured against predicted", textTable(["measurement", "measured", "predicted", "band", "verdict"], comparisons.map((c) => [c.what, c.measured, c.predicted ?? null, `${c.low ?? "—"} … ${c.high ?? "—"}`, c.verdict])), "");
+  }
+  if (safetyShown) out.push(SAFETY_CAUTION);
+  return out.join("\n");
+}
