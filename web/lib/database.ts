@@ -29,3 +29,10 @@ export async function databaseRoundTripMs(): Promise<number> {
   const { pool, url } = database();
   return ping(pool, url);
 }
+
+/** Closes the shared pool (tests and shutdown); the next `database()` opens a new one. */
+export async function closeDatabase(): Promise<void> {
+  const handle = globalForDb.teardownDb;
+  globalForDb.teardownDb = undefined;
+  await handle?.pool.end().catch(() => {});
+}

@@ -1,0 +1,78 @@
+/**
+ * Accounts and sessions: better-auth with email and password, its Drizzle adapter on our
+ * `users`, `sessions`, `accounts` and `verifications` tables (plural names), sessions in
+ * Postgres. Passwords are hashed with better-auth's default, scrypt (node:crypto; N=16384,
+ * r=16, p=1, so about 32 MB of memory per hash). Sign-out-everywhere is better-auth's
+ * `/api/auth/revoke-sessions`, password change its `/api/auth/change-password`.
+ */
+import { betterAuth } from "better-auth";
+import { drizzleAdapter } from "better-auth/adapters/drizzle";
+import { schema } from "@teardown/db";
+import { authSecret } from "./auth-secret";
+import { database } from "./database";
+
+/** The shortest password accepted. */
+export const MIN_PASSWORD_CHARS = 10;
+/** How long a session lasts without use, in seconds (30 days). */
+const SESSION_EXPIRES_SECONDS = 30 * 24 * 60 * 60;
+
+/**
+ * The app's own address: `APP_URL`, else http://localhost:$PORT. Browsers' POSTs carry it as
+ * `Origin`, and better-auth refuses cookie-authenticated POSTs from any other origin.
+ */
+export function appUrl(): string {
+  return (process.env.APP_URL ?? `http://localhost:${process.env.PORT ?? 3000}`).replace(
+    /\/+$/,
+    "",
+  );
+}
+
+/** Extra origins allowed besides APP_URL (comma-separated `TRUSTED_ORIGINS`, e.g. a second host name). */
+function trustedOrigins(): string[] {
+  const extra = (process.env.TRUSTED_ORIGINS ?? "")
+    .split(",")
+    .map((s) => s.trim())
+    .filter(Boolean);
+  return [appUrl(), ...extra];
+}
+
+function makeAuth() {
+  return betterAuth({
+    appName: "Teardown Ledger",
+    baseURL: appUrl(),
+    basePath: "/api/auth",
+    secret: authSecret(),
+    trustedOrigins: trustedOrigins(),
+    database: drizzleAdapter(database().db, {
+      provider: "pg",
+      usePlural: true,
+      schema: {
+        users: schema.users,
+        sessions: schema.sessions,
+        accounts: schema.accounts,
+        verifications: schema.verifications,
+      },
+    }),
+    emailAndPassword: { enabled: true, minPasswordLength: MIN_PASSWORD_CHARS, autoSignIn: true },
+    session: { expiresIn: SESSION_EXPIRES_SECONDS },
+    telemetry: { enabled: false },
+    // better-auth skips the origin check when NODE_ENV is "test"; keep it on everywhere, so tests
+    // exercise what production does.
+    advanced: { disableOriginCheck: false },
+  });
+}
+
+export type Auth = ReturnType<typeof makeAuth>;
+
+const globalForAuth = globalThis as unknown as { teardownAuth?: Auth };
+
+/** The process's auth instance, made on first use (never at import, so builds need no secret). */
+export function auth(): Auth {
+  globalForAuth.teardownAuth ??= makeAuth();
+  return globalForAuth.teardownAuth;
+}
+
+/** Forgets the instance (tests that switch databases). */
+export function resetAuth(): void {
+  globalForAuth.teardownAuth = undefined;
+}

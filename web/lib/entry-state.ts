@@ -1,0 +1,146 @@
+/**
+ * An entry as the client needs it: the entry, its current revision (record and number), the
+ * analysis of that revision for this engine version with its state, and, while that one is not
+ * done, the newest finished analysis by an older engine version so the page has something to show.
+ */
+import { and, desc, eq, ne } from "drizzle-orm";
+import { schema, type Database } from "@teardown/db";
+import { ENGINE_VERSION } from "@teardown/engine";
+import type { EntryRow, Role } from "./access";
+import { revisionByNumber } from "./revisions";
+
+type AnalysisRow = typeof schema.analyses.$inferSelect;
+
+/** An analysis as the API shows it; which fields are set depends on the state. */
+export type AnalysisView =
+  | { state: "queued"; engineVersion: string; queuedAt: Date }
+  | { state: "running"; engineVersion: string; queuedAt: Date; startedAt: Date | null }
+  | {
+      state: "done";
+      engineVersion: string;
+      startedAt: Date | null;
+      finishedAt: Date | null;
+      result: unknown;
+      layout: unknown;
+      timings: unknown;
+    }
+  | {
+      state: "failed";
+      engineVersion: string;
+      finishedAt: Date | null;
+      error: string;
+      stage: string | null;
+    };
+
+/** The API view of an analysis row. */
+export function analysisView(row: AnalysisRow): AnalysisView {
+  switch (row.state) {
+    case "queued":
+      return { state: "queued", engineVersion: row.engineVersion, queuedAt: row.queuedAt };
+    case "running":
+      return {
+        state: "running",
+        engineVersion: row.engineVersion,
+        queuedAt: row.queuedAt,
+        startedAt: row.startedAt,
+      };
+    case "done":
+      return {
+        state: "done",
+        engineVersion: row.engineVersion,
+        startedAt: row.startedAt,
+        finishedAt: row.finishedAt,
+        result: row.result,
+        layout: row.layout,
+        timings: row.timings,
+      };
+    case "failed":
+      return {
+        state: "failed",
+        engineVersion: row.engineVersion,
+        finishedAt: row.finishedAt,
+        error: row.error ?? "unknown failure",
+        stage: row.errorStage,
+      };
+  }
+}
+
+/** The entry's columns that the API shows. */
+export function entryView(entry: EntryRow) {
+  return {
+    id: entry.id,
+    teamId: entry.teamId,
+    title: entry.title,
+    category: entry.category,
+    visibility: entry.visibility,
+    currentRevision: entry.currentRevision,
+    createdBy: entry.createdBy,
+    createdAt: entry.createdAt,
+    updatedAt: entry.updatedAt,
+    archived: entry.archivedAt !== null,
+    archivedAt: entry.archivedAt,
+    flags: entry.searchFlags,
+    blocks: entry.searchBlocks,
+  };
+}
+
+/** The analysis of a revision for an engine version, or null when none was queued. */
+export async function analysisFor(
+  db: Database,
+  revisionId: string,
+  engineVersion = ENGINE_VERSION,
+): Promise<AnalysisRow | null> {
+  const [row] = await db
+    .select()
+    .from(schema.analyses)
+    .where(
+      and(
+        eq(schema.analyses.revisionId, revisionId),
+        eq(schema.analyses.engineVersion, engineVersion),
+      ),
+    );
+  return row ?? null;
+}
+
+/** Everything the entry page shows, for a caller who may read the entry. */
+export async function entryState(
+  db: Database,
+  entry: EntryRow,
+  role: Role | null,
+  revisionNumber?: number,
+) {
+  const number = revisionNumber ?? entry.currentRevision ?? 1;
+  const revision = await revisionByNumber(db, entry.id, number);
+  const current = await analysisFor(db, revision.id);
+  let previous: AnalysisView | null = null;
+  if (current?.state !== "done") {
+    const [older] = await db
+      .select()
+      .from(schema.analyses)
+      .where(
+        and(
+          eq(schema.analyses.revisionId, revision.id),
+          ne(schema.analyses.engineVersion, ENGINE_VERSION),
+          eq(schema.analyses.state, "done"),
+        ),
+      )
+      .orderBy(desc(schema.analyses.finishedAt))
+      .limit(1);
+    previous = older ? analysisView(older) : null;
+  }
+  return {
+    entry: entryView(entry),
+    role,
+    revision: {
+      number: revision.number,
+      message: revision.message,
+      authorId: revision.authorId,
+      createdAt: revision.createdAt,
+      recordHash: revision.recordHash,
+      record: revision.record,
+    },
+    engineVersion: ENGINE_VERSION,
+    analysis: current ? analysisView(current) : null,
+    olderAnalysis: previous,
+  };
+}

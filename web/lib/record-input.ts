@@ -1,0 +1,137 @@
+/**
+ * A record submitted to the API, as a JSON body holding the record document or as an uploaded
+ * file (YAML/JSON record, netlist deck, CSV parts list) in a multipart form. Either way the
+ * engine reads it; a malformed record is a 422 listing every problem with its path and line.
+ * What is stored is the normalised record written back as a record document.
+ */
+import { z } from "zod";
+import {
+  MAX_RECORD_TEXT_CHARS,
+  readCircuitFile,
+  serializeRecord,
+  type TeardownRecord,
+} from "@teardown/engine";
+import { ApiError } from "./api-error";
+import {
+  MAX_JSON_BODY_BYTES,
+  MULTIPART_OVERHEAD_BYTES,
+  formFile,
+  formText,
+  mediaType,
+  parseJsonText,
+  readBytes,
+  readForm,
+  validate,
+} from "./request-body";
+
+/** A record that passed the engine, and the document to store for it. */
+export interface AcceptedRecord {
+  record: TeardownRecord;
+  document: Record<string, unknown>;
+  warnings: {
+    path: string;
+    line: number | null;
+    column: number | null;
+    code: string;
+    message: string;
+  }[];
+}
+
+/** The largest uploaded circuit file, in bytes (the engine reads at most this many characters). */
+export const MAX_CIRCUIT_FILE_BYTES = MAX_RECORD_TEXT_CHARS;
+
+/** Reads circuit-file text with the engine: the accepted record, or 422 with every error. */
+export function acceptRecordText(text: string, filename?: string): AcceptedRecord {
+  const read = readCircuitFile(text, filename === undefined ? {} : { filename });
+  if (!read.ok) {
+    const first = read.errors[0];
+    const where = first
+      ? `${first.path || "(file)"}${first.line !== null ? ` (line ${first.line})` : ""}: ${first.message}`
+      : "unknown problem";
+    throw new ApiError(
+      422,
+      "invalid-record",
+      `the record has ${read.errors.length} problem(s); first: ${where}`,
+      {
+        errors: read.errors.map((e) => ({
+          path: e.path,
+          line: e.line,
+          column: e.column,
+          code: e.code,
+          message: e.message,
+        })),
+      },
+    );
+  }
+  return {
+    record: read.record,
+    document: JSON.parse(serializeRecord(read.record, "json")) as Record<string, unknown>,
+    warnings: read.warnings,
+  };
+}
+
+/** Reads a record document given as a JSON value (pretty-printed first, so errors carry lines). */
+export function acceptRecordDocument(doc: unknown): AcceptedRecord {
+  return acceptRecordText(JSON.stringify(doc, null, 2), "record.json");
+}
+
+/** Fields that may travel beside a record (entry metadata and revision details). */
+export const submissionFields = z.object({
+  title: z.string().trim().min(1).max(200).optional(),
+  category: z.string().trim().max(100).nullable().optional(),
+  visibility: z.enum(["team", "public"]).optional(),
+  message: z.string().max(2000).optional(),
+  baseRevision: z.coerce.number().int().positive().optional(),
+});
+export type SubmissionFields = z.infer<typeof submissionFields>;
+
+const jsonSubmission = submissionFields.extend({ record: z.record(z.string(), z.unknown()) });
+
+/** A record with its fields, from a JSON body (`{ record, ...fields }`) or a form (`file` + fields). */
+export async function readRecordSubmission(
+  req: Request,
+): Promise<{ accepted: AcceptedRecord; fields: SubmissionFields; filename: string | null }> {
+  const type = mediaType(req);
+  if (type === "application/json") {
+    const bytes = await readBytes(req, MAX_JSON_BODY_BYTES);
+    const body = validate(jsonSubmission, parseJsonText(new TextDecoder().decode(bytes)));
+    const { record, ...fields } = body;
+    return { accepted: acceptRecordDocument(record), fields, filename: null };
+  }
+  if (type === "multipart/form-data") {
+    const form = await readForm(
+      req,
+      MAX_CIRCUIT_FILE_BYTES + MULTIPART_OVERHEAD_BYTES,
+      "uploaded file",
+      MAX_CIRCUIT_FILE_BYTES,
+    );
+    const file = formFile(form, "file");
+    let text: string;
+    try {
+      text = new TextDecoder("utf-8", { fatal: true }).decode(await file.arrayBuffer());
+    } catch {
+      throw new ApiError(
+        415,
+        "unsupported-media-type",
+        "the uploaded circuit file is not UTF-8 text (a YAML or JSON record, a netlist deck or a CSV parts list)",
+        { path: "file" },
+      );
+    }
+    const raw: Record<string, string> = {};
+    for (const key of ["title", "category", "visibility", "message", "baseRevision"]) {
+      const v = formText(form, key);
+      if (v !== undefined && v !== "") raw[key] = v;
+    }
+    const fields = validate(submissionFields, raw);
+    return {
+      accepted: acceptRecordText(text, file.name || undefined),
+      fields,
+      filename: file.name || null,
+    };
+  }
+  throw new ApiError(
+    415,
+    "unsupported-media-type",
+    `send application/json with a \`record\`, or multipart/form-data with a \`file\` (got ${type || "no content type"})`,
+  );
+}
