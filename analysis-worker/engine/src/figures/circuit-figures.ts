@@ -114,7 +114,21 @@ export function cycleFigures(c: Circuit, steady: SteadyState): CycleFigures {
     thd: thdFromSamples(resampleUniform(t, iIn, FFT_POINTS)),
   };
 
-  const firings: FiringFigures[] = c.devices
+  const firings = firingFigures(c, steady);
+
+  const nOut = Math.min(MAX_WAVEFORM_POINTS, t.length);
+  const tOut = Array.from({ length: nOut }, (_, k) => (period * k) / nOut);
+  const out: Record<string, number[]> = {};
+  for (const [name, y] of Object.entries(series)) out[name] = Array.from(resampleUniform(t, y, nOut));
+  return { input, parts, nets, firings, waveforms: { t: tOut, series: out }, kclResidualAmps: kcl };
+}
+
+/** Whether and where each thyristor/triac fires in the steady cycle (cheap: events and latches only). */
+export function firingFigures(c: Circuit, steady: SteadyState): FiringFigures[] {
+  const period = 1 / c.supply.hz;
+  const run = steady.run;
+  const samples = run.samples;
+  return c.devices
     .filter((d) => d.type === "switching")
     .map((d) => {
       const ons = run.events.filter((e) => e.ref === d.ref && e.on);
@@ -129,10 +143,4 @@ export function cycleFigures(c: Circuit, steady: SteadyState): CycleFigures {
         halves: { positive: pos !== undefined || latchedAll, negative: neg !== undefined || latchedAll },
       };
     });
-
-  const nOut = Math.min(MAX_WAVEFORM_POINTS, t.length);
-  const tOut = Array.from({ length: nOut }, (_, k) => (period * k) / nOut);
-  const out: Record<string, number[]> = {};
-  for (const [name, y] of Object.entries(series)) out[name] = Array.from(resampleUniform(t, y, nOut));
-  return { input, parts, nets, firings, waveforms: { t: tOut, series: out }, kclResidualAmps: kcl };
 }

@@ -6,7 +6,7 @@
 import type { Supply, TeardownRecord } from "../record/types.js";
 import { ENGINE_VERSION } from "../engine-version.js";
 import type { CycleFigures, FiringFigures } from "../figures/circuit-figures.js";
-import { cycleFigures } from "../figures/circuit-figures.js";
+import { cycleFigures, firingFigures } from "../figures/circuit-figures.js";
 import type { AcSolution } from "./ac-phasor.js";
 import { solveAcCircuit } from "./ac-phasor.js";
 import type { Circuit } from "./circuit-model.js";
@@ -25,6 +25,8 @@ export const DEFAULT_BUDGET_MS = 20_000;
 export const MAX_STEPS_PER_ANALYSIS = 3_000_000;
 /** The lowest firing supply is bisected to this many volts RMS. */
 export const MIN_SUPPLY_RESOLUTION_V = 0.5;
+/** The bisection's steady states only decide fires / does not fire: 100 times the usual tolerance (1e-3 of a state). */
+export const MIN_SUPPLY_TOLERANCE_SCALE = 100;
 
 /** Options of the solver's front doors. */
 export interface SolveOptions {
@@ -73,16 +75,22 @@ function budgetFrom(opts: SolveOptions): Budget {
   return { now, deadlineMs: now ? now() + (opts.budgetMs ?? DEFAULT_BUDGET_MS) : Infinity, stepsLeft: MAX_STEPS_PER_ANALYSIS };
 }
 
-function solveWith(rec: TeardownRecord, supply: Supply, opts: SolveOptions, budget: Budget, warm?: { mem: Float64Array; scale: number }): SolverOutcome<SolvedCircuit> {
+function steadyAt(rec: TeardownRecord, supply: Supply, opts: SolveOptions, budget: Budget, warm?: { mem: Float64Array; scale: number }, toleranceScale = 1) {
   const compiled = compileCircuit(rec, supply);
   if (!compiled.ok) return compiled;
   const circuit = compiled.value;
   const solver = new TransientSolver(circuit, { lu: opts.lu ?? "sparse", maxNewtonIterations: opts.maxNewtonIterations ?? MAX_NEWTON_ITERATIONS });
   const start = warm ? warm.mem.map((v) => v * warm.scale) : undefined;
   if (start) for (const d of circuit.devices) if (d.type === "switching") start[d.mem] = warm!.mem[d.mem]!;
-  const steady = periodicSteadyState(solver, budget, start);
+  const steady = periodicSteadyState(solver, budget, start, { toleranceScale });
   if (!steady.ok) return steady;
-  return { ok: true, value: { circuit, steady: steady.value, figures: cycleFigures(circuit, steady.value), steps: solver.totalSteps } };
+  return { ok: true as const, value: { circuit, steady: steady.value, steps: solver.totalSteps } };
+}
+
+function solveWith(rec: TeardownRecord, supply: Supply, opts: SolveOptions, budget: Budget): SolverOutcome<SolvedCircuit> {
+  const r = steadyAt(rec, supply, opts, budget);
+  if (!r.ok) return r;
+  return { ok: true, value: { ...r.value, figures: cycleFigures(r.value.circuit, r.value.steady) } };
 }
 
 /** Periodic steady state of a record at a supply (the rated supply by default), with its figures. */
@@ -116,11 +124,11 @@ export function analyzeCircuit(rec: TeardownRecord, opts: SolveOptions = {}): So
       let hi = supply.vrms;
       while (hi - lo > MIN_SUPPLY_RESOLUTION_V) {
         const mid = 0.5 * (lo + hi);
-        const r = solveWith(rec, { vrms: mid, hz: supply.hz }, opts, budget, { mem: steady.startMem, scale: mid / supply.vrms });
+        const r = steadyAt(rec, { vrms: mid, hz: supply.hz }, opts, budget, { mem: steady.startMem, scale: mid / supply.vrms }, MIN_SUPPLY_TOLERANCE_SCALE);
         if (!r.ok) return r;
         steps += r.value.steps;
         cycles += r.value.steady.cycles;
-        if (coversHalves(r.value.figures.firings.find((g) => g.part === f.part), f)) hi = mid;
+        if (coversHalves(firingFigures(r.value.circuit, r.value.steady).find((g) => g.part === f.part), f)) hi = mid;
         else lo = mid;
       }
       minSupply = hi;

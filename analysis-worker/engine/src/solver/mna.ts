@@ -22,6 +22,8 @@ export class MnaPattern {
   private readonly table: Int32Array;
   private readonly r: number[] = [];
   private readonly c: number[] = [];
+  private res = new Float64Array(0);
+  private mag = new Float64Array(0);
 
   /** An empty pattern for a size x size matrix. */
   constructor(size: number) {
@@ -60,8 +62,13 @@ export class MnaPattern {
    * terms (a round-off-aware test: a nearly floating node can move without changing any current).
    */
   residualSmall(vals: Float64Array, x: Float64Array, rhs: Float64Array, rows: number, rel: number, absAmps: number): boolean {
-    const res = new Float64Array(rows);
-    const mag = new Float64Array(rows);
+    if (this.res.length < rows) {
+      this.res = new Float64Array(rows);
+      this.mag = new Float64Array(rows);
+    }
+    const { res, mag } = this;
+    res.fill(0, 0, rows);
+    mag.fill(0, 0, rows);
     for (let s = 0; s < this.r.length; s++) {
       const i = this.r[s]!;
       if (i >= rows) continue;

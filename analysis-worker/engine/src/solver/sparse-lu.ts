@@ -9,6 +9,8 @@
 export const PIVOT_THRESHOLD_RATIO = 0.01;
 /** A reused pivot smaller than this fraction of its row's largest entry forces a new order. */
 export const PIVOT_REUSE_MIN_RATIO = 1e-11;
+/** A reused order whose multipliers grow past this is chosen again (element growth). */
+export const MAX_MULTIPLIER = 1e8;
 /**
  * Singular means no nonzero entry is left to pivot on. MNA matrices are badly scaled on purpose
  * (gmin of 1e-12 S beside companion conductances of 1e4 S), so no relative size test is used.
@@ -120,6 +122,7 @@ export class SparseLu implements LinearSolver {
   private lu = new Float64Array(0);
   private slotAt = new Int32Array(0);
   private readonly work: Float64Array;
+  private numericOrder = false;
   /** How often the pivot order was chosen again because a reused pivot became too small. */
   repivots = 0;
   /** Number of numeric factorisations. */
@@ -193,11 +196,15 @@ export class SparseLu implements LinearSolver {
     this.lu = new Float64Array(idx.length);
   }
 
-  /** Numeric factorisation in the kept order; re-pivots when a pivot became too small. */
+  /**
+   * Numeric factorisation in the kept order; re-pivots when a pivot became too small. The first
+   * call chooses the order on the numbers (the structural order only sized the work).
+   */
   factor(values: Float64Array): FactorStatus {
     this.factorizations++;
-    if (this.factorKept(values, true) < 0) return { ok: true };
-    this.repivots++;
+    if (this.numericOrder && this.factorKept(values, true) < 0) return { ok: true };
+    if (this.numericOrder) this.repivots++;
+    this.numericOrder = true;
     const order = markowitzOrder(this.n, this.rows, this.cols, values);
     if ("singularUnknown" in order) return { ok: false, singularUnknown: order.singularUnknown };
     this.setOrder(order);
@@ -220,6 +227,7 @@ export class SparseLu implements LinearSolver {
       for (let q = start; q < diagAt[i]!; q++) {
         const k = idx[q]!;
         const l = w[k]! / lu[diagAt[k]!]!;
+        if (strict && Math.abs(l) > MAX_MULTIPLIER) return i;
         w[k] = l;
         if (l === 0) continue;
         for (let r = diagAt[k]! + 1; r < ptr[k + 1]!; r++) w[idx[r]!]! -= l * lu[r]!;

@@ -27,14 +27,21 @@ export const LTE_RELTOL = 1e-3;
 /** Absolute LTE floors, as fractions of the supply peak voltage (volts) and in amps. */
 export const LTE_VOLT_ABSTOL_PER_VPK = 1e-5;
 export const LTE_AMP_ABSTOL_A = 1e-7;
-/** Largest step, as a fraction of the supply period (1.8 degrees). */
-export const MAX_STEP_PER_PERIOD = 1 / 200;
+/** Largest step, as a fraction of the supply period (3.6 degrees); the LTE control sets the rest. */
+export const MAX_STEP_PER_PERIOD = 1 / 100;
 /** First step after the cycle start or a switching event, as a fraction of the period. */
 export const DAMPED_STEP_PER_PERIOD = 1e-5;
 /** Smallest step before Newton failure is reported, as a fraction of the period. */
 export const MIN_STEP_PER_PERIOD = 1e-10;
 /** Switching events are located to this many degrees of the supply cycle (the goal is 0.05). */
 export const EVENT_TOL_DEG = 0.01;
+
+/**
+ * A latch change is held for at least this many degrees of the supply cycle: it stands for the
+ * device's switching time and keeps a gate current that hovers at igt (on and off states that
+ * are each inconsistent) from toggling the latch at every step.
+ */
+export const LATCH_MIN_DWELL_DEG = 1;
 
 /** Shared limits of one analysis: a clock deadline (when a clock is passed) and a step cap. */
 export interface Budget {
@@ -83,6 +90,7 @@ export class TransientSolver {
   private readonly nonlinear: CircuitDevice[];
   private readonly switching: Array<Extract<CircuitDevice, { type: "switching" }>>;
   private readonly storage: Array<{ index: number; isVolt: boolean }>;
+  private readonly ddWork = new Float64Array(4);
   totalSteps = 0;
   newtonIterations = 0;
 
@@ -127,7 +135,7 @@ export class TransientSolver {
       const status = this.lu.factor(this.vals);
       if (!status.ok) return { ok: false, kind: "singular", unknown: status.singularUnknown };
       const next = this.lu.solve(this.rhs);
-      if (!next.every(Number.isFinite)) return { ok: false, kind: "newton", part: this.worstPart(x, prev) };
+      if (!allFinite(next)) return { ok: false, kind: "newton", part: this.worstPart(x, prev) };
       prev = x;
       x = next;
       if (this.nonlinear.length === 0 || (!limited && it > 0 && this.converged(prev, x))) {
@@ -167,25 +175,24 @@ export class TransientSolver {
   }
 
   private lteRatio(hist: Array<{ t: number; s: Float64Array }>, trap: boolean, vpk: number): number {
-    // Divided differences of the storage states over the last points estimate x'' or x'''.
+    // Divided differences of the storage states over the last points estimate x'' (or x''').
     const need = trap ? 4 : 3;
     if (hist.length < need) return 0;
-    const pts = hist.slice(-need);
+    const base = hist.length - need;
+    const dd = this.ddWork;
+    const h = hist[hist.length - 1]!.t - hist[hist.length - 2]!.t;
     let worst = 0;
     for (let k = 0; k < this.storage.length; k++) {
-      const { isVolt } = this.storage[k]!;
-      let dd = pts.map((p) => p.s[k]!);
-      let ts = pts.map((p) => p.t);
-      for (let order = 1; order < need; order++) {
-        const nd: number[] = [];
-        for (let q = 0; q + 1 < dd.length; q++) nd.push((dd[q + 1]! - dd[q]!) / (ts[q + order]! - ts[q]!));
-        dd = nd;
-        ts = ts.slice(0);
+      let mag = 0;
+      for (let q = 0; q < need; q++) {
+        dd[q] = hist[base + q]!.s[k]!;
+        mag = Math.max(mag, Math.abs(dd[q]!));
       }
-      const h = pts[need - 1]!.t - pts[need - 2]!.t;
+      for (let order = 1; order < need; order++) {
+        for (let q = 0; q + order < need; q++) dd[q] = (dd[q + 1]! - dd[q]!) / (hist[base + q + order]!.t - hist[base + q]!.t);
+      }
       const lte = trap ? (h ** 3 / 12) * 6 * Math.abs(dd[0]!) : (h ** 2 / 2) * 2 * Math.abs(dd[0]!);
-      const mag = Math.max(...pts.map((p) => Math.abs(p.s[k]!)));
-      const tol = LTE_RELTOL * mag + (isVolt ? LTE_VOLT_ABSTOL_PER_VPK * vpk : LTE_AMP_ABSTOL_A);
+      const tol = LTE_RELTOL * mag + (this.storage[k]!.isVolt ? LTE_VOLT_ABSTOL_PER_VPK * vpk : LTE_AMP_ABSTOL_A);
       worst = Math.max(worst, lte / tol);
     }
     return worst;
@@ -214,6 +221,9 @@ export class TransientSolver {
     const samples: CycleSample[] = [];
     const events: CycleRun["events"] = [];
     let steps = 0;
+    const dwell = (LATCH_MIN_DWELL_DEG / 360) * period;
+    const lastFlip = new Map<string, number>();
+    const mayFlip = (d: { ref: string }, at: number) => at - (lastFlip.get(d.ref) ?? -Infinity) >= dwell;
     while (t < period * (1 - 1e-12)) {
       if (budget.stepsLeft-- <= 0) return solverFailure("step-limit", "the step limit of the analysis was reached", { time_s: t });
       if (budget.now && budget.now() > budget.deadlineMs)
@@ -247,26 +257,39 @@ export class TransientSolver {
       // Switching events in this step: locate the earliest crossing by bisection on the step.
       let accepted = out;
       let hAcc = hTry;
-      let flips = this.switching.filter((d) => latchEvent(d, out.x, mem).flip);
+      let flips = this.switching.filter((d) => latchEvent(d, out.x, mem).flip && mayFlip(d, t + hTry));
       if (flips.length > 0) {
         const startValues = this.switching.map((d) => latchEvent(d, x, mem).value);
         const crossesInside = flips.some((d) => startValues[this.switching.indexOf(d)]! < 0);
         if (crossesInside && hTry > eventTol) {
           let lo = 0;
           let hi = hTry;
+          let eLo = Math.max(...flips.map((d) => startValues[this.switching.indexOf(d)]!));
+          let eHi = Math.max(...flips.map((d) => latchEvent(d, out.x, mem).value));
           let best = out;
           while (hi - lo > eventTol) {
             const mid = 0.5 * (lo + hi);
             const trial = this.step(t + mid, mid, trap, x, mem);
             if (!trial.ok) break;
-            if (this.switching.some((d) => latchEvent(d, trial.x, mem).flip)) {
+            const e = Math.max(...flips.map((d) => latchEvent(d, trial.x, mem).value));
+            if (flips.some((d) => latchEvent(d, trial.x, mem).flip)) {
               hi = mid;
+              eHi = e;
               best = trial;
-            } else lo = mid;
+            } else {
+              lo = mid;
+              eLo = e;
+            }
           }
-          accepted = best;
-          hAcc = hi;
-          flips = this.switching.filter((d) => latchEvent(d, accepted.x, mem).flip);
+          // End on the interpolated crossing, so the event time (and the cycle map) moves
+          // continuously with the state instead of in bisection quanta.
+          const frac = eHi > eLo ? Math.min(1, Math.max(0, -eLo / (eHi - eLo))) : 1;
+          const hStar = Math.max(lo + frac * (hi - lo), hTry * 1e-9);
+          const atStar = hStar < hi ? this.step(t + hStar, hStar, trap, x, mem) : best;
+          accepted = atStar.ok ? atStar : best;
+          hAcc = atStar.ok ? hStar : hi;
+          const flipNow = flips.filter((d) => latchEvent(d, accepted.x, mem).flip);
+          flips = flipNow.length > 0 ? flipNow : flips;
         }
       }
       t += hAcc;
@@ -279,6 +302,7 @@ export class TransientSolver {
         for (const d of flips) {
           const on = mem[d.mem]! < 0.5;
           mem[d.mem] = on ? 1 : 0;
+          lastFlip.set(d.ref, t);
           events.push({ ref: d.ref, t, on });
         }
         damped = true;
@@ -295,4 +319,9 @@ export class TransientSolver {
     this.totalSteps += steps;
     return { ok: true, run: { endMem: mem, endX: x, samples, events, steps } };
   }
+}
+
+function allFinite(x: Float64Array): boolean {
+  for (let i = 0; i < x.length; i++) if (!Number.isFinite(x[i]!)) return false;
+  return true;
 }

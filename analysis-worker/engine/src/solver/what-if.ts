@@ -74,7 +74,7 @@ export function suggestTriggerResistor(rec: TeardownRecord, req: TriggerRequest,
   const g0 = g(r0.value);
   if (!g0.ok) return g0;
   let lo = r0.value;
-  let glo = g0.value;
+  const glo = g0.value;
   let hi = r0.value;
   let found = glo === 0;
   for (let k = 1; k <= BRACKET_TRIES && !found; k++) {
