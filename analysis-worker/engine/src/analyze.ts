@@ -12,6 +12,9 @@ import { fingerprint } from "./fingerprint/wl-fingerprint.js";
 import { layoutSchematic } from "./layout/layout-schematic.js";
 import { ENGINE_VERSION } from "./engine-version.js";
 import { searchColumnsFor, type SearchColumns } from "./search-columns.js";
+import { analyzeCircuit } from "./solver/analyze-circuit.js";
+import { selectStoredWaveforms } from "./stored-waveforms.js";
+import { assessRisks } from "./flags/assess-risks.js";
 
 export type AnalysisStage = "validate" | "check" | "blocks" | "solve" | "flags" | "fingerprint" | "layout";
 
@@ -20,6 +23,8 @@ export interface AnalysisOptions {
   now?: () => number;
   /** Analyse at this supply instead of the record's rated supply (a what-if run). */
   supply?: Supply;
+  /** The most the solver may take, in ms of `now` (only enforced with a clock). */
+  budgetMs?: number;
 }
 
 export interface AnalysisOutput {
@@ -51,13 +56,13 @@ export async function analyzeStoredRecord(doc: unknown, opts: AnalysisOptions = 
     const message = `${parsed.errors.length} error(s) in the record; first: ${first ? `${first.path}: ${first.message}` : "unknown"}`;
     return { ok: false, stage: "validate", code: "invalid-record", message, errors: parsed.errors };
   }
-  return analyzeRecord(parsed.record, { now, timings, supply: opts.supply });
+  return analyzeRecord(parsed.record, { now, timings, supply: opts.supply, budgetMs: opts.budgetMs });
 }
 
 /** Analyses a validated record. */
 export async function analyzeRecord(
   record: TeardownRecord,
-  opts: { now: () => number; timings?: Partial<Record<AnalysisStage, number>>; supply?: Supply },
+  opts: { now: () => number; timings?: Partial<Record<AnalysisStage, number>>; supply?: Supply; budgetMs?: number },
 ): Promise<AnalysisOutcome> {
   const { now } = opts;
   const timings = opts.timings ?? {};
@@ -75,16 +80,44 @@ export async function analyzeRecord(
   timings.layout = now() - t0;
   if (!layout.ok) return { ok: false, stage: "layout", code: layout.code, message: layout.message, errors: [] };
   const supply = opts.supply ?? record.device.rated_supply;
-  const result: Record<string, unknown> = {
-    engine: ENGINE_VERSION,
-    supply,
+  const result: Record<string, unknown> = { engine: ENGINE_VERSION, supply };
+  const hasSupply = Object.values(record.nets).some((n) => n.role === "line") && Object.values(record.nets).some((n) => n.role === "neutral");
+  if (hasSupply) {
+    const t1 = now();
+    const solved = analyzeCircuit(record, { supply, now, budgetMs: opts.budgetMs });
+    timings.solve = now() - t1;
+    if (!solved.ok) {
+      const where = [...solved.error.where.nets.map((n) => `net ${n}`), ...solved.error.where.parts.map((p) => `part ${p}`)].join(", ");
+      return { ok: false, stage: "solve", code: solved.error.code, message: where ? `${solved.error.message} (${where})` : solved.error.message, errors: [] };
+    }
+    const a = solved.value;
+    const t2 = now();
+    const risks = assessRisks(record, a, { now, budgetMs: opts.budgetMs });
+    timings.flags = now() - t2;
+    Object.assign(result, {
+      input: a.input,
+      parts: a.parts,
+      nets: a.nets,
+      triggers: a.triggers,
+      waveforms: selectStoredWaveforms(record, a.waveforms, a.nets, a.parts),
+      linear: a.linear,
+      solver: a.solver,
+      flags: risks.flags,
+      comparisons: risks.comparisons,
+      risk_notes: risks.notes,
+    });
+  } else {
+    // A board fragment with no declared line and neutral: documented, drawn, not solved.
+    result.solver = { skipped: "the record declares no net with role line and one with role neutral, so there is no supply to solve against" };
+  }
+  result.flags ??= [];
+  Object.assign(result, {
     blocks,
-    flags: [],
     // Additions to the documented result: the checks of the traced graph, and each valued
     // part's IEC 60063 series (null when the value is on none).
     checks,
     series: seriesMembership(record),
-  };
+  });
   return {
     ok: true,
     output: { result, layout: layout.layout, search: searchColumnsFor(record, result, features), timings },

@@ -48,6 +48,7 @@ export * from "./flags/assess-risks.js";
 export * from "./flags/discharge-rules.js";
 export * from "./flags/spacing-tables.js";
 export * from "./flags/seeded-random.js";
+export * from "./flags/variant-solve.js";
 export * from "./figures/tolerance-bands.js";
 export * from "./figures/measurement-comparisons.js";
 export * from "./figures/measurement-hints.js";

@@ -1,0 +1,64 @@
+/**
+ * The risk assessment's front door: every flag computed from the solved circuit, and the
+ * measured-versus-predicted comparisons. Pure: the clock and the seed are passed in; the
+ * variants (unplugging, crest switch-on, tolerance samples, sensitivities) are re-solved inside
+ * under one shared budget, and a check that cannot finish is noted, never guessed.
+ */
+import type { TeardownRecord } from "../record/types.js";
+import type { CircuitAnalysis } from "../solver/analyze-circuit.js";
+import { compareMeasurements } from "../figures/measurement-comparisons.js";
+import { DEFAULT_TOLERANCE_SAMPLES, DEFAULT_TOLERANCE_SEED } from "../figures/tolerance-bands.js";
+import type { Flag, FlagSeverity, RiskAssessment, RiskOptions } from "./flag-types.js";
+import { FLAG_CODES } from "./flag-types.js";
+import { accessibleMainsFlags } from "./accessible-mains.js";
+import { bleederFlags } from "./bleeder-flags.js";
+import { capacitorClassFlags } from "./capacitor-class.js";
+import { domainNotes } from "./domain-notes.js";
+import { measurementFlags } from "./measurement-flags.js";
+import { overstressFlags } from "./overstress-flags.js";
+import { riskContext } from "./risk-context.js";
+import { spacingFlags } from "./spacing-flags.js";
+import { fuseFlags, surgeFlags } from "./supply-protection.js";
+import { triggerFlags } from "./trigger-flags.js";
+import { riskBudget, solveVariant } from "./variant-solve.js";
+
+const SEVERITY_ORDER: Record<FlagSeverity, number> = { danger: 0, warning: 1, info: 2 };
+
+/** Flags ordered by severity, then code (FLAG_CODES order), then parts. */
+export function compareFlags(a: Flag, b: Flag): number {
+  return (
+    SEVERITY_ORDER[a.severity] - SEVERITY_ORDER[b.severity] ||
+    FLAG_CODES.indexOf(a.code) - FLAG_CODES.indexOf(b.code) ||
+    a.parts.join(",").localeCompare(b.parts.join(",")) ||
+    a.nets.join(",").localeCompare(b.nets.join(","))
+  );
+}
+
+/** All risk flags and measurement comparisons of a record, given the solver's analysis at the analysed supply. */
+export function assessRisks(record: TeardownRecord, analysis: CircuitAnalysis, opts: RiskOptions = {}): RiskAssessment {
+  const budget = riskBudget(opts.now, opts.budgetMs);
+  const solvedOutcome = solveVariant(record, analysis.supply, budget);
+  const ctx = riskContext(record, analysis, solvedOutcome.ok ? solvedOutcome.value : null, budget);
+  if (!solvedOutcome.ok)
+    ctx.notes.push(`the steady cycle could not be re-solved (${solvedOutcome.error.code}: ${solvedOutcome.error.message}); discharge, surge and measurement checks were skipped`);
+  const flags: Flag[] = [
+    ...accessibleMainsFlags(ctx),
+    ...fuseFlags(ctx),
+    ...capacitorClassFlags(ctx),
+    ...overstressFlags(ctx),
+    ...spacingFlags(ctx),
+    ...triggerFlags(ctx),
+    ...domainNotes(ctx),
+    ...bleederFlags(ctx),
+    ...surgeFlags(ctx),
+  ];
+  const compared = compareMeasurements(record, {
+    seed: opts.seed ?? DEFAULT_TOLERANCE_SEED,
+    samples: opts.samples ?? DEFAULT_TOLERANCE_SAMPLES,
+    budget,
+    reuse: ctx.solved ? { supply: analysis.supply, solved: ctx.solved } : null,
+  });
+  ctx.notes.push(...compared.notes);
+  flags.push(...measurementFlags(record, compared.checks, budget));
+  return { flags: flags.sort(compareFlags), comparisons: compared.checks.map((c) => c.comparison), notes: [...new Set(ctx.notes)] };
+}

@@ -1,0 +1,101 @@
+/**
+ * bleeder-missing and bleeder-slow: what stays charged across the plug pins after unplugging.
+ * The capacitance the pins present is read off the steady cycle (the part of the line current's
+ * fundamental that leads the supply by 90°, divided by ωV̂); above 0.1 µF the unplugging is
+ * simulated at both supply peaks and the worse one is judged against 34 V at 1 s (IEC 60335-1
+ * 22.5) and τ ≤ 1 s (IEC 60950-1 2.1.1.7, type A).
+ */
+import type { CircuitAnalysis } from "../solver/analyze-circuit.js";
+import type { Flag } from "./flag-types.js";
+import type { RiskContext } from "./risk-context.js";
+import { sig3 } from "./risk-context.js";
+import {
+  DISCHARGE_CAPACITANCE_THRESHOLD_F,
+  MISSING_BLEEDER_MIN_TIME_CONSTANT_S,
+  PIN_VOLTAGE_DELAY_S,
+  PIN_VOLTAGE_LIMIT_V,
+  TYPE_A_MAX_TIME_CONSTANT_S,
+  dischargeVerdicts,
+  maxTimeConstantFor,
+} from "./discharge-rules.js";
+import { simulateUnplug } from "./discharge-after-unplug.js";
+
+const SOURCE =
+  "IEC 60335-1, 22.5 (34 V at 1 s after unplugging at the peak, capacitance > 0.1 µF; FOUND) and IEC 60950-1, 2.1.1.7 (τ ≤ 1 s, pluggable type A; FOUND), per reference-values.md §1";
+
+/** The capacitance the plug pins present at the supply frequency (0 for a resistive or inductive input). */
+export function pinCapacitance(analysis: CircuitAnalysis): number {
+  const i = analysis.waveforms.series["input.current"];
+  const n = i?.length ?? 0;
+  if (i === undefined || n === 0) return 0;
+  const w = 2 * Math.PI * analysis.supply.hz;
+  const vpk = analysis.supply.vrms * Math.SQRT2;
+  let quad = 0;
+  // v = V̂ sin ωt, so a capacitor's current is ωCV̂ cos ωt: its cos-component over one cycle.
+  for (let k = 0; k < n; k++) quad += i[k]! * Math.cos(w * analysis.waveforms.t[k]!);
+  return Math.max(0, (2 * quad) / n / (w * vpk));
+}
+
+/** Capacitors on the supply side: in series in a supply chain or straight across the mains nets. */
+function supplyCapacitors(ctx: RiskContext): string[] {
+  const inChains = ctx.paths.chains.flatMap((c) => c.steps.flatMap((s) => s.parts.filter((p) => p.kind === "capacitor").map((p) => p.ref)));
+  const across = ctx.record.parts
+    .filter((p) => p.kind === "capacitor")
+    .filter((p) => {
+      const [a, b] = Object.values(p.pins);
+      const l = ctx.paths.mainsLine;
+      const nn = ctx.paths.mainsNeutral;
+      return a !== undefined && b !== undefined && ((l.has(a) && nn.has(b)) || (l.has(b) && nn.has(a)));
+    })
+    .map((p) => p.ref);
+  return [...new Set([...inChains, ...across])].sort();
+}
+
+/** The discharge flags of a plug-connected circuit. */
+export function bleederFlags(ctx: RiskContext): Flag[] {
+  if (ctx.solved === null || ctx.paths.lineNets.length === 0 || ctx.paths.neutralNets.length === 0) return [];
+  const cPins = pinCapacitance(ctx.analysis);
+  if (cPins <= DISCHARGE_CAPACITANCE_THRESHOLD_F) {
+    ctx.notes.push(`discharge: the pins present ${sig3(cPins * 1e6)} µF, not above 0.1 µF, so the pin-voltage rules do not apply`);
+    return [];
+  }
+  const sim = simulateUnplug(ctx.solved, PIN_VOLTAGE_DELAY_S, ctx.budget);
+  if (!sim.ok) {
+    ctx.notes.push(`discharge: the unplugging run failed (${sim.error.code}: ${sim.error.message}); no discharge flag was computed`);
+    return [];
+  }
+  const worst = sim.value.reduce((a, b) => (Math.abs(b.v_after_v) > Math.abs(a.v_after_v) ? b : a));
+  const verdict = dischargeVerdicts(worst.v_after_v, worst.tau_s);
+  const missing = worst.tau_s >= MISSING_BLEEDER_MIN_TIME_CONSTANT_S;
+  if (!missing && !verdict.exceeds_pin_limit && !verdict.exceeds_type_a_tau) return [];
+  const parts = supplyCapacitors(ctx);
+  const tauText = Number.isFinite(worst.tau_s) ? `${sig3(worst.tau_s)} s` : "no decay";
+  return [
+    {
+      code: missing ? "bleeder-missing" : "bleeder-slow",
+      severity: missing ? "danger" : "warning",
+      parts,
+      nets: [...ctx.paths.lineNets, ...ctx.paths.neutralNets],
+      message: missing
+        ? `Nothing discharges the ${sig3(cPins * 1e6)} µF the plug pins present: unplugged at the ${worst.instant}, they still hold ${sig3(Math.abs(worst.v_after_v))} V after 1 s.`
+        : `The discharge is slow: unplugged at the ${worst.instant}, the pins hold ${sig3(Math.abs(worst.v_after_v))} V after 1 s (limit ${PIN_VOLTAGE_LIMIT_V} V), equivalent time constant ${tauText} (limit ${TYPE_A_MAX_TIME_CONSTANT_S} s).`,
+      evidence: {
+        capacitance_at_pins_f: cPins,
+        capacitance_threshold_f: DISCHARGE_CAPACITANCE_THRESHOLD_F,
+        unplugged_at: worst.instant,
+        v_at_unplug_v: worst.v0_v,
+        v_after_delay_v: Math.abs(worst.v_after_v),
+        delay_s: worst.delay_s,
+        limit_v: PIN_VOLTAGE_LIMIT_V,
+        tau_s: Number.isFinite(worst.tau_s) ? worst.tau_s : null,
+        tau_limit_s: TYPE_A_MAX_TIME_CONSTANT_S,
+        tau_max_for_limit_v_s: maxTimeConstantFor(Math.abs(worst.v0_v), PIN_VOLTAGE_LIMIT_V, PIN_VOLTAGE_DELAY_S),
+        bleeder_max_ohms: maxTimeConstantFor(Math.abs(worst.v0_v), PIN_VOLTAGE_LIMIT_V, PIN_VOLTAGE_DELAY_S) / cPins,
+        exceeds_pin_limit: verdict.exceeds_pin_limit,
+        exceeds_tau_limit: verdict.exceeds_type_a_tau,
+      },
+      source: SOURCE,
+      caution: "Capacitors stay charged: treat the pins and the board as live after unplugging until they are measured discharged.",
+    },
+  ];
+}

@@ -1,0 +1,79 @@
+/**
+ * What every risk check reads: the record, the solver's analysis at the analysed supply, the
+ * re-solved steady cycle (for the variants that start from it: unplugging, tolerance samples),
+ * the conducting connections, the supply chains and the budget shared by all re-solves.
+ */
+import type { TeardownRecord } from "../record/types.js";
+import type { CircuitAnalysis, SolvedCircuit } from "../solver/analyze-circuit.js";
+import type { Budget } from "../solver/transient.js";
+import { buildCircuitGraph } from "../graph/circuit-graph.js";
+import type { SupplyPaths } from "../blocks/supply-path.js";
+import { traceSupplyPaths } from "../blocks/supply-path.js";
+import type { GalvanicEdge } from "./galvanic-paths.js";
+import { galvanicEdges, galvanicReach } from "./galvanic-paths.js";
+
+/** The shared inputs of the risk checks. */
+export interface RiskContext {
+  record: TeardownRecord;
+  analysis: CircuitAnalysis;
+  /** The steady cycle re-solved at the analysed supply, or null when that failed (checks that need it are skipped). */
+  solved: SolvedCircuit | null;
+  budget: Budget;
+  edges: GalvanicEdge[];
+  supplyNets: Set<string>;
+  /** Nets with a conducting path to line or neutral. */
+  mainsConnected: Set<string>;
+  /** Nets declared accessible, and every net with a conducting path to one. */
+  touchable: Set<string>;
+  paths: SupplyPaths;
+  notes: string[];
+}
+
+/** Builds the context; `solved` comes from the caller, which owns the re-solve. */
+export function riskContext(record: TeardownRecord, analysis: CircuitAnalysis, solved: SolvedCircuit | null, budget: Budget): RiskContext {
+  const edges = galvanicEdges(record);
+  const names = Object.keys(record.nets);
+  const supplyNets = new Set(names.filter((n) => record.nets[n]!.role === "line" || record.nets[n]!.role === "neutral"));
+  const accessible = names.filter((n) => record.nets[n]!.accessible);
+  return {
+    record,
+    analysis,
+    solved,
+    budget,
+    edges,
+    supplyNets,
+    mainsConnected: galvanicReach(edges, supplyNets),
+    touchable: galvanicReach(edges, accessible),
+    paths: traceSupplyPaths(buildCircuitGraph(record)),
+    notes: [],
+  };
+}
+
+/** One steady cycle of a net's voltage against the analysis reference (uniform samples), or null for a net the solver left out. */
+export function netWave(ctx: RiskContext, net: string): number[] | null {
+  const series = ctx.analysis.waveforms.series[`net.${net}`];
+  if (series !== undefined) return series;
+  const ref = ctx.analysis.nets[net];
+  if (ref !== undefined && ref.peak === 0 && ref.rms === 0) return ctx.analysis.waveforms.t.map(() => 0);
+  return null;
+}
+
+/** RMS and peak of V(a) - V(b) over the steady cycle, or null when a net is not solved. */
+export function voltageBetween(ctx: RiskContext, a: string, b: string): { rms_v: number; peak_v: number } | null {
+  const va = netWave(ctx, a);
+  const vb = netWave(ctx, b);
+  if (va === null || vb === null || va.length === 0) return null;
+  let sq = 0;
+  let peak = 0;
+  for (let k = 0; k < va.length; k++) {
+    const d = va[k]! - vb[k]!;
+    sq += d * d;
+    peak = Math.max(peak, Math.abs(d));
+  }
+  return { rms_v: Math.sqrt(sq / va.length), peak_v: peak };
+}
+
+/** Rounds a number for messages (3 significant figures). */
+export function sig3(x: number): string {
+  return Number(x.toPrecision(3)).toString();
+}
