@@ -32,6 +32,30 @@ function ratingText(r: TeardownRecord["parts"][number]["rating"]): string {
   return bits.join(" ");
 }
 
+/** Unit of a measured figure, by its `what`. */
+function unitOfMeasurement(what: string): string {
+  if (what === "input.current_rms" || what === "part.current_rms") return "A";
+  if (what === "input.power" || what === "part.power") return "W";
+  if (what === "input.apparent_power") return "VA";
+  if (what === "input.power_factor") return "";
+  return "V";
+}
+
+/** Evidence as `key value unit` pairs: numbers rounded, units read from the key's suffix. */
+function evidenceText(evidence: Record<string, unknown>): string {
+  const suffixUnits: Array<[RegExp, string]> = [[/_v$/, "V"], [/_a$/, "A"], [/_w$/, "W"], [/_s$/, "s"], [/_f$/, "F"], [/_ohms$/, "Ω"], [/_mm$/, "mm"], [/_hz$/, "Hz"]];
+  const show = (key: string, v: unknown): string => {
+    if (typeof v === "number") {
+      const unit = suffixUnits.find(([re]) => re.test(key))?.[1];
+      return unit && unit !== "mm" ? eng(v, unit, 4) : String(Number(v.toPrecision(4)));
+    }
+    if (Array.isArray(v)) return `[${v.map((x) => (typeof x === "object" && x !== null ? Object.entries(x).map(([k, y]) => `${k}=${show(k, y)}`).join(" ") : show(key, x))).join("; ")}]`;
+    if (v && typeof v === "object") return Object.entries(v).map(([k, y]) => `${k}=${show(k, y)}`).join(" ");
+    return String(v);
+  };
+  return Object.entries(evidence).map(([k, v]) => `${k}: ${show(k, v)}`).join(", ");
+}
+
 /** The whole readable report for one analysed record. */
 export function readableReport(record: TeardownRecord, result: Result): string {
   const out: string[] = [];
@@ -77,13 +101,17 @@ export function readableReport(record: TeardownRecord, result: Result): string {
       out.push(`  [${f.severity.toUpperCase()}] ${f.code}: ${f.message}`);
       const where = [...f.parts, ...f.nets];
       if (where.length) out.push(`      concerns: ${where.join(", ")}`);
-      out.push(`      evidence: ${JSON.stringify(f.evidence)}`, `      source: ${f.source}`);
+      out.push(`      evidence: ${evidenceText(f.evidence)}`, `      source: ${f.source}`);
     }
     out.push("");
   }
   const comparisons = (result.comparisons as Array<{ what: string; measured: number; predicted: Num; low: Num; high: Num; verdict: string }> | undefined) ?? [];
   if (comparisons.length) {
-    out.push("Measured against predicted", textTable(["measurement", "measured", "predicted", "band", "verdict"], comparisons.map((c) => [c.what, c.measured, c.predicted ?? null, `${c.low ?? "—"} … ${c.high ?? "—"}`, c.verdict])), "");
+    out.push("Measured against predicted", textTable(["measurement", "measured", "predicted", "band", "verdict"], comparisons.map((c) => {
+      const u = unitOfMeasurement(c.what);
+      const f = (v: Num) => (u ? eng(v, u, 4) : v === null || v === undefined ? "—" : v.toFixed(3));
+      return [c.what, f(c.measured), f(c.predicted), `${f(c.low)} … ${f(c.high)}`, c.verdict];
+    })), "");
   }
   if (safetyShown) out.push(SAFETY_CAUTION);
   return out.join("\n");
