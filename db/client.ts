@@ -10,6 +10,7 @@ import pg from "pg";
 import * as schema from "./schema/index.js";
 import { startEmbeddedServer, type EmbeddedServer } from "./embedded-server.js";
 import { DatabaseUnavailableError, describeDatabaseUrl, explainConnectionFailure } from "./errors.js";
+import { guardPoolClients } from "./pool-guard.js";
 
 export type Database = NodePgDatabase<typeof schema>;
 
@@ -44,8 +45,11 @@ export function dataDir(): string {
   return process.env.TEARDOWN_DATA_DIR ? path.resolve(process.env.TEARDOWN_DATA_DIR) : path.join(projectRoot(), ".data");
 }
 
-/** A pool for a URL. The only place a pool is made. */
-export function createPool(url: string, max = 10): pg.Pool {
+/**
+ * A pool for a URL. The only place a pool is made. `onConnectionLost` hears of connections that
+ * died while checked out (the query then fails and can be retried; the process lives on).
+ */
+export function createPool(url: string, max = 10, onConnectionLost: (err: Error) => void = () => {}): pg.Pool {
   try {
     new URL(url);
   } catch {
@@ -54,6 +58,7 @@ export function createPool(url: string, max = 10): pg.Pool {
   const pool = new pg.Pool({ connectionString: url, max, connectionTimeoutMillis: CONNECT_TIMEOUT_MS });
   // An idle client's error (server restarted) must not crash the process; the next query retries.
   pool.on("error", () => {});
+  guardPoolClients(pool, onConnectionLost);
   return pool;
 }
 
@@ -86,7 +91,9 @@ export async function startEmbeddedDatabase(opts: { onLog?: (line: string) => vo
  * Opens the database: `DATABASE_URL` when set, else the embedded server (whose URL is then
  * exported to `DATABASE_URL` for child processes). Fails with one clear DatabaseUnavailableError.
  */
-export async function openDatabase(opts: { url?: string; poolSize?: number; onLog?: (line: string) => void } = {}): Promise<DatabaseHandle> {
+export async function openDatabase(
+  opts: { url?: string; poolSize?: number; onLog?: (line: string) => void; onConnectionLost?: (err: Error) => void } = {},
+): Promise<DatabaseHandle> {
   let url = opts.url ?? process.env.DATABASE_URL ?? "";
   let embedded: EmbeddedServer | null = null;
   if (!url) {
@@ -95,7 +102,7 @@ export async function openDatabase(opts: { url?: string; poolSize?: number; onLo
     embedded = started.server.owned ? started.server : null;
     process.env.DATABASE_URL = url;
   }
-  const pool = createPool(url, opts.poolSize);
+  const pool = createPool(url, opts.poolSize, opts.onConnectionLost);
   try {
     await ping(pool, url);
   } catch (err) {

@@ -1,5 +1,6 @@
 /** The database package's front door for the worker, the web app, the seed and tests. */
 export * from "./client.js";
+export * from "./pool-guard.js";
 export * from "./errors.js";
 export * from "./migrate.js";
 export * as schema from "./schema/index.js";

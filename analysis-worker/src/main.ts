@@ -4,7 +4,7 @@
  * them, and results are idempotent upserts. SIGTERM finishes the jobs in hand within a grace
  * period, else releases them to the queue.
  */
-import { ANALYSIS_QUEUE, applyMigrations, createQueue, DatabaseUnavailableError, openDatabase, startQueue, type AnalysisJob } from "@teardown/db";
+import { ANALYSIS_QUEUE, applyMigrations, createQueue, DatabaseUnavailableError, jobExpireSeconds, openDatabase, startQueue, type AnalysisJob } from "@teardown/db";
 import { runAnalysisJob } from "./analysis-job.js";
 import { EngineRunner } from "./engine-runner.js";
 import { logger } from "./logger.js";
@@ -13,22 +13,29 @@ import { logger } from "./logger.js";
 const SHUTDOWN_GRACE_MS = Number(process.env.WORKER_SHUTDOWN_GRACE_MS ?? 20_000);
 /** The time budget of one analysis. */
 const ANALYSIS_BUDGET_MS = Number(process.env.ANALYSIS_BUDGET_MS ?? 60_000);
+/** The longest one database call of a job is retried through an outage. */
+const MAX_DB_RETRY_MS = 60_000;
 
 async function main(): Promise<void> {
   const concurrency = Math.max(1, Number(process.env.WORKER_CONCURRENCY ?? 2));
   let handle;
   try {
-    handle = await openDatabase({ poolSize: concurrency + 2 });
+    handle = await openDatabase({
+      poolSize: concurrency + 2,
+      onConnectionLost: (err) => logger.warn({ err: err.message }, "database connection lost (retrying)"),
+    });
     await applyMigrations(handle.url);
   } catch (err) {
     process.stderr.write(`teardown-ledger worker: ${err instanceof DatabaseUnavailableError ? err.message : String(err)}\n`);
     process.exit(1);
   }
+  // A connection lost while checked out must fail its query, not end the process.
   const boss = createQueue(handle.url);
   boss.on("error", (err: Error) => logger.warn({ err: err.message }, "queue error (retrying)"));
   await startQueue(boss);
   const engine = new EngineRunner();
-  const ctx = { db: handle.db, engine, budgetMs: ANALYSIS_BUDGET_MS };
+  // A third of the expiry, so a job that gives up is failed and retried well before it expires.
+  const ctx = { db: handle.db, engine, budgetMs: ANALYSIS_BUDGET_MS, dbRetryMs: Math.min(MAX_DB_RETRY_MS, (jobExpireSeconds() * 1000) / 3) };
   await boss.work<AnalysisJob>(
     ANALYSIS_QUEUE,
     { localConcurrency: concurrency, pollingIntervalSeconds: Number(process.env.QUEUE_POLL_SECONDS ?? 0.5) },

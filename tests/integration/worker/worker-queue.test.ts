@@ -94,7 +94,7 @@ describe("a worker with a short time budget", () => {
     }
     const team = await makeTeam(t.db);
     const slow = await makeEntry(t.db, boss, team, ladderDoc(150), ENGINE_VERSION);
-    const quick = [];
+    const quick: Array<{ revisionId: string }> = [];
     for (let i = 0; i < 4; i++) quick.push(await makeEntry(t.db, boss, team, nightLightDoc(100 + i), ENGINE_VERSION));
     const w = startWorkerProcess(t.url, { WORKER_CONCURRENCY: "2", ANALYSIS_BUDGET_MS: "2500" });
     workers.push(w);
