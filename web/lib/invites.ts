@@ -61,7 +61,7 @@ export async function createInvite(
     return {
       id: row!.id,
       token,
-      url: `${appUrl()}/invites/${token}`,
+      url: `${appUrl()}/invite/${token}`,
       role: row!.role,
       expiresAt: row!.expiresAt,
     };

@@ -66,7 +66,7 @@ describe("invitations", () => {
     const made = await invite("editor");
     expect(made.status).toBe(201);
     const token: string = made.body.invite.token;
-    expect(made.body.invite.url).toBe(`http://localhost:3000/invites/${token}`);
+    expect(made.body.invite.url).toBe(`http://localhost:3000/invite/${token}`);
     const info = await call("GET", `/api/invites/${token}`);
     expect(info.body.invite).toMatchObject({ teamName: "Mains Lab", role: "editor" });
     const accepted = await call("POST", `/api/invites/${token}`, { as: joiner.as });

@@ -19,7 +19,7 @@ interface Started {
 function start(env: Record<string, string>): Started {
   const child = spawn(process.execPath, ["--import", "tsx", path.join(ROOT, "scripts", "start.ts")], {
     cwd: ROOT,
-    env: { ...process.env, ...env },
+    env: "PATH" in env ? env : { ...process.env, ...env },
     stdio: ["ignore", "pipe", "pipe"],
   });
   let out = "";
@@ -46,10 +46,16 @@ function alive(pid: number): boolean {
   }
 }
 
-async function childPids(pid: number): Promise<number[]> {
+/** The direct children of a process, with their command lines. */
+async function childPids(pid: number): Promise<Array<{ pid: number; cmd: string }>> {
   const { execFileSync } = await import("node:child_process");
+  const { readFileSync } = await import("node:fs");
   try {
-    return execFileSync("pgrep", ["-g", String(pid)], { encoding: "utf8" }).trim().split("\n").filter(Boolean).map(Number);
+    return execFileSync("pgrep", ["-P", String(pid)], { encoding: "utf8" })
+      .trim()
+      .split("\n")
+      .filter(Boolean)
+      .map((p) => ({ pid: Number(p), cmd: readFileSync(`/proc/${p}/cmdline`, "utf8").replace(/\0/g, " ") }));
   } catch {
     return [];
   }
@@ -92,8 +98,8 @@ describe("npm start with DATABASE_URL", () => {
     expect(teamsAfterFirst).toBeGreaterThan(0);
 
     // The web server and worker run in their own process groups; all must be gone after SIGTERM.
-    const groups = (await childPids(first.child.pid!)).length ? [] : [];
-    void groups;
+    const children = await childPids(first.child.pid!);
+    expect(children.length).toBeGreaterThanOrEqual(2);
     first.child.kill("SIGTERM");
     expect(await first.exit).toBe(0);
     expect(first.output()).toContain("[start] stopped");
@@ -111,5 +117,40 @@ describe("npm start with DATABASE_URL", () => {
     expect(await demoTeams()).toBe(teamsAfterFirst);
     second.child.kill("SIGTERM");
     expect(await second.exit).toBe(0);
+  }, 300_000);
+
+  // In the same file as the build above, so no two tests run `next build` at once.
+  it("stops everything with exit 1 when the worker dies while it runs", async () => {
+    const port = await findFreePort();
+    const run = start({ DATABASE_URL: target.url, PORT: String(port) });
+    await waitFor(() => /is running at/.test(run.output()) || run.child.exitCode !== null, 240_000);
+    const worker = (await childPids(run.child.pid!)).find((c) => c.cmd.includes("analysis-worker/src/main.ts"));
+    expect(worker).toBeDefined();
+    process.kill(worker!.pid, "SIGKILL");
+    expect(await run.exit).toBe(1);
+    expect(run.output()).toMatch(/the worker process exited \(code null, signal SIGKILL\); stopping everything/);
+    const health = await fetch(`http://localhost:${port}/api/health`).then((r) => r.status, () => "refused");
+    expect(health).toBe("refused");
+  }, 300_000);
+
+  it("stops everything with exit 1 when the embedded database dies while it runs", async () => {
+    const { mkdtempSync, chmodSync, rmSync } = await import("node:fs");
+    const os = await import("node:os");
+    const dataDir = mkdtempSync(path.join(os.tmpdir(), "tl-start-"));
+    chmodSync(dataDir, 0o755);
+    try {
+      const port = await findFreePort();
+      const env = { ...process.env, PORT: String(port), TEARDOWN_DATA_DIR: dataDir } as Record<string, string>;
+      delete env.DATABASE_URL;
+      const run = start(env);
+      await waitFor(() => /is running at/.test(run.output()) || run.child.exitCode !== null, 240_000);
+      expect(run.output()).toContain("embedded Postgres on port");
+      const pidLine = (await import("node:fs")).readFileSync(path.join(dataDir, "postgres", "postmaster.pid"), "utf8").split("\n")[0];
+      process.kill(Number(pidLine), "SIGKILL");
+      expect(await run.exit).toBe(1);
+      expect(run.output()).toMatch(/the embedded Postgres server exited/);
+    } finally {
+      rmSync(dataDir, { recursive: true, force: true });
+    }
   }, 300_000);
 });

@@ -1,0 +1,30 @@
+"use client";
+// The header's "Sign out": ends this session through better-auth, then reloads as signed out.
+import { useState } from "react";
+import { apiFetch } from "./api-fetch";
+
+/** A button that signs the current session out and goes home. */
+export function SignOutButton() {
+  const [busy, setBusy] = useState(false);
+  const [error, setError] = useState<string | null>(null);
+  async function signOut() {
+    setBusy(true);
+    setError(null);
+    try {
+      await apiFetch("/api/auth/sign-out", { body: {} });
+      // A full load, so every server-rendered part (the header too) sees the cookie gone.
+      window.location.assign("/");
+    } catch (err) {
+      setError(err instanceof Error ? err.message : String(err));
+      setBusy(false);
+    }
+  }
+  return (
+    <>
+      <button type="button" className="link-button" onClick={signOut} disabled={busy}>
+        Sign out
+      </button>
+      {error && <span className="error-text">{error}</span>}
+    </>
+  );
+}
