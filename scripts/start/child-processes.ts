@@ -3,6 +3,11 @@
  * so that stopping one stops everything it started, and none is left behind.
  */
 import { spawn, type ChildProcess } from "node:child_process";
+import path from "node:path";
+import { fileURLToPath } from "node:url";
+
+/** Preloaded into every child: it exits when the start script dies (see the file). */
+const EXIT_WITH_PARENT = path.join(path.dirname(fileURLToPath(import.meta.url)), "exit-with-parent.cjs");
 
 /** How long a child may take to finish its work after SIGTERM before it is killed. */
 export const CHILD_STOP_GRACE_MS = 15_000;
@@ -16,7 +21,12 @@ export interface ManagedChild {
 
 /** Starts `args` with node, prefixing each output line with the child's name. */
 export function startChild(name: string, args: string[], env: NodeJS.ProcessEnv, cwd: string): ManagedChild {
-  const child = spawn(process.execPath, args, { cwd, env, detached: true, stdio: ["ignore", "pipe", "pipe"] });
+  const child = spawn(process.execPath, ["--require", EXIT_WITH_PARENT, ...args], {
+    cwd,
+    env: { ...env, TEARDOWN_EXIT_WITH_PARENT: "1" },
+    detached: true,
+    stdio: ["pipe", "pipe", "pipe"],
+  });
   const relay = (stream: NodeJS.ReadableStream, out: NodeJS.WriteStream) => {
     let buf = "";
     stream.on("data", (chunk: Buffer) => {

@@ -16,12 +16,22 @@ interface Started {
   exit: Promise<number | null>;
 }
 
+const started: ChildProcess[] = [];
+
+// A failed assertion must not leave an app running: stop whatever a test started.
+afterAll(async () => {
+  for (const c of started) if (c.exitCode === null && c.signalCode === null) c.kill("SIGTERM");
+  await new Promise((r) => setTimeout(r, 3000));
+  for (const c of started) if (c.exitCode === null && c.signalCode === null) c.kill("SIGKILL");
+});
+
 function start(env: Record<string, string>): Started {
   const child = spawn(process.execPath, ["--import", "tsx", path.join(ROOT, "scripts", "start.ts")], {
     cwd: ROOT,
     env: "PATH" in env ? env : { ...process.env, ...env },
     stdio: ["ignore", "pipe", "pipe"],
   });
+  started.push(child);
   let out = "";
   child.stdout!.on("data", (c: Buffer) => (out += c.toString()));
   child.stderr!.on("data", (c: Buffer) => (out += c.toString()));
