@@ -1,0 +1,44 @@
+"use client";
+/**
+ * Live validation of the form by the engine itself: the form state is written as a record
+ * document and read back with parseRecord, so the form shows exactly what the server will say.
+ * A valid record is also put through the circuit checks (floating nets, no supply path...).
+ */
+import { useDeferredValue, useMemo } from "react";
+import {
+  checkCircuit,
+  parseRecord,
+  type CircuitIssue,
+  type InputError,
+  type TeardownRecord,
+} from "@teardown/engine";
+import { documentFromForm, type FormState } from "./form-state";
+
+/** What the engine says about the form's record. */
+export interface LiveCheck {
+  document: Record<string, unknown>;
+  record: TeardownRecord | null;
+  errors: InputError[];
+  warnings: InputError[];
+  issues: CircuitIssue[];
+}
+
+/** Reads a form state with the engine. */
+export function checkForm(state: FormState): LiveCheck {
+  const document = documentFromForm(state);
+  const read = parseRecord(JSON.stringify(document, null, 2), { filename: "form.json" });
+  if (!read.ok) return { document, record: null, errors: read.errors, warnings: [], issues: [] };
+  return {
+    document,
+    record: read.record,
+    errors: [],
+    warnings: read.warnings,
+    issues: checkCircuit(read.record),
+  };
+}
+
+/** The live check of a form state, computed off the typing path (deferred). */
+export function useLiveCheck(state: FormState): LiveCheck {
+  const deferred = useDeferredValue(state);
+  return useMemo(() => checkForm(deferred), [deferred]);
+}

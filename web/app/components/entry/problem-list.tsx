@@ -1,0 +1,63 @@
+"use client";
+/**
+ * The problems of an uploaded file, by line: each with its place (line, column, field path)
+ * and the lines of the file around it, so the person sees the very text the reader refused.
+ */
+import type { ApiProblem } from "./api-client";
+import css from "./entry.module.css";
+
+const CONTEXT_LINES = 1;
+
+function Excerpt({ lines, line }: { lines: string[]; line: number }) {
+  const from = Math.max(1, line - CONTEXT_LINES);
+  const to = Math.min(lines.length, line + CONTEXT_LINES);
+  const shown = [];
+  for (let n = from; n <= to; n++)
+    shown.push(
+      <div key={n} className={n === line ? css.excerptHit : undefined}>
+        <span className={css.lineNo}>{n}</span>
+        {lines[n - 1]}
+      </div>,
+    );
+  return <div className={css.excerpt}>{shown}</div>;
+}
+
+/** Every problem of a refused file, in line order, with excerpts when the file's text is at hand. */
+export function ProblemList({
+  problems,
+  text,
+  title,
+}: {
+  problems: ApiProblem[];
+  text: string | null;
+  title: string;
+}) {
+  const lines = text === null ? [] : text.split(/\r?\n/);
+  const sorted = [...problems].sort(
+    (a, b) => (a.line ?? Infinity) - (b.line ?? Infinity) || (a.column ?? 0) - (b.column ?? 0),
+  );
+  return (
+    <div className={css.errorBox} role="alert" data-testid="upload-problems">
+      <strong>{title}</strong>
+      <ul>
+        {sorted.map((p, i) => (
+          <li key={i}>
+            {p.line != null ? (
+              <strong>
+                line {p.line}
+                {p.column != null ? `, column ${p.column}` : ""}
+              </strong>
+            ) : null}
+            {p.line != null && p.path ? " — " : null}
+            {p.path ? <code className={css.code}>{p.path}</code> : null}
+            {p.line != null || p.path ? ": " : null}
+            {p.message}
+            {p.line != null && lines.length >= p.line ? (
+              <Excerpt lines={lines} line={p.line} />
+            ) : null}
+          </li>
+        ))}
+      </ul>
+    </div>
+  );
+}

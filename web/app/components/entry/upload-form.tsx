@@ -1,0 +1,74 @@
+"use client";
+/**
+ * Creating an entry from a file: a YAML or JSON record, a netlist deck or a CSV parts list,
+ * sent as a multipart upload; a refused file lists every problem by line.
+ */
+import { useState } from "react";
+import { useRouter } from "next/navigation";
+import { useMutation } from "@tanstack/react-query";
+import { ApiFailure, failureText, sendForm, type ApiProblem } from "./api-client";
+import { ProblemList } from "./problem-list";
+import css from "./entry.module.css";
+
+const ACCEPT = ".yaml,.yml,.json,.cir,.net,.deck,.csv";
+
+/** The upload form of the new-entry page. */
+export function UploadForm({ teamId }: { teamId: string }) {
+  const router = useRouter();
+  const [text, setText] = useState<string | null>(null);
+  const [problems, setProblems] = useState<ApiProblem[] | null>(null);
+  const create = useMutation({
+    mutationFn: async (form: FormData) =>
+      sendForm<{ entryId: string }>(`/api/teams/${teamId}/entries`, form),
+    onSuccess: (created) => router.push(`/entries/${created.entryId}`),
+    onError: (err) =>
+      setProblems(
+        err instanceof ApiFailure && err.status === 422 && err.body.errors ? err.body.errors : null,
+      ),
+  });
+  return (
+    <form
+      id="upload-form"
+      onSubmit={async (e) => {
+        e.preventDefault();
+        const el = e.currentTarget;
+        const file = (el.elements.namedItem("recordFile") as HTMLInputElement).files?.[0];
+        if (!file) return;
+        setText(await file.text().catch(() => null));
+        const form = new FormData();
+        form.set("file", file, file.name);
+        const message = (el.elements.namedItem("message") as HTMLInputElement).value;
+        if (message.trim() !== "") form.set("message", message);
+        setProblems(null);
+        create.mutate(form);
+      }}
+    >
+      <div className={css.row}>
+        <label>
+          Record file <input type="file" name="recordFile" accept={ACCEPT} required />
+        </label>
+        <label>
+          Message <input name="message" placeholder="first trace" />
+        </label>
+        <button type="submit" className={css.button} disabled={create.isPending}>
+          Create entry
+        </button>
+      </div>
+      <p className={css.hint}>
+        A record (.yaml, .yml, .json), a netlist deck with one element per line (.cir, .net, .deck)
+        or a CSV parts list (.csv).
+      </p>
+      {problems !== null ? (
+        <ProblemList
+          problems={problems}
+          text={text}
+          title={`The file was not accepted: ${problems.length} problem${problems.length === 1 ? "" : "s"}.`}
+        />
+      ) : create.isError ? (
+        <div className={css.errorBox} role="alert">
+          {failureText(create.error)}
+        </div>
+      ) : null}
+    </form>
+  );
+}

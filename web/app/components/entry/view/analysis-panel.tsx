@@ -1,0 +1,163 @@
+"use client";
+/**
+ * The analysis of the shown revision: its state (queued, running, done, failed with reason and
+ * stage), then, once done, the schematic, figures, per-part and per-net tables, triggers,
+ * flags, waveforms, measured against predicted, blocks and checks.
+ */
+import type { ReactNode } from "react";
+import { SafetyCaution } from "../../safety-caution";
+import { when } from "../si-units";
+import type { AnalysisView, EntryState } from "../entry-queries";
+import { FlagsList } from "./flags-list";
+import { obj } from "./result-access";
+import {
+  BlocksList,
+  ChecksList,
+  ComparisonsTable,
+  InputFigures,
+  NetFiguresTable,
+  PartFiguresTable,
+  TriggersTable,
+} from "./result-tables";
+import { SchematicView } from "./schematic-view";
+import { WaveformPlots } from "./waveform-plot";
+import css from "../entry.module.css";
+
+function Section({ title, children, hint }: { title: string; children: ReactNode; hint?: string }) {
+  return (
+    <section className={css.section}>
+      <div className={css.sectionHead}>
+        <h2>{title}</h2>
+        {hint ? <span className={css.hint}>{hint}</span> : null}
+      </div>
+      {children}
+    </section>
+  );
+}
+
+/** The state line, with data-testid="analysis-state" holding queued, running, done or failed. */
+export function AnalysisStateLine({ analysis }: { analysis: AnalysisView | null }) {
+  const state = analysis?.state ?? "queued";
+  const cls =
+    state === "done" ? css.stateDone : state === "failed" ? css.stateFailed : css.stateWaiting;
+  const detail =
+    analysis === null
+      ? "waiting for the analysis job"
+      : state === "queued"
+        ? `since ${when(analysis.queuedAt)}`
+        : state === "running"
+          ? `started ${when(analysis.startedAt)}`
+          : `finished ${when(analysis.finishedAt)}`;
+  return (
+    <div className={css.row}>
+      <span className={`${css.state} ${cls}`}>
+        Analysis: <span data-testid="analysis-state">{state}</span>
+      </span>
+      <span className={css.meta}>
+        {detail}
+        {analysis ? ` · engine ${analysis.engineVersion}` : ""}
+        {state === "queued" || state === "running" ? " · this page updates by itself" : ""}
+      </span>
+    </div>
+  );
+}
+
+/** Everything a finished analysis shows. */
+export function AnalysisResults({
+  analysis,
+  record,
+  onComment,
+}: {
+  analysis: AnalysisView;
+  record: Record<string, unknown>;
+  onComment?: (ref: string) => void;
+}) {
+  const result = obj(analysis.result);
+  return (
+    <>
+      <Section
+        title="Schematic"
+        hint="laid out from the traced netlist; line and neutral drawn in their own colours"
+      >
+        <SchematicView layout={analysis.layout} />
+      </Section>
+      <Section title="Input figures">
+        <SafetyCaution />
+        <InputFigures result={result} />
+      </Section>
+      <Section title="Flags">
+        <FlagsList flags={result.flags} {...(onComment ? { onPart: onComment } : {})} />
+      </Section>
+      <Section
+        title="Parts"
+        hint="peak voltage across each part, RMS current through it and mean dissipation, in the steady cycle"
+      >
+        <PartFiguresTable result={result} record={record} {...(onComment ? { onComment } : {})} />
+      </Section>
+      <Section title="Nets" hint="voltages against the neutral">
+        <NetFiguresTable result={result} record={record} />
+      </Section>
+      <Section title="Triggers">
+        <TriggersTable result={result} />
+      </Section>
+      <Section title="Waveforms" hint="one steady mains cycle">
+        <WaveformPlots waveforms={result.waveforms} />
+      </Section>
+      <Section
+        title="Measured against predicted"
+        hint="the band covers the parts' tolerances and the stated uncertainty"
+      >
+        <ComparisonsTable result={result} record={record} />
+      </Section>
+      <Section title="Blocks">
+        <BlocksList result={result} />
+      </Section>
+      <Section title="Checks and warnings">
+        <ChecksList result={result} />
+      </Section>
+    </>
+  );
+}
+
+/** The state, a failure's reason, and the results of the current (or an older finished) analysis. */
+export function AnalysisPanel({
+  state,
+  onComment,
+}: {
+  state: EntryState;
+  onComment?: (ref: string) => void;
+}) {
+  const { analysis, olderAnalysis } = state;
+  const shown =
+    analysis?.state === "done" ? analysis : olderAnalysis?.state === "done" ? olderAnalysis : null;
+  return (
+    <>
+      <AnalysisStateLine analysis={analysis} />
+      {analysis?.state === "failed" ? (
+        <div className={css.failure} role="alert" data-testid="analysis-failure">
+          <strong>The analysis failed</strong>
+          {analysis.stage ? (
+            <>
+              {" "}
+              at the <code className={css.code}>{analysis.stage}</code> stage
+            </>
+          ) : null}
+          : {analysis.error ?? "no reason was recorded"}
+        </div>
+      ) : null}
+      {shown !== null && shown !== analysis ? (
+        <p className={css.notice}>
+          Showing the last finished analysis, by engine {shown.engineVersion}, until this
+          engine&apos;s analysis is done.
+        </p>
+      ) : null}
+      {shown !== null ? (
+        <AnalysisResults
+          analysis={shown}
+          record={state.revision.record}
+          {...(onComment ? { onComment } : {})}
+        />
+      ) : null}
+    </>
+  );
+}

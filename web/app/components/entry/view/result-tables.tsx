@@ -1,0 +1,324 @@
+"use client";
+/**
+ * The computed figures of an analysis as tables: input figures, per part, per net, triggers,
+ * measured against predicted, blocks and circuit checks. Any missing field reads "not computed".
+ */
+import type { ReactNode } from "react";
+import { NOT_COMPUTED, degrees, percent, ratio, si } from "../si-units";
+import { arr, has, measurementUnit, obj, str, strings, type Obj } from "./result-access";
+import css from "../entry.module.css";
+
+function Cell({ children, num = true }: { children: string; num?: boolean }) {
+  return (
+    <td className={`${num ? css.num : ""} ${children === NOT_COMPUTED ? css.missing : ""}`}>
+      {children}
+    </td>
+  );
+}
+
+function NotComputed({ what }: { what: string }) {
+  return <p className={css.missing}>{what} not computed.</p>;
+}
+
+/** Input current, power, apparent power, power factor and THD. */
+export function InputFigures({ result }: { result: Obj }) {
+  const input = obj(result.input);
+  const supply = obj(result.supply);
+  const items: [string, string][] = [
+    ["Input current (RMS)", si(input.current_rms, "A")],
+    ["Real power", si(input.power, "W")],
+    ["Apparent power", si(input.apparent_power, "VA")],
+    ["Power factor", ratio(input.power_factor)],
+    ["Line current THD", percent(input.thd)],
+  ];
+  return (
+    <>
+      <p className={css.meta}>
+        {has(supply, "vrms")
+          ? `At a supply of ${si(supply.vrms, "V")} RMS, ${si(supply.hz, "Hz")}`
+          : "Supply not stated in the result"}
+        {str(result.engine) ? ` · engine ${str(result.engine)}` : ""}
+      </p>
+      <div className={css.figures} data-testid="input-figures">
+        {items.map(([label, value]) => (
+          <div key={label} className={css.figure}>
+            <div className={css.label}>{label}</div>
+            <div className={`${css.value} ${value === NOT_COMPUTED ? css.missing : ""}`}>
+              {value}
+            </div>
+          </div>
+        ))}
+      </div>
+    </>
+  );
+}
+
+/** One row per part of the record, with its computed peak voltage, RMS current and dissipation. */
+export function PartFiguresTable({
+  result,
+  record,
+  onComment,
+}: {
+  result: Obj;
+  record: Obj;
+  onComment?: (ref: string) => void;
+}) {
+  const figures = obj(result.parts);
+  const series = obj(result.series);
+  const parts = arr(record.parts).map(obj);
+  return (
+    <div className={css.scroll}>
+      <table className={css.table} data-testid="part-figures">
+        <thead>
+          <tr>
+            <th>Part</th>
+            <th>Kind</th>
+            <th>Value</th>
+            <th>E series</th>
+            <th className={css.num}>Peak voltage</th>
+            <th className={css.num}>RMS current</th>
+            <th className={css.num}>Dissipation</th>
+            <th>Rating</th>
+            {onComment ? <th /> : null}
+          </tr>
+        </thead>
+        <tbody>
+          {parts.map((p) => {
+            const ref = String(p.ref);
+            const f = obj(figures[ref]);
+            const rating = obj(p.rating);
+            const ratingText = [
+              has(rating, "volts") ? `${rating.volts} V` : null,
+              has(rating, "amps") ? `${rating.amps} A` : null,
+              has(rating, "watts") ? `${rating.watts} W` : null,
+              str(rating.class),
+            ]
+              .filter(Boolean)
+              .join(", ");
+            return (
+              <tr key={ref} data-part={ref}>
+                <td>
+                  <strong>{ref}</strong>
+                  {str(p.marking) ? <div className={css.meta}>{str(p.marking)}</div> : null}
+                </td>
+                <td>{String(p.kind ?? "")}</td>
+                <td>{p.value === undefined || p.value === null ? "—" : String(p.value)}</td>
+                <td>{has(series, ref) ? String(series[ref]) : ref in series ? "none" : "—"}</td>
+                <Cell>{si(f.voltage_peak, "V")}</Cell>
+                <Cell>{si(f.current_rms, "A")}</Cell>
+                <Cell>{si(f.power, "W")}</Cell>
+                <td>{ratingText || "—"}</td>
+                {onComment ? (
+                  <td>
+                    <button type="button" className={css.quiet} onClick={() => onComment(ref)}>
+                      Comment
+                    </button>
+                  </td>
+                ) : null}
+              </tr>
+            );
+          })}
+        </tbody>
+      </table>
+    </div>
+  );
+}
+
+/** One row per net: role, touchable, DC, RMS and peak against the reference. */
+export function NetFiguresTable({ result, record }: { result: Obj; record: Obj }) {
+  const figures = obj(result.nets);
+  const declared = obj(record.nets);
+  const names = new Set<string>([...Object.keys(declared)]);
+  for (const p of arr(record.parts).map(obj)) {
+    const pins = p.pins;
+    for (const n of Array.isArray(pins) ? pins : Object.values(obj(pins))) names.add(String(n));
+  }
+  for (const n of Object.keys(figures)) names.add(n);
+  return (
+    <div className={css.scroll}>
+      <table className={css.table} data-testid="net-figures">
+        <thead>
+          <tr>
+            <th>Net</th>
+            <th>Role</th>
+            <th>Touchable</th>
+            <th className={css.num}>DC</th>
+            <th className={css.num}>RMS</th>
+            <th className={css.num}>Peak</th>
+          </tr>
+        </thead>
+        <tbody>
+          {[...names].map((n) => {
+            const info = obj(declared[n]);
+            const f = obj(figures[n]);
+            return (
+              <tr key={n}>
+                <td className={css.code}>{n}</td>
+                <td>{str(info.role) ?? ""}</td>
+                <td>
+                  {info.accessible === true ? <strong className={css.danger}>yes</strong> : "no"}
+                </td>
+                <Cell>{si(f.dc, "V")}</Cell>
+                <Cell>{si(f.rms, "V")}</Cell>
+                <Cell>{si(f.peak, "V")}</Cell>
+              </tr>
+            );
+          })}
+        </tbody>
+      </table>
+    </div>
+  );
+}
+
+/** Each thyristor or triac: whether it fires, the firing angle and the lowest supply at which it still fires. */
+export function TriggersTable({ result }: { result: Obj }) {
+  if (!Array.isArray(result.triggers)) return <NotComputed what="Triggers" />;
+  const triggers = arr(result.triggers).map(obj);
+  if (triggers.length === 0) return <p className="muted">No thyristor or triac in this circuit.</p>;
+  return (
+    <table className={css.table} data-testid="triggers">
+      <thead>
+        <tr>
+          <th>Part</th>
+          <th>Fires</th>
+          <th className={css.num}>Firing angle (positive half)</th>
+          <th className={css.num}>Firing angle (negative half)</th>
+          <th className={css.num}>Lowest firing supply</th>
+        </tr>
+      </thead>
+      <tbody>
+        {triggers.map((t, i) => (
+          <tr key={i}>
+            <td>
+              <strong>{str(t.part) ?? "?"}</strong>
+            </td>
+            <td>
+              {t.fires === true ? (
+                "yes"
+              ) : t.fires === false ? (
+                <strong className={css.danger}>no</strong>
+              ) : (
+                <span className={css.missing}>{NOT_COMPUTED}</span>
+              )}
+            </td>
+            <Cell>{t.fires === false ? "—" : degrees(t.angle_deg)}</Cell>
+            <Cell>{has(t, "angle_negative_deg") ? degrees(t.angle_negative_deg) : "—"}</Cell>
+            <Cell>{si(t.min_supply_vrms, "V")}</Cell>
+          </tr>
+        ))}
+      </tbody>
+    </table>
+  );
+}
+
+function measurementLabel(m: Obj, what: string): ReactNode {
+  const between = strings(m.between);
+  const where =
+    between.length === 2 ? ` ${between[0]}→${between[1]}` : str(m.part) ? ` ${str(m.part)}` : "";
+  return (
+    <>
+      <code className={css.code}>{what}</code>
+      {where}
+    </>
+  );
+}
+
+/** Each measurement against its predicted band. */
+export function ComparisonsTable({ result, record }: { result: Obj; record: Obj }) {
+  if (!Array.isArray(result.comparisons)) {
+    return arr(record.measurements).length === 0 ? (
+      <p className="muted">The record has no measurements to compare.</p>
+    ) : (
+      <NotComputed what="Measured against predicted" />
+    );
+  }
+  const rows = arr(result.comparisons).map(obj);
+  if (rows.length === 0) return <p className="muted">No measurement could be compared.</p>;
+  const measurements = arr(record.measurements).map(obj);
+  return (
+    <table className={css.table} data-testid="comparisons">
+      <thead>
+        <tr>
+          <th>Measurement</th>
+          <th className={css.num}>Measured</th>
+          <th className={css.num}>Predicted</th>
+          <th className={css.num}>Band</th>
+          <th>Verdict</th>
+        </tr>
+      </thead>
+      <tbody>
+        {rows.map((c, i) => {
+          const what = str(c.what) ?? "";
+          const unit = measurementUnit(what);
+          const fmt = (v: unknown) => (unit === "" ? ratio(v) : si(v, unit));
+          const verdict = str(c.verdict);
+          const m = typeof c.measurement === "number" ? obj(measurements[c.measurement]) : {};
+          return (
+            <tr key={i}>
+              <td>{measurementLabel(m, what)}</td>
+              <Cell>{fmt(c.measured)}</Cell>
+              <Cell>{fmt(c.predicted)}</Cell>
+              <Cell>
+                {has(c, "low") && has(c, "high") ? `${fmt(c.low)} … ${fmt(c.high)}` : NOT_COMPUTED}
+              </Cell>
+              <td
+                className={
+                  verdict === "agrees"
+                    ? css.agrees
+                    : verdict === "disagrees"
+                      ? css.disagrees
+                      : css.missing
+                }
+              >
+                {verdict ?? NOT_COMPUTED}
+              </td>
+            </tr>
+          );
+        })}
+      </tbody>
+    </table>
+  );
+}
+
+/** The functional blocks found, each with its parts. */
+export function BlocksList({ result }: { result: Obj }) {
+  if (!Array.isArray(result.blocks)) return <NotComputed what="Blocks" />;
+  const blocks = arr(result.blocks).map(obj);
+  if (blocks.length === 0) return <p className="muted">No functional block was recognised.</p>;
+  return (
+    <ul data-testid="blocks">
+      {blocks.map((b, i) => (
+        <li key={i}>
+          <strong>{str(b.kind) ?? "block"}</strong>: {strings(b.parts).join(", ")}
+        </li>
+      ))}
+    </ul>
+  );
+}
+
+/** The checks of the traced circuit and the engine's notes (assumptions, parts left out). */
+export function ChecksList({ result }: { result: Obj }) {
+  const checks = arr(result.checks).map(obj);
+  const notes = strings(result.notes);
+  if (checks.length === 0 && notes.length === 0)
+    return <p className="muted">No checks or warnings.</p>;
+  return (
+    <ul data-testid="checks">
+      {checks.map((c, i) => (
+        <li key={`c${i}`}>
+          <span
+            className={`${css.badge} ${c.severity === "error" ? css.sevDanger : c.severity === "warning" ? css.sevWarning : css.sevInfo}`}
+          >
+            {str(c.severity) ?? "info"}
+          </span>{" "}
+          {str(c.message) ?? str(c.code) ?? ""}
+        </li>
+      ))}
+      {notes.map((n, i) => (
+        <li key={`n${i}`}>
+          <span className={`${css.badge} ${css.sevInfo}`}>note</span> {n}
+        </li>
+      ))}
+    </ul>
+  );
+}

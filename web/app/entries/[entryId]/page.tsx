@@ -1,0 +1,32 @@
+import { headers } from "next/headers";
+import { readableEntry } from "@/lib/access";
+import { findCaller } from "@/lib/caller";
+import { database } from "@/lib/database";
+import { entryState } from "@/lib/entry-state";
+import type { EntryState } from "@/app/components/entry/entry-queries";
+import { EntryPage } from "@/app/components/entry/view/entry-page";
+
+export const dynamic = "force-dynamic";
+
+const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+
+// The first render carries the entry (as the API would answer it), so the page needs no
+// round trip to show it; anything unusual (unknown id, no access) is left to the client's
+// own request, which shows the API's answer.
+async function firstState(entryId: string): Promise<EntryState | null> {
+  if (!UUID.test(entryId)) return null;
+  try {
+    const caller = await findCaller(new Request("http://localhost/", { headers: await headers() }));
+    const { db } = database();
+    const { entry, role } = await readableEntry(db, caller, entryId.toLowerCase());
+    return JSON.parse(JSON.stringify(await entryState(db, entry, role))) as EntryState;
+  } catch {
+    return null;
+  }
+}
+
+/** /entries/[entryId]: the entry, its analysis, photos, comments and history. */
+export default async function EntryRoute({ params }: { params: Promise<{ entryId: string }> }) {
+  const { entryId } = await params;
+  return <EntryPage entryId={entryId} initial={await firstState(entryId)} />;
+}
