@@ -61,66 +61,115 @@ export interface CycleFigures {
   kclResidualAmps: number;
 }
 
-/** Computes the figures of the recorded steady cycle. */
+/** Computes the figures of the recorded steady cycle (the whole window of a k-cycle orbit). */
 export function cycleFigures(c: Circuit, steady: SteadyState): CycleFigures {
-  const period = 1 / c.supply.hz;
+  const cyclesInWindow = steady.periodCycles ?? 1;
+  const window = cyclesInWindow / c.supply.hz;
   const run = steady.run;
   const last = run.samples[run.samples.length - 1]!;
-  // The cycle is periodic: the end point stands for t = 0 as well.
+  // The window repeats: its end point stands for t = 0 as well.
   const samples = [{ t: 0, x: last.x, mem: last.mem }, ...run.samples];
-  const t = samples.map((s) => s.t);
+  const ns = samples.length;
+  const t = Float64Array.from(samples, (s) => s.t);
   const supply = c.devices.find((d): d is Extract<CircuitDevice, { type: "supply" }> => d.type === "supply")!;
-  const vIn = samples.map((s) => nodeV(s.x, supply.terminals[0]!));
-  const iIn = samples.map((s) => s.x[supply.branch]!);
+  const vIn = Float64Array.from(samples, (s) => nodeV(s.x, supply.terminals[0]!));
+  const iIn = Float64Array.from(samples, (s) => s.x[supply.branch]!);
 
-  const currents = c.devices.map((d) => samples.map((s) => terminalCurrents(d, s.x, s.mem)));
   const parts: Record<string, PartFigures> = {};
-  const series: Record<string, Float64Array | number[]> = { "supply.voltage": vIn, "input.current": iIn };
-  c.devices.forEach((d, di) => {
-    if (d.type === "supply") return;
-    const volts = samples.map((s) => d.terminals.map((n) => nodeV(s.x, n)));
+  const series: Record<string, Float64Array> = { "supply.voltage": vIn, "input.current": iIn };
+  // KCL sums per sample and node, filled device by device.
+  const kclSum = new Float64Array(ns * c.nodeCount);
+  for (const d of c.devices) {
+    const nt = d.terminals.length;
+    const volts = new Float64Array(ns * nt);
+    const amps = new Float64Array(ns * nt);
+    for (let k = 0; k < ns; k++) {
+      const s = samples[k]!;
+      const i = terminalCurrents(d, s.x, s.mem);
+      for (let q = 0; q < nt; q++) {
+        const node = d.terminals[q]!;
+        volts[k * nt + q] = nodeV(s.x, node);
+        amps[k * nt + q] = i[q]!;
+        if (node >= 0) kclSum[k * c.nodeCount + node]! += i[q]!;
+      }
+    }
+    if (d.type === "supply") continue;
     let vPeak = 0;
-    for (const v of volts) for (let a = 0; a < v.length; a++) for (let b = a + 1; b < v.length; b++) vPeak = Math.max(vPeak, Math.abs(v[a]! - v[b]!));
-    const main = currents[di]!.map((i) => i[0]!);
-    const power = samples.map((_, k) => volts[k]!.reduce((acc, v, q) => acc + v * currents[di]![k]![q]!, 0));
-    parts[d.ref] = { voltage_peak: vPeak, current_rms: periodRms(t, main), power: periodMean(t, power) };
+    for (let k = 0; k < ns; k++)
+      for (let a = 0; a < nt; a++) for (let b = a + 1; b < nt; b++) vPeak = Math.max(vPeak, Math.abs(volts[k * nt + a]! - volts[k * nt + b]!));
+    const main = new Float64Array(ns);
+    for (let k = 0; k < ns; k++) main[k] = amps[k * nt]!;
+    // Storage parts by the step quadrature that matches their companion model (their mean is then
+    // exactly their energy change); dissipating parts by the trapezoid of v·i, like their RMS.
+    const storage = d.type === "capacitor" || d.type === "coupled";
+    parts[d.ref] = { voltage_peak: vPeak, current_rms: periodRms(t, main), power: storage ? stepPower(t, volts, amps, nt) : trapezoidPower(t, volts, amps, nt) };
     series[`${d.ref}.current`] = main;
-  });
+  }
 
   const nets: Record<string, NetFigures> = { [c.reference]: { dc: 0, rms: 0, peak: 0 } };
   const netNodes = c.nodeNames.map((n, i) => ({ n, i })).filter(({ n }) => !n.includes("#"));
   for (const { n, i } of netNodes) {
-    const v = samples.map((s) => s.x[i]!);
+    const v = Float64Array.from(samples, (s) => s.x[i]!);
     nets[n] = { dc: periodMean(t, v), rms: periodRms(t, v), peak: peakMagnitude(v) };
     series[`net.${n}`] = v;
   }
 
   // KCL at every net and sample: currents into the parts' pins plus the gmin leak.
   let kcl = 0;
-  for (let k = 0; k < samples.length; k++) {
-    const sum = new Float64Array(c.nodeCount);
-    c.devices.forEach((d, di) => d.terminals.forEach((node, q) => { if (node >= 0) sum[node]! += currents[di]![k]![q]!; }));
-    for (const { i } of netNodes) kcl = Math.max(kcl, Math.abs(sum[i]! + GMIN_SIEMENS * samples[k]!.x[i]!));
-  }
+  for (let k = 0; k < ns; k++)
+    for (const { i } of netNodes) kcl = Math.max(kcl, Math.abs(kclSum[k * c.nodeCount + i]! + GMIN_SIEMENS * samples[k]!.x[i]!));
 
   const currentRms = periodRms(t, iIn);
   const power = periodMeanProduct(t, vIn, iIn);
   const apparent = periodRms(t, vIn) * currentRms;
+  const fftPoints = FFT_POINTS * 2 ** Math.ceil(Math.log2(cyclesInWindow));
   const input: InputFigures = {
     current_rms: currentRms,
     power,
     apparent_power: apparent,
     power_factor: apparent > 0 ? power / apparent : null,
-    thd: thdFromSamples(resampleUniform(t, iIn, FFT_POINTS)),
+    thd: thdFromSamples(resampleUniform(t, iIn, fftPoints), cyclesInWindow),
   };
 
   const firings = firingFigures(c, steady);
 
   const nOut = Math.min(MAX_WAVEFORM_POINTS, t.length);
-  const tOut = Array.from({ length: nOut }, (_, k) => (period * k) / nOut);
+  const tOut = Array.from({ length: nOut }, (_, k) => (window * k) / nOut);
   const out: Record<string, number[]> = {};
   for (const [name, y] of Object.entries(series)) out[name] = Array.from(resampleUniform(t, y, nOut));
   return { input, parts, nets, firings, waveforms: { t: tOut, series: out }, kclResidualAmps: kcl };
+}
+
+/**
+ * Mean power into a part's terminals: per step, the step-average terminal voltages times the
+ * step-average terminal currents. Under the trapezoidal rule a capacitor's or inductor's
+ * companion model makes this exactly its energy change over the step, so storage parts show
+ * zero mean power over a window that repeats; a trapezoid of the products would leave a
+ * spurious -h/4·Δv·Δi per step, which is large where a fast ring is stepped across.
+ */
+/** Mean power into a part's terminals by the trapezoid of Σ v·i at the samples. */
+function trapezoidPower(t: Float64Array, volts: Float64Array, amps: Float64Array, nt: number): number {
+  let e = 0;
+  let before = 0;
+  for (let k = 0; k < t.length; k++) {
+    let p = 0;
+    for (let q = 0; q < nt; q++) p += volts[k * nt + q]! * amps[k * nt + q]!;
+    if (k > 0) e += 0.5 * (t[k]! - t[k - 1]!) * (p + before);
+    before = p;
+  }
+  const span = t[t.length - 1]! - t[0]!;
+  return span > 0 ? e / span : before;
+}
+
+function stepPower(t: Float64Array, volts: Float64Array, amps: Float64Array, nt: number): number {
+  let e = 0;
+  for (let k = 1; k < t.length; k++) {
+    let p = 0;
+    for (let q = 0; q < nt; q++) p += (volts[(k - 1) * nt + q]! + volts[k * nt + q]!) * (amps[(k - 1) * nt + q]! + amps[k * nt + q]!);
+    e += 0.25 * (t[k]! - t[k - 1]!) * p;
+  }
+  const span = t[t.length - 1]! - t[0]!;
+  return span > 0 ? e / span : 0;
 }
 
 /** Whether and where each thyristor/triac fires in the steady cycle (cheap: events and latches only). */
@@ -128,10 +177,12 @@ export function firingFigures(c: Circuit, steady: SteadyState): FiringFigures[] 
   const period = 1 / c.supply.hz;
   const run = steady.run;
   const samples = run.samples;
+  // Event times within their own mains cycle (a k-cycle window holds k cycles).
+  const inCycle = (t: number) => t - Math.floor(t / period + 1e-9) * period;
   return c.devices
     .filter((d) => d.type === "switching")
     .map((d) => {
-      const ons = run.events.filter((e) => e.ref === d.ref && e.on);
+      const ons = run.events.filter((e) => e.ref === d.ref && e.on).map((e) => ({ ...e, t: Math.max(0, inCycle(e.t)) }));
       const pos = ons.find((e) => e.t < period / 2);
       const neg = ons.find((e) => e.t >= period / 2);
       const latchedAll = ons.length === 0 && samples.every((s) => s.mem[d.mem]! > 0.5);

@@ -52,14 +52,18 @@ export function harmonicAmplitudes(samples: ArrayLike<number>): Float64Array {
   return out;
 }
 
-/** THD = sqrt(sum of harmonics 2.. squared) / fundamental; null when there is no fundamental. */
-export function thdFromSamples(samples: ArrayLike<number>): number | null {
+/**
+ * THD = sqrt(sum of harmonics 2.. squared) / fundamental; null when there is no fundamental.
+ * `cycles` mains cycles in the window (a subharmonic orbit): the fundamental is then bin
+ * `cycles` and the harmonics its multiples; the content between them is not harmonic distortion.
+ */
+export function thdFromSamples(samples: ArrayLike<number>, cycles = 1): number | null {
   const a = harmonicAmplitudes(samples);
-  const fundamental = a[1]!;
+  const fundamental = a[cycles]!;
   let total = 0;
   let sumSq = 0;
-  for (let h = 1; h < a.length; h++) total += a[h]! * a[h]!;
-  for (let h = 2; h < a.length; h++) sumSq += a[h]! * a[h]!;
+  for (let h = cycles; h < a.length; h += cycles) total += a[h]! * a[h]!;
+  for (let h = 2 * cycles; h < a.length; h += cycles) sumSq += a[h]! * a[h]!;
   if (!(fundamental > 1e-9 * Math.sqrt(total)) || fundamental === 0) return null;
   return Math.sqrt(sumSq) / fundamental;
 }

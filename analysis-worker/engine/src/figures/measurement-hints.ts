@@ -55,7 +55,7 @@ export function mismatchHint(
   const f0 = figure(nominal);
   if (f0 === null) return { ranking: [], explaining: null };
   const at = (ref: string, value: number): number | null => {
-    const s = solveVariant(withPartValues(rec, new Map([[ref, value]])), supply, budget, nominal.steady.startMem);
+    const s = solveVariant(withPartValues(rec, new Map([[ref, value]])), supply, budget, nominal.steady.startMem, { periodHint: nominal.steady.periodCycles });
     return s.ok ? figure(s.value) : null;
   };
   const ranking: PartSensitivity[] = [];

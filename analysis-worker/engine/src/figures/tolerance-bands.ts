@@ -9,7 +9,7 @@ import type { Part, Supply, TeardownRecord } from "../record/types.js";
 import type { SolvedCircuit } from "../solver/analyze-circuit.js";
 import type { Budget } from "../solver/transient.js";
 import { mulberry32, uniformBetween } from "../flags/seeded-random.js";
-import { budgetSpent, partValueOf, solveVariant, withPartValues } from "../flags/variant-solve.js";
+import { SAMPLE_MAX_CYCLES, SAMPLE_TOLERANCE_SCALE, budgetSpent, partValueOf, solveVariant, withPartValues } from "../flags/variant-solve.js";
 
 /** Default Monte Carlo samples per supply. */
 export const DEFAULT_TOLERANCE_SAMPLES = 40;
@@ -114,7 +114,11 @@ export function toleranceBands(
       const t = Math.min(x.tol!.tolerance * widen, 0.99);
       values.set(x.p.ref, x.v!.value * uniformBetween(random, 1 - t, 1 + t));
     }
-    const s = solveVariant(withPartValues(rec, values), supply, opts.budget, nominal.steady.startMem);
+    const s = solveVariant(withPartValues(rec, values), supply, opts.budget, nominal.steady.startMem, {
+      toleranceScale: SAMPLE_TOLERANCE_SCALE,
+      maxCycles: SAMPLE_MAX_CYCLES,
+      periodHint: nominal.steady.periodCycles,
+    });
     if (!s.ok) {
       notes.push(`bands: sample ${k} did not solve (${s.error.code}); left out`);
       continue;

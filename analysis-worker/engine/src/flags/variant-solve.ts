@@ -56,14 +56,31 @@ export function budgetSpent(b: Budget): boolean {
   return b.stepsLeft <= 0 || (b.now !== null && b.now() > b.deadlineMs);
 }
 
-/** Periodic steady state of a record at a supply, warm-started from `warm` when given. */
-export function solveVariant(rec: TeardownRecord, supply: Supply, budget: Budget, warm?: Float64Array): SolverOutcome<SolvedCircuit> {
+/**
+ * Steady-state tolerance of a Monte Carlo sample, as a multiple of the solver's own: 1e-4 of a
+ * state per cycle, far inside the spread of the part tolerances that the samples explore.
+ */
+export const SAMPLE_TOLERANCE_SCALE = 10;
+/** Cycle cap of a Monte Carlo sample: a firing pattern not settled by then is taken over its nearest-repeating window. */
+export const SAMPLE_MAX_CYCLES = 100;
+
+/**
+ * Periodic steady state of a record at a supply, warm-started from `warm` when given;
+ * `toleranceScale` loosens the settling test, `periodHint` is the warm state's repeat length.
+ */
+export function solveVariant(
+  rec: TeardownRecord,
+  supply: Supply,
+  budget: Budget,
+  warm?: Float64Array,
+  opts: { toleranceScale?: number; maxCycles?: number; periodHint?: number } = {},
+): SolverOutcome<SolvedCircuit> {
   const compiled = compileCircuit(rec, supply);
   if (!compiled.ok) return compiled;
   const circuit = compiled.value;
   const solver = new TransientSolver(circuit, { lu: "sparse", maxNewtonIterations: MAX_NEWTON_ITERATIONS });
   const start = warm !== undefined && warm.length === circuit.memSize ? warm : undefined;
-  const steady = periodicSteadyState(solver, budget, start);
+  const steady = periodicSteadyState(solver, budget, start, { toleranceScale: opts.toleranceScale, maxCycles: opts.maxCycles, periodHint: opts.periodHint });
   if (!steady.ok) return steady;
   return { ok: true, value: { circuit, steady: steady.value, figures: cycleFigures(circuit, steady.value), steps: solver.totalSteps } };
 }

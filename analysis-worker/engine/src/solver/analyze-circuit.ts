@@ -13,6 +13,7 @@ import type { Circuit } from "./circuit-model.js";
 import { compileCircuit } from "./circuit-model.js";
 import type { LuChoice } from "./mna.js";
 import { GMIN_SIEMENS } from "./mna.js";
+import { gateMargin, lowestFiringSupply } from "./min-firing-supply.js";
 import type { SteadyState } from "./periodic-steady-state.js";
 import { periodicSteadyState } from "./periodic-steady-state.js";
 import type { SolverOutcome } from "./solver-error.js";
@@ -23,10 +24,12 @@ import { MAX_NEWTON_ITERATIONS, TransientSolver } from "./transient.js";
 export const DEFAULT_BUDGET_MS = 20_000;
 /** Step cap of one analysis, enforced with or without a clock. */
 export const MAX_STEPS_PER_ANALYSIS = 3_000_000;
-/** The lowest firing supply is bisected to this many volts RMS. */
+/** The lowest firing supply is bracketed to this many volts RMS. */
 export const MIN_SUPPLY_RESOLUTION_V = 0.5;
 /** The bisection's steady states only decide fires / does not fire: 100 times the usual tolerance (1e-3 of a state). */
 export const MIN_SUPPLY_TOLERANCE_SCALE = 100;
+/** Cycle cap of each bisection solve: a firing pattern that has not settled by then is judged on its last window. */
+export const MIN_SUPPLY_MAX_CYCLES = 60;
 
 /** Options of the solver's front doors. */
 export interface SolveOptions {
@@ -75,14 +78,22 @@ function budgetFrom(opts: SolveOptions): Budget {
   return { now, deadlineMs: now ? now() + (opts.budgetMs ?? DEFAULT_BUDGET_MS) : Infinity, stepsLeft: MAX_STEPS_PER_ANALYSIS };
 }
 
-function steadyAt(rec: TeardownRecord, supply: Supply, opts: SolveOptions, budget: Budget, warm?: { mem: Float64Array; scale: number }, toleranceScale = 1) {
+function steadyAt(
+  rec: TeardownRecord,
+  supply: Supply,
+  opts: SolveOptions,
+  budget: Budget,
+  warm?: { mem: Float64Array; scale: number },
+  toleranceScale = 1,
+  maxCycles?: number,
+) {
   const compiled = compileCircuit(rec, supply);
   if (!compiled.ok) return compiled;
   const circuit = compiled.value;
   const solver = new TransientSolver(circuit, { lu: opts.lu ?? "sparse", maxNewtonIterations: opts.maxNewtonIterations ?? MAX_NEWTON_ITERATIONS });
   const start = warm ? warm.mem.map((v) => v * warm.scale) : undefined;
   if (start) for (const d of circuit.devices) if (d.type === "switching") start[d.mem] = warm!.mem[d.mem]!;
-  const steady = periodicSteadyState(solver, budget, start, { toleranceScale });
+  const steady = periodicSteadyState(solver, budget, start, { toleranceScale, maxCycles });
   if (!steady.ok) return steady;
   return { ok: true as const, value: { circuit, steady: steady.value, steps: solver.totalSteps } };
 }
@@ -119,19 +130,18 @@ export function analyzeCircuit(rec: TeardownRecord, opts: SolveOptions = {}): So
   for (const f of figures.firings) {
     let minSupply: number | null = null;
     if (f.fires && opts.minSupply !== false) {
-      // Bisection on the supply voltage: `hi` fires in every half it fires at the rated supply.
-      let lo = 0;
-      let hi = supply.vrms;
-      while (hi - lo > MIN_SUPPLY_RESOLUTION_V) {
-        const mid = 0.5 * (lo + hi);
-        const r = steadyAt(rec, { vrms: mid, hz: supply.hz }, opts, budget, { mem: steady.startMem, scale: mid / supply.vrms }, MIN_SUPPLY_TOLERANCE_SCALE);
+      // A bracket on the supply voltage, narrowed by bisection steered by the gate margin: the
+      // answer fires in every half it fires in at the rated supply.
+      const found = lowestFiringSupply(supply.vrms, MIN_SUPPLY_RESOLUTION_V, (v) => {
+        const r = steadyAt(rec, { vrms: v, hz: supply.hz }, opts, budget, { mem: steady.startMem, scale: v / supply.vrms }, MIN_SUPPLY_TOLERANCE_SCALE, MIN_SUPPLY_MAX_CYCLES);
         if (!r.ok) return r;
         steps += r.value.steps;
         cycles += r.value.steady.cycles;
-        if (coversHalves(firingFigures(r.value.circuit, r.value.steady).find((g) => g.part === f.part), f)) hi = mid;
-        else lo = mid;
-      }
-      minSupply = hi;
+        const fires = coversHalves(firingFigures(r.value.circuit, r.value.steady).find((g) => g.part === f.part), f);
+        return { ok: true, value: { fires, margin: fires ? null : gateMargin(r.value.circuit, r.value.steady, f.part, f.halves) } };
+      });
+      if (!found.ok) return found;
+      minSupply = found.value.vrms;
     }
     triggers.push({ part: f.part, fires: f.fires, angle_deg: f.angle_deg, angle_negative_deg: f.angle_negative_deg, min_supply_vrms: minSupply });
   }

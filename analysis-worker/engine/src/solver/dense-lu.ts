@@ -12,6 +12,8 @@ export class DenseLu implements LinearSolver {
   private readonly cols: Int32Array;
   private readonly a: Float64Array;
   private readonly perm: Int32Array;
+  private readonly lastValues: Float64Array;
+  private haveLast = false;
 
   /** Slot s is the entry (rows[s], cols[s]). */
   constructor(n: number, rows: Int32Array, cols: Int32Array) {
@@ -20,11 +22,19 @@ export class DenseLu implements LinearSolver {
     this.cols = cols;
     this.a = new Float64Array(n * n);
     this.perm = new Int32Array(n);
+    this.lastValues = new Float64Array(rows.length);
   }
 
   /** Factorise in place; a column with no usable pivot names the unknown. */
   factor(values: Float64Array): FactorStatus {
     const { n, a, perm } = this;
+    // The same matrix as last time (a linear circuit at a fixed step): keep the factors.
+    if (this.haveLast) {
+      let same = true;
+      for (let s = 0; s < values.length && same; s++) same = values[s] === this.lastValues[s];
+      if (same) return { ok: true };
+    }
+    this.haveLast = false;
     a.fill(0);
     for (let s = 0; s < values.length; s++) {
       a[this.rows[s]! * n + this.cols[s]!]! += values[s]!;
@@ -59,13 +69,21 @@ export class DenseLu implements LinearSolver {
         for (let c = k + 1; c < n; c++) a[r * n + c]! -= l * a[k * n + c]!;
       }
     }
+    this.lastValues.set(values);
+    this.haveLast = true;
     return { ok: true };
   }
 
   /** Forward and back substitution. */
   solve(rhs: Float64Array): Float64Array {
+    const x = new Float64Array(this.n);
+    this.solveInto(rhs, x);
+    return x;
+  }
+
+  /** Forward and back substitution into `x`. */
+  solveInto(rhs: Float64Array, x: Float64Array): void {
     const { n, a, perm } = this;
-    const x = new Float64Array(n);
     for (let i = 0; i < n; i++) {
       let s = rhs[perm[i]!]!;
       for (let k = 0; k < i; k++) s -= a[i * n + k]! * x[k]!;
@@ -76,6 +94,5 @@ export class DenseLu implements LinearSolver {
       for (let c = i + 1; c < n; c++) s -= a[i * n + c]! * x[c]!;
       x[i] = s / a[i * n + i]!;
     }
-    return x;
   }
 }

@@ -3,6 +3,12 @@
  * states) that the one-cycle map sends back to itself. Plain cycling when it settles fast;
  * shooting (Newton on the start state with a finite-difference Jacobian of the one-cycle map,
  * Broyden updates and step halving) when a large capacitor settles over many cycles.
+ * Some circuits have no one-cycle steady state at all: a relaxation trigger that charges a
+ * capacitor over several mains cycles and fires every k-th cycle repeats only every k cycles
+ * (a subharmonic orbit). Such an orbit is recognised by comparing each cycle's end state with
+ * the states up to PSS_MAX_SUBHARMONIC cycles back, reached by shooting on the k-cycle map,
+ * and its whole k-cycle window is recorded, so every figure (mean powers above all) is taken
+ * over a window that truly repeats.
  */
 import type { CircuitDevice } from "./circuit-model.js";
 import { DenseLu } from "./dense-lu.js";
@@ -25,6 +31,17 @@ export const PSS_WARMUP_CYCLES = 3;
 export const SHOOTING_MAX_ITERATIONS = 25;
 /** Relative finite-difference perturbation of a state for the Jacobian (well above the map's noise). */
 export const SHOOTING_FD_RELATIVE = 1e-4;
+/** A one-cycle shot waits at most this many cycles (three times the longest repeat looked for) for a varying firing pattern to show its repeat. */
+export const PSS_SUBHARMONIC_WAIT_CYCLES = 24;
+/** Halvings of a shooting step before the try is given up. */
+export const SHOOTING_LINE_SEARCH_TRIES = 6;
+/** Longest repeat, in mains cycles, that is looked for when the one-cycle map has no fixed point. */
+export const PSS_MAX_SUBHARMONIC = 8;
+/**
+ * A k-cycle repeat is taken as the likely orbit when the state k cycles back is this much closer
+ * than the state one cycle back (a converging one-cycle orbit gives a ratio of about k or more).
+ */
+export const SUBHARMONIC_EVIDENCE_RATIO = 0.1;
 
 /** How the steady state was reached and the recorded steady cycle. */
 export interface SteadyState {
@@ -36,6 +53,8 @@ export interface SteadyState {
   startMem: Float64Array;
   /** Largest normalised cycle-to-cycle change of the final cycle (1 = at tolerance). */
   residual: number;
+  /** Mains cycles in the repeating window (1, or k for an orbit that repeats every k cycles); the run spans them all. */
+  periodCycles: number;
 }
 
 interface Slot {
@@ -53,12 +72,16 @@ function layout(devices: CircuitDevice[]): Slot[] {
   return slots;
 }
 
-/** Finds the periodic steady state, starting from `initialMem` (zeros: a power-on start); shooting may be turned off. */
+/**
+ * Finds the periodic steady state, starting from `initialMem` (zeros: a power-on start); shooting
+ * may be turned off. `periodHint`: the repeat length of the orbit the start state came from (a
+ * warm start from a k-cycle orbit shoots on the k-cycle map straight away).
+ */
 export function periodicSteadyState(
   solver: TransientSolver,
   budget: Budget,
   initialMem?: Float64Array,
-  opts: { shooting?: boolean; maxCycles?: number; toleranceScale?: number } = {},
+  opts: { shooting?: boolean; maxCycles?: number; toleranceScale?: number; periodHint?: number } = {},
 ): { ok: true; value: SteadyState } | { ok: false; error: SolverError } {
   const c = solver.circuit;
   const vpk = c.supply.vrms * Math.SQRT2;
@@ -87,39 +110,114 @@ export function periodicSteadyState(
     cycles++;
     return solver.runCycle(start, x, record, budget);
   };
+  // k consecutive cycles as one map (the repeat of a subharmonic orbit), x carried along.
+  const cyclesOf = (k: number): CycleFn => (start, record) => {
+    const parts: CycleRun[] = [];
+    let m = start;
+    for (let j = 0; j < k; j++) {
+      const r = cycle(m, record);
+      if (!r.ok) return r;
+      parts.push(r.run);
+      x = r.run.endX;
+      m = r.run.endMem;
+    }
+    return { ok: true, run: joinCycles(parts, 1 / c.supply.hz) };
+  };
 
+  // states[j] is the cycle-start state after j cycles of the present plain run.
+  let states: Float64Array[] = [mem];
+  // The recorded run of each of the last cycles (recent[j] goes from states[j] to states[j + 1]):
+  // the window that settles is then already recorded and needs no extra cycle.
+  let recent: CycleRun[] = [];
   const history: number[] = [];
   let method: SteadyState["method"] = "cycles";
-  let shootTried = opts.shooting === false;
+  // Shooting is tried at most once per repeat length (a one-cycle try fails on a subharmonic orbit).
+  const tried = new Set<number>();
+  const hint = Math.min(Math.max(1, Math.round(opts.periodHint ?? 1)), PSS_MAX_SUBHARMONIC);
+  let period = 1;
+  let shot = false;
   for (;;) {
-    const r = cycle(mem, false);
+    const r = cycle(mem, true);
     if (!r.ok) return r;
     const d = change(mem, r.run.endMem);
     history.push(d);
     x = r.run.endX;
     mem = r.run.endMem;
+    states.push(mem);
+    recent.push(r.run);
+    if (states.length > PSS_MAX_SUBHARMONIC + 1) {
+      states.shift();
+      recent.shift();
+    }
     if (d <= 1) break;
-    if (cycles >= (opts.maxCycles ?? PSS_MAX_CYCLES)) break;
-    if (cycles >= PSS_WARMUP_CYCLES && cont.length > 0 && Number.isFinite(d)) {
+    // A repeat after k > 1 cycles, at tolerance: a subharmonic orbit.
+    const back = (k: number) => (states.length > k ? change(states[states.length - 1 - k]!, mem) : Infinity);
+    let repeat = 0;
+    for (let k = 2; k <= PSS_MAX_SUBHARMONIC && repeat === 0; k++) if (back(k) <= 1) repeat = k;
+    if (repeat > 0) {
+      period = repeat;
+      break;
+    }
+    if (cycles >= (opts.maxCycles ?? PSS_MAX_CYCLES)) {
+      // Not settled (a long or irregular firing pattern): record the repeat length that came
+      // closest, so the means are at least taken over the window nearest to repeating.
+      let best = d;
+      for (let k = 2; k <= PSS_MAX_SUBHARMONIC; k++) {
+        const b = back(k);
+        if (b < best) {
+          best = b;
+          period = k;
+        }
+      }
+      break;
+    }
+    if (cycles >= PSS_WARMUP_CYCLES && cont.length > 0 && Number.isFinite(d) && opts.shooting !== false) {
+      let likely = hint > 1 && !tried.has(hint) ? hint : 1;
+      for (let k = 2; k <= PSS_MAX_SUBHARMONIC && likely === 1; k++) if (states.length > k + 1 && back(k) < SUBHARMONIC_EVIDENCE_RATIO * d) likely = k;
+      // Cycles that differ in their switching events point to a subharmonic orbit still taking
+      // shape: a one-cycle shot would fail, so wait until the repeat shows.
+      const eventsVary = recent.length >= 2 && recent.some((r) => r.events.length !== recent[recent.length - 1]!.events.length);
+      if (likely === 1 && eventsVary && cycles < PSS_SUBHARMONIC_WAIT_CYCLES) continue;
       const prev = history[history.length - 2]!;
       const rho = Number.isFinite(prev) && prev > 0 ? d / prev : 1;
       const predicted = rho < 1 ? Math.log(d) / -Math.log(rho) : Infinity;
-      if (predicted > cont.length + 4 && !shootTried) {
-        shootTried = true;
-        const shot = shoot(vpk, cycle, mem, cont, change);
-        if (!shot.ok) return shot;
-        if (shot.mem !== null) {
-          mem = shot.mem;
+      if (!tried.has(likely) && (likely > 1 || predicted > cont.length + 4)) {
+        tried.add(likely);
+        const found = shoot(vpk, likely === 1 ? cycle : cyclesOf(likely), mem, cont, change);
+        if (!found.ok) return found;
+        if (found.mem !== null) {
+          mem = found.mem;
           method = "shooting";
+          period = likely;
+          shot = true;
           break;
         }
-        mem = shot.best;
+        mem = found.best;
+        states = [mem];
+        recent = [];
       }
     }
   }
-  const final = cycle(mem, true);
-  if (!final.ok) return final;
-  return { ok: true, value: { method, cycles, run: final.run, startMem: mem, residual: change(mem, final.run.endMem) } };
+  let run: CycleRun;
+  if (shot) {
+    const final = cyclesOf(period)(mem, true);
+    if (!final.ok) return final;
+    run = final.run;
+  } else {
+    // The last `period` plain cycles are the window; it starts `period` states back.
+    mem = states[states.length - 1 - period]!;
+    run = joinCycles(recent.slice(-period), 1 / c.supply.hz);
+  }
+  // A k-cycle orbit may repeat sooner (shooting on the k-cycle map also finds shorter orbits).
+  const cycleStarts = [mem, ...splitEnds(run, period)];
+  for (let p = 1; p < period; p++) {
+    if (period % p === 0 && change(mem, cycleStarts[p]!) <= 1) {
+      run = firstCycles(run, p, 1 / c.supply.hz, cycleStarts[p]!);
+      period = p;
+      break;
+    }
+  }
+  return { ok: true, value: { method, cycles, run, startMem: mem, residual: change(mem, run.endMem), periodCycles: period } };
 }
 
 type CycleFn = (start: Float64Array, record: boolean) => { ok: true; run: CycleRun } | { ok: false; error: SolverError };
@@ -179,16 +277,18 @@ function shoot(
     let next: Eval | null = null;
     let sNext = s;
     const norm = (f: Float64Array) => Math.hypot(...f);
-    for (let tries = 0; tries < 6; tries++) {
+    for (let tries = 0; tries < SHOOTING_LINE_SEARCH_TRIES; tries++) {
       sNext = s.map((v, k) => v + lambda * step[k]!);
       const trial = evalF(sNext);
       if (!trial.ok) return trial;
-      if (norm(trial.f) < norm(cur.f) || tries === 5) {
+      if (norm(trial.f) < norm(cur.f)) {
         next = trial;
         break;
       }
       lambda /= 2;
     }
+    // No step along the Newton direction reduces the mismatch: the map has no fixed point
+    // near here (often a subharmonic orbit); plain cycling takes over.
     if (next === null) return { ok: true, mem: null, best: cur.end };
     // Broyden: J += (dF - J ds) ds^T / (ds^T ds).
     const ds = sNext.map((v, k) => v - s[k]!);
@@ -206,4 +306,34 @@ function shoot(
     cur = next;
   }
   return { ok: true, mem: change(cur.start, cur.end) <= 1 ? cur.start : null, best: cur.end };
+}
+
+/** Consecutive cycle runs as one run over [0, k·period]: times shifted, samples and events in order. */
+function joinCycles(parts: CycleRun[], period: number): CycleRun {
+  if (parts.length === 1) return { ...parts[0]!, cycleEnds: [parts[0]!.endMem] };
+  const samples: CycleRun["samples"] = [];
+  const events: CycleRun["events"] = [];
+  let steps = 0;
+  parts.forEach((p, j) => {
+    for (const s of p.samples) samples.push(j === 0 ? s : { t: s.t + j * period, x: s.x, mem: s.mem });
+    for (const e of p.events) events.push({ ...e, t: e.t + j * period });
+    steps += p.steps;
+  });
+  const last = parts[parts.length - 1]!;
+  return { endMem: last.endMem, endX: last.endX, samples, events, steps, cycleEnds: parts.map((p) => p.endMem) };
+}
+
+/** The end state of each cycle of a joined run. */
+function splitEnds(run: CycleRun, period: number): Float64Array[] {
+  return run.cycleEnds ?? Array.from({ length: period }, () => run.endMem);
+}
+
+/** The first p cycles of a joined run. */
+function firstCycles(run: CycleRun, p: number, period: number, endMem: Float64Array): CycleRun {
+  const tEnd = p * period * (1 + 1e-12);
+  const samples = run.samples.filter((s) => s.t <= tEnd);
+  const last = samples[samples.length - 1]!;
+  return {
+    endMem, endX: last.x, samples, events: run.events.filter((e) => e.t <= tEnd), steps: samples.length, cycleEnds: run.cycleEnds?.slice(0, p),
+  };
 }

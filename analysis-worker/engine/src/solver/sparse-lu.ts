@@ -12,6 +12,12 @@ export const PIVOT_REUSE_MIN_RATIO = 1e-11;
 /** A reused order whose multipliers grow past this is chosen again (element growth). */
 export const MAX_MULTIPLIER = 1e8;
 /**
+ * A reused pivot is also kept while its size against its row stays above this fraction of what
+ * it was when the order was chosen: MNA rows legitimately mix gmin (1e-12 S) with companion
+ * conductances of 1e4 S, so a fixed ratio alone would re-pivot at every factorisation.
+ */
+export const PIVOT_REUSE_DECAY = 1e-3;
+/**
  * Singular means no nonzero entry is left to pivot on. MNA matrices are badly scaled on purpose
  * (gmin of 1e-12 S beside companion conductances of 1e4 S), so no relative size test is used.
  */
@@ -26,6 +32,8 @@ export interface LinearSolver {
   factor(values: Float64Array): FactorStatus;
   /** Solve A x = rhs with the last factorisation. */
   solve(rhs: Float64Array): Float64Array;
+  /** Solve A x = rhs into `out` (length n) without allocating. */
+  solveInto(rhs: Float64Array, out: Float64Array): void;
 }
 
 interface PivotOrder {
@@ -122,11 +130,18 @@ export class SparseLu implements LinearSolver {
   private lu = new Float64Array(0);
   private slotAt = new Int32Array(0);
   private readonly work: Float64Array;
+  /** Pivot size against its row when the order was chosen (see PIVOT_REUSE_DECAY). */
+  private refRatio = new Float64Array(0);
+  /** The values of the last successful factorisation: the same matrix again needs no new one. */
+  private readonly lastValues: Float64Array;
+  private haveLast = false;
   private numericOrder = false;
   /** How often the pivot order was chosen again because a reused pivot became too small. */
   repivots = 0;
   /** Number of numeric factorisations. */
   factorizations = 0;
+  /** Calls of factor() answered by the previous factorisation (the matrix had not changed). */
+  reuses = 0;
 
   /** analyze(pattern): slot s is the entry (rows[s], cols[s]) of an n x n matrix. */
   constructor(n: number, rows: Int32Array, cols: Int32Array) {
@@ -134,6 +149,7 @@ export class SparseLu implements LinearSolver {
     this.rows = rows;
     this.cols = cols;
     this.work = new Float64Array(n);
+    this.lastValues = new Float64Array(rows.length);
     const order = markowitzOrder(n, rows, cols, null);
     if ("singularUnknown" in order) {
       // Structurally singular: keep an identity order; the numeric pass reports the unknown.
@@ -194,6 +210,7 @@ export class SparseLu implements LinearSolver {
     this.diagAt = diagAt;
     this.slotAt = slotAt;
     this.lu = new Float64Array(idx.length);
+    this.refRatio = new Float64Array(n);
   }
 
   /**
@@ -201,8 +218,13 @@ export class SparseLu implements LinearSolver {
    * call chooses the order on the numbers (the structural order only sized the work).
    */
   factor(values: Float64Array): FactorStatus {
+    if (this.haveLast && sameValues(values, this.lastValues)) {
+      this.reuses++;
+      return { ok: true };
+    }
+    this.haveLast = false;
     this.factorizations++;
-    if (this.numericOrder && this.factorKept(values, true) < 0) return { ok: true };
+    if (this.numericOrder && this.factorKept(values, true) < 0) return this.remember(values);
     if (this.numericOrder) this.repivots++;
     this.numericOrder = true;
     const order = markowitzOrder(this.n, this.rows, this.cols, values);
@@ -210,7 +232,13 @@ export class SparseLu implements LinearSolver {
     this.setOrder(order);
     // The new order is the best threshold pivoting gives; only an exact zero pivot fails now.
     const bad = this.factorKept(values, false);
-    return bad < 0 ? { ok: true } : { ok: false, singularUnknown: this.colOf[bad]! };
+    return bad < 0 ? this.remember(values) : { ok: false, singularUnknown: this.colOf[bad]! };
+  }
+
+  private remember(values: Float64Array): FactorStatus {
+    this.lastValues.set(values);
+    this.haveLast = true;
+    return { ok: true };
   }
 
   /** Factorises in the kept order; returns -1, or the first position whose pivot fails the test. */
@@ -239,14 +267,23 @@ export class SparseLu implements LinearSolver {
         w[idx[q]!] = 0;
       }
       const d = Math.abs(lu[diagAt[i]!]!);
-      const floor = strict ? PIVOT_REUSE_MIN_RATIO * Math.max(uMax, rowMax) : SINGULAR_PIVOT_ABS;
+      const scale = Math.max(uMax, rowMax);
+      const floor = strict ? Math.min(PIVOT_REUSE_MIN_RATIO, PIVOT_REUSE_DECAY * this.refRatio[i]!) * scale : SINGULAR_PIVOT_ABS;
       if (!(d > floor) || !Number.isFinite(d)) return i;
+      if (!strict) this.refRatio[i] = scale > 0 ? d / scale : 1;
     }
     return -1;
   }
 
   /** Solve with the last factorisation. */
   solve(rhs: Float64Array): Float64Array {
+    const x = new Float64Array(this.n);
+    this.solveInto(rhs, x);
+    return x;
+  }
+
+  /** Solve with the last factorisation into `x`. */
+  solveInto(rhs: Float64Array, x: Float64Array): void {
     const { n, ptr, idx, diagAt, lu, work: y } = this;
     for (let i = 0; i < n; i++) {
       let s = rhs[this.rowOf[i]!]!;
@@ -258,14 +295,17 @@ export class SparseLu implements LinearSolver {
       for (let q = diagAt[i]! + 1; q < ptr[i + 1]!; q++) s -= lu[q]! * y[idx[q]!]!;
       y[i] = s / lu[diagAt[i]!]!;
     }
-    const x = new Float64Array(n);
     for (let i = 0; i < n; i++) x[this.colOf[i]!] = y[i]!;
     y.fill(0);
-    return x;
   }
 
   /** Stored entries of L and U together (fill included). */
   get storedEntries(): number {
     return this.idx.length;
   }
+}
+
+function sameValues(a: Float64Array, b: Float64Array): boolean {
+  for (let s = 0; s < a.length; s++) if (a[s] !== b[s]) return false;
+  return true;
 }

@@ -7,7 +7,7 @@ import type { CircuitDevice } from "./circuit-model.js";
 import type { JunctionParams } from "./device-models.js";
 import { OFF_STATE_OHMS } from "./device-models.js";
 import type { MnaPattern } from "./mna.js";
-import { addAt, addConductance, addCurrent, nodeV } from "./mna.js";
+import { addCurrent, nodeV } from "./mna.js";
 
 /** Exponent beyond which the junction law is continued linearly (overflow guard, never reached after limiting in practice). */
 const MAX_EXPONENT = 80;
@@ -36,6 +36,16 @@ export interface StampContext {
 
 /** Junction current and conductance at voltage v. */
 export function junctionEval(j: JunctionParams, v: number): { i: number; g: number } {
+  const out = { i: 0, g: 0 };
+  junctionInto(j, v, out);
+  return out;
+}
+
+/** Reused result of the junction law in the Newton loop (no allocation per evaluation). */
+const scratch = { i: 0, g: 0 };
+
+/** The junction law written into `out`. */
+function junctionInto(j: JunctionParams, v: number, out: { i: number; g: number }): void {
   const a = v / j.vt;
   let i: number;
   let g: number;
@@ -62,7 +72,8 @@ export function junctionEval(j: JunctionParams, v: number): { i: number; g: numb
       g += (ib * e) / vtb;
     }
   }
-  return { i, g };
+  out.i = i;
+  out.g = g;
 }
 
 /**
@@ -123,57 +134,170 @@ export function varistorEval(d: Extract<CircuitDevice, { type: "varistor" }>, v:
   return { i: Math.sign(v) * d.i0 * pow * u, g: (d.alpha * d.i0 * pow) / d.vc };
 }
 
-/** Stamps one device; returns true when a voltage was limited (the iterate is not final). */
-export function stampDevice(d: CircuitDevice, c: StampContext): boolean {
-  const { p, vals, rhs, x, mem, work } = c;
+/**
+ * The pattern slots a device stamps into, in a fixed order per type (-1 for a ground row or
+ * column), looked up once per circuit so the stamps in the Newton loop are plain array writes.
+ * A two-terminal block (a, b) is [aa, bb, ab, ba].
+ */
+export function deviceSlots(p: MnaPattern, d: CircuitDevice): Int32Array {
   const t = d.terminals;
+  const out: number[] = [];
+  const at = (r: number, c: number) => out.push(r < 0 || c < 0 ? -1 : p.slot(r, c));
+  const block = (a: number, b: number) => {
+    at(a, a);
+    at(b, b);
+    at(a, b);
+    at(b, a);
+  };
   switch (d.type) {
     case "conductance":
-      addConductance(p, vals, t[0]!, t[1]!, d.g);
-      return false;
+    case "capacitor":
+    case "varistor":
+      block(t[0]!, t[1]!);
+      break;
     case "short":
-      addAt(p, vals, t[0]!, d.branch, 1);
-      addAt(p, vals, t[1]!, d.branch, -1);
-      addAt(p, vals, d.branch, t[0]!, 1);
-      addAt(p, vals, d.branch, t[1]!, -1);
-      return false;
     case "supply":
-      addAt(p, vals, t[0]!, d.branch, -1);
-      addAt(p, vals, d.branch, t[0]!, 1);
-      rhs[d.branch] = d.vpk * Math.sin(2 * Math.PI * d.hz * c.t);
-      return false;
+      at(t[0]!, d.branch);
+      at(t[1]!, d.branch);
+      at(d.branch, t[0]!);
+      at(d.branch, t[1]!);
+      break;
+    case "coupled":
+      d.branches.forEach((b, w) => {
+        at(t[2 * w]!, b);
+        at(t[2 * w + 1]!, b);
+        at(b, t[2 * w]!);
+        at(b, t[2 * w + 1]!);
+        for (const b2 of d.branches) at(b, b2);
+      });
+      break;
+    case "junction":
+      if (d.inner !== t[0]) block(t[0]!, d.inner);
+      else out.push(-1, -1, -1, -1);
+      block(d.inner, t[1]!);
+      break;
+    case "switching":
+      block(t[1]!, t[2]!);
+      block(t[0]!, t[2]!);
+      break;
+    default: {
+      const never: never = d;
+      throw new Error(`unhandled device ${String(never)}`);
+    }
+  }
+  return Int32Array.from(out);
+}
+
+/** Adds conductance g to the block of four slots starting at `o`. */
+function blockAdd(vals: Float64Array, sl: Int32Array, o: number, g: number): void {
+  let s = sl[o]!;
+  if (s >= 0) vals[s]! += g;
+  s = sl[o + 1]!;
+  if (s >= 0) vals[s]! += g;
+  s = sl[o + 2]!;
+  if (s >= 0) vals[s]! -= g;
+  s = sl[o + 3]!;
+  if (s >= 0) vals[s]! -= g;
+}
+
+function slotAdd(vals: Float64Array, s: number, v: number): void {
+  if (s >= 0) vals[s]! += v;
+}
+
+/** True for the devices whose stamp depends on the Newton iterate. */
+export function isNonlinear(d: CircuitDevice): boolean {
+  return d.type === "junction" || d.type === "varistor" || d.type === "switching";
+}
+
+/**
+ * The matrix entries that depend only on the step (h, trap): every linear device, and the series
+ * resistance of a junction. Stamped once per step size and copied into each Newton iteration.
+ */
+export function stampLinearMatrix(d: CircuitDevice, sl: Int32Array, vals: Float64Array, h: number, trap: boolean): void {
+  switch (d.type) {
+    case "conductance":
+      blockAdd(vals, sl, 0, d.g);
+      return;
+    case "short":
+      slotAdd(vals, sl[0]!, 1);
+      slotAdd(vals, sl[1]!, -1);
+      slotAdd(vals, sl[2]!, 1);
+      slotAdd(vals, sl[3]!, -1);
+      return;
+    case "supply":
+      slotAdd(vals, sl[0]!, -1);
+      slotAdd(vals, sl[2]!, 1);
+      return;
+    case "capacitor":
+      blockAdd(vals, sl, 0, ((trap ? 2 : 1) * d.c) / h);
+      return;
+    case "coupled": {
+      const alpha = (trap ? 2 : 1) / h;
+      const nw = d.branches.length;
+      for (let w = 0; w < nw; w++) {
+        const o = w * (4 + nw);
+        slotAdd(vals, sl[o]!, 1);
+        slotAdd(vals, sl[o + 1]!, -1);
+        slotAdd(vals, sl[o + 2]!, 1);
+        slotAdd(vals, sl[o + 3]!, -1);
+        slotAdd(vals, sl[o + 4 + w]!, -d.r[w]!);
+        for (let k = 0; k < nw; k++) slotAdd(vals, sl[o + 4 + k]!, -alpha * d.l[w]![k]!);
+      }
+      return;
+    }
+    case "junction":
+      if (d.inner !== d.terminals[0]) blockAdd(vals, sl, 0, 1 / d.rs);
+      return;
+    case "varistor":
+    case "switching":
+      return;
+    default: {
+      const never: never = d;
+      throw new Error(`unhandled device ${String(never)}`);
+    }
+  }
+}
+
+/** The right-hand side of a linear device at a step: the supply at time t, the companion histories. */
+export function stampLinearRhs(d: CircuitDevice, rhs: Float64Array, mem: Float64Array, h: number, trap: boolean, t: number): void {
+  switch (d.type) {
+    case "supply":
+      rhs[d.branch] = d.vpk * Math.sin(2 * Math.PI * d.hz * t);
+      return;
     case "capacitor": {
-      const geq = ((c.trap ? 2 : 1) * d.c) / c.h;
-      const ieq = geq * mem[d.mem]! + (c.trap ? mem[d.mem + 1]! : 0);
-      addConductance(p, vals, t[0]!, t[1]!, geq);
-      addCurrent(rhs, t[1]!, t[0]!, ieq);
-      return false;
+      const geq = ((trap ? 2 : 1) * d.c) / h;
+      const ieq = geq * mem[d.mem]! + (trap ? mem[d.mem + 1]! : 0);
+      addCurrent(rhs, d.terminals[1]!, d.terminals[0]!, ieq);
+      return;
     }
     case "coupled": {
-      const alpha = (c.trap ? 2 : 1) / c.h;
-      d.branches.forEach((b, w) => {
-        addAt(p, vals, t[2 * w]!, b, 1);
-        addAt(p, vals, t[2 * w + 1]!, b, -1);
-        addAt(p, vals, b, t[2 * w]!, 1);
-        addAt(p, vals, b, t[2 * w + 1]!, -1);
-        addAt(p, vals, b, b, -d.r[w]!);
+      const alpha = (trap ? 2 : 1) / h;
+      const nw = d.branches.length;
+      for (let w = 0; w < nw; w++) {
         let hist = 0;
-        d.branches.forEach((b2, k) => {
-          addAt(p, vals, b, b2, -alpha * d.l[w]![k]!);
-          hist += d.l[w]![k]! * mem[d.mem + 2 * k]!;
-        });
-        rhs[b] = -alpha * hist - (c.trap ? mem[d.mem + 2 * w + 1]! : 0);
-      });
-      return false;
+        for (let k = 0; k < nw; k++) hist += d.l[w]![k]! * mem[d.mem + 2 * k]!;
+        rhs[d.branches[w]!] = -alpha * hist - (trap ? mem[d.mem + 2 * w + 1]! : 0);
+      }
+      return;
     }
+    default:
+      return;
+  }
+}
+
+/** Stamps the iterate-dependent part of a nonlinear device; returns true when a voltage was limited. */
+export function stampNonlinear(d: CircuitDevice, sl: Int32Array, c: StampContext): boolean {
+  const { vals, rhs, x, mem, work } = c;
+  const t = d.terminals;
+  switch (d.type) {
     case "junction": {
-      if (d.inner !== t[0]) addConductance(p, vals, t[0]!, d.inner, 1 / d.rs);
       const vRaw = nodeV(x, d.inner) - nodeV(x, t[1]!);
       const v = limitBoth(d.j, vRaw, work[d.mem]!);
       work[d.mem] = v;
-      const { i, g } = junctionEval(d.j, v);
-      addConductance(p, vals, d.inner, t[1]!, g);
-      addCurrent(rhs, d.inner, t[1]!, i - g * v);
+      junctionInto(d.j, v, scratch);
+      const g = scratch.g;
+      blockAdd(vals, sl, 4, g);
+      addCurrent(rhs, d.inner, t[1]!, scratch.i - g * v);
       return Math.abs(v - vRaw) > 1e-12;
     }
     case "varistor": {
@@ -186,7 +310,7 @@ export function stampDevice(d: CircuitDevice, c: StampContext): boolean {
       }
       work[d.mem] = v;
       const { i, g } = varistorEval(d, v);
-      addConductance(p, vals, t[0]!, t[1]!, g);
+      blockAdd(vals, sl, 0, g);
       addCurrent(rhs, t[0]!, t[1]!, i - g * v);
       return v !== vRaw;
     }
@@ -201,20 +325,26 @@ export function stampDevice(d: CircuitDevice, c: StampContext): boolean {
           : -limitJunction(-vgRaw, -vgOld, d.p.gate.vt, d.p.gate.is);
       work[d.mem + 1] = vg;
       const ge = gateEval(d.triac, d.p.gate, vg);
-      addConductance(p, vals, t[1]!, t[2]!, ge.g);
+      blockAdd(vals, sl, 0, ge.g);
       addCurrent(rhs, t[1]!, t[2]!, ge.i - ge.g * vg);
       const vm = nodeV(x, t[0]!) - nodeV(x, t[2]!);
       work[d.mem + 2] = vm;
       const me = mainEval(d, on, vm);
-      addConductance(p, vals, t[0]!, t[2]!, me.g);
+      blockAdd(vals, sl, 4, me.g);
       addCurrent(rhs, t[0]!, t[2]!, me.i - me.g * vm);
       return Math.abs(vg - vgRaw) > 1e-12;
     }
-    default: {
-      const never: never = d;
-      throw new Error(`unhandled device ${String(never)}`);
-    }
+    default:
+      return false;
   }
+}
+
+/** Stamps one device; returns true when a voltage was limited (the iterate is not final). */
+export function stampDevice(d: CircuitDevice, c: StampContext): boolean {
+  const sl = deviceSlots(c.p, d);
+  stampLinearMatrix(d, sl, c.vals, c.h, c.trap);
+  stampLinearRhs(d, c.rhs, c.mem, c.h, c.trap, c.t);
+  return stampNonlinear(d, sl, c);
 }
 
 /** After convergence: the memory of t_{n+1} (capacitor current, winding voltage, junction voltages). */

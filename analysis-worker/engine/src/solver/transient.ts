@@ -11,7 +11,7 @@ import type { LinearSolver } from "./sparse-lu.js";
 import type { SolverError } from "./solver-error.js";
 import { solverFailure } from "./solver-error.js";
 import type { StampContext } from "./transient-stamps.js";
-import { commitDevice, latchEvent, stampDevice } from "./transient-stamps.js";
+import { commitDevice, deviceSlots, isNonlinear, latchEvent, stampLinearMatrix, stampLinearRhs, stampNonlinear } from "./transient-stamps.js";
 
 /** Newton iterations per step before the step is cut. */
 export const MAX_NEWTON_ITERATIONS = 60;
@@ -71,6 +71,8 @@ export interface CycleRun {
   /** Firing events: device ref, time in the cycle (s), turned on (true) or off. */
   events: Array<{ ref: string; t: number; on: boolean }>;
   steps: number;
+  /** For a run joined from several cycles: the end state of each. */
+  cycleEnds?: Float64Array[];
 }
 
 type StepOutcome =
@@ -85,12 +87,21 @@ export class TransientSolver {
   private readonly lu: LinearSolver;
   private readonly vals: Float64Array;
   private readonly rhs: Float64Array;
+  private readonly rhsBase: Float64Array;
   private readonly opts: TransientOptions;
   private readonly diagSlots: number[];
   private readonly nonlinear: CircuitDevice[];
   private readonly switching: Array<Extract<CircuitDevice, { type: "switching" }>>;
   private readonly storage: Array<{ index: number; isVolt: boolean }>;
   private readonly ddWork = new Float64Array(4);
+  /** Pattern slots of each device (same order as circuit.devices). */
+  private readonly slots: Int32Array[];
+  private readonly linear: CircuitDevice[];
+  private readonly nonlinearSlots: Int32Array[];
+  /** Matrix of the step-only entries (gmin, linear devices) for the step size it was built for. */
+  private readonly baseVals: Float64Array;
+  private baseH = NaN;
+  private baseTrap = false;
   totalSteps = 0;
   newtonIterations = 0;
 
@@ -102,8 +113,13 @@ export class TransientSolver {
     this.lu = this.pattern.solver(opts.lu);
     this.vals = new Float64Array(this.pattern.count);
     this.rhs = new Float64Array(circuit.size);
+    this.rhsBase = new Float64Array(circuit.size);
     this.diagSlots = Array.from({ length: circuit.nodeCount }, (_, i) => this.pattern.slot(i, i));
-    this.nonlinear = circuit.devices.filter((d) => d.type === "junction" || d.type === "varistor" || d.type === "switching");
+    this.nonlinear = circuit.devices.filter(isNonlinear);
+    this.linear = circuit.devices.filter((d) => !isNonlinear(d));
+    this.slots = circuit.devices.map((d) => deviceSlots(this.pattern, d));
+    this.nonlinearSlots = this.nonlinear.map((d) => this.slots[circuit.devices.indexOf(d)]!);
+    this.baseVals = new Float64Array(this.pattern.count);
     this.switching = circuit.devices.filter((d): d is Extract<CircuitDevice, { type: "switching" }> => d.type === "switching");
     this.storage = [];
     for (const d of circuit.devices) {
@@ -112,39 +128,61 @@ export class TransientSolver {
     }
   }
 
+  /** The step-only matrix entries for (h, trap), rebuilt only when the step changes. */
+  private baseFor(h: number, trap: boolean): Float64Array {
+    if (h === this.baseH && trap === this.baseTrap) return this.baseVals;
+    const b = this.baseVals;
+    b.fill(0);
+    for (const s of this.diagSlots) b[s]! += GMIN_SIEMENS;
+    const devices = this.circuit.devices;
+    for (let k = 0; k < devices.length; k++) stampLinearMatrix(devices[k]!, this.slots[k]!, b, h, trap);
+    this.baseH = h;
+    this.baseTrap = trap;
+    return b;
+  }
+
   /** One step from (x, mem) at time t - h to time t. */
   step(t: number, h: number, trap: boolean, xGuess: Float64Array, mem: Float64Array): StepOutcome {
     const c = this.circuit;
     const work = mem.slice();
-    let x: Float64Array = xGuess.slice();
-    let prev: Float64Array = x;
+    const n = c.size;
+    // Two iterate buffers used in turn; the accepted one is returned (callers keep it).
+    let x = new Float64Array(n);
+    x.set(xGuess);
+    let next = new Float64Array(n);
     const ctx: StampContext = { p: this.pattern, vals: this.vals, rhs: this.rhs, x, mem, work, h, trap, t };
-    const maxIt = this.nonlinear.length === 0 ? 1 : this.opts.maxNewtonIterations;
+    const base = this.baseFor(h, trap);
+    // The right-hand side of the linear devices is the same for every Newton iteration.
+    const rhsBase = this.rhsBase;
+    rhsBase.fill(0);
+    for (const d of this.linear) stampLinearRhs(d, rhsBase, mem, h, trap, t);
+    const nonlinear = this.nonlinear;
+    const maxIt = nonlinear.length === 0 ? 1 : this.opts.maxNewtonIterations;
     for (let it = 0; it < maxIt; it++) {
       this.newtonIterations++;
-      this.vals.fill(0);
-      this.rhs.fill(0);
-      for (const s of this.diagSlots) this.vals[s]! += GMIN_SIEMENS;
+      this.vals.set(base);
+      this.rhs.set(rhsBase);
       ctx.x = x;
       let limited = false;
-      for (const d of c.devices) if (stampDevice(d, ctx)) limited = true;
+      for (let k = 0; k < nonlinear.length; k++) if (stampNonlinear(nonlinear[k]!, this.nonlinearSlots[k]!, ctx)) limited = true;
       if (it > 0 && !limited && this.pattern.residualSmall(this.vals, x, this.rhs, c.nodeCount, NEWTON_RESIDUAL_RELTOL, NEWTON_RESIDUAL_ABSTOL_A)) {
         for (const d of c.devices) commitDevice(d, ctx);
         return { ok: true, x, work };
       }
       const status = this.lu.factor(this.vals);
       if (!status.ok) return { ok: false, kind: "singular", unknown: status.singularUnknown };
-      const next = this.lu.solve(this.rhs);
-      if (!allFinite(next)) return { ok: false, kind: "newton", part: this.worstPart(x, prev) };
-      prev = x;
+      this.lu.solveInto(this.rhs, next);
+      if (!allFinite(next)) return { ok: false, kind: "newton", part: this.worstPart(next, x) };
+      const prev = x;
       x = next;
-      if (this.nonlinear.length === 0 || (!limited && it > 0 && this.converged(prev, x))) {
+      next = prev;
+      if (nonlinear.length === 0 || (!limited && it > 0 && this.converged(prev, x))) {
         ctx.x = x;
         for (const d of c.devices) commitDevice(d, ctx);
         return { ok: true, x, work };
       }
     }
-    return { ok: false, kind: "newton", part: this.worstPart(x, prev) };
+    return { ok: false, kind: "newton", part: this.worstPart(x, next) };
   }
 
   private converged(a: Float64Array, b: Float64Array): boolean {
