@@ -4,38 +4,101 @@ import js from "@eslint/js";
 import tseslint from "typescript-eslint";
 
 const ENGINE_FORBIDDEN_IMPORTS = {
-  paths: ["pg", "pg-boss", "next", "react", "fs", "net", "http", "https", "child_process", "os", "path",
-    "node:fs", "node:fs/promises", "node:net", "node:http", "node:https", "node:child_process",
-    "node:os", "node:path", "node:worker_threads", "node:dgram", "node:dns", "node:process",
-  ].map((name) => ({ name, message: "The engine is pure: no I/O, database or web imports (see analysis-worker/engine/README.md)." })),
+  paths: [
+    "pg",
+    "pg-boss",
+    "next",
+    "react",
+    "fs",
+    "net",
+    "http",
+    "https",
+    "child_process",
+    "os",
+    "path",
+    "node:fs",
+    "node:fs/promises",
+    "node:net",
+    "node:http",
+    "node:https",
+    "node:child_process",
+    "node:os",
+    "node:path",
+    "node:worker_threads",
+    "node:dgram",
+    "node:dns",
+    "node:process",
+  ].map((name) => ({
+    name,
+    message:
+      "The engine is pure: no I/O, database or web imports (see analysis-worker/engine/README.md).",
+  })),
   patterns: [
     { group: ["@teardown/*"], message: "The engine imports nothing of ours." },
-    { group: ["next/*", "pg/*", "drizzle-orm", "drizzle-orm/*", "fs/*"], message: "The engine is pure: no I/O, database or web imports." },
-    { group: ["**/db/**", "**/web/**", "../../db/*", "../../web/*", "../../../db/*", "../../../web/*"], message: "The engine must not import db or web." },
+    {
+      group: ["next/*", "pg/*", "drizzle-orm", "drizzle-orm/*", "fs/*"],
+      message: "The engine is pure: no I/O, database or web imports.",
+    },
+    {
+      group: [
+        "**/db/**",
+        "**/web/**",
+        "../../db/*",
+        "../../web/*",
+        "../../../db/*",
+        "../../../web/*",
+      ],
+      message: "The engine must not import db or web.",
+    },
   ],
 };
 
 export default tseslint.config(
-  { ignores: ["**/node_modules/**", "**/.next/**", ".data/**", "db/migrations/**", "**/*.d.ts", "analysis-worker/engine/schema/**"] },
+  {
+    ignores: [
+      "**/node_modules/**",
+      "**/.next/**",
+      ".data/**",
+      "db/migrations/**",
+      "**/*.d.ts",
+      "analysis-worker/engine/schema/**",
+    ],
+  },
   js.configs.recommended,
   ...tseslint.configs.recommended,
   {
     rules: {
-      "@typescript-eslint/no-unused-vars": ["error", { argsIgnorePattern: "^_", varsIgnorePattern: "^_" }],
+      "@typescript-eslint/no-unused-vars": [
+        "error",
+        { argsIgnorePattern: "^_", varsIgnorePattern: "^_" },
+      ],
       "@typescript-eslint/no-non-null-assertion": "off",
     },
+  },
+  {
+    // Plain CommonJS preloads for node (scripts/start/exit-with-parent.cjs).
+    files: ["**/*.cjs"],
+    languageOptions: {
+      sourceType: "commonjs",
+      globals: { require: "readonly", process: "readonly", module: "writable" },
+    },
+    rules: { "@typescript-eslint/no-require-imports": "off" },
   },
   {
     files: ["analysis-worker/engine/**/*.ts"],
     rules: {
       "no-restricted-imports": ["error", ENGINE_FORBIDDEN_IMPORTS],
       "no-console": "error",
-      "no-restricted-properties": ["error",
+      "no-restricted-properties": [
+        "error",
         { object: "Math", property: "random", message: "Pass a seeded generator in." },
         { object: "Date", property: "now", message: "Pass a clock in." },
         { object: "performance", property: "now", message: "Pass a clock in." },
       ],
-      "no-restricted-globals": ["error", { name: "process", message: "The engine has no process." }],
+      "no-restricted-globals": [
+        "error",
+        { name: "process", message: "The engine has no process." },
+      ],
     },
   },
 );

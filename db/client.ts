@@ -9,7 +9,11 @@ import { drizzle, type NodePgDatabase } from "drizzle-orm/node-postgres";
 import pg from "pg";
 import * as schema from "./schema/index.js";
 import { startEmbeddedServer, type EmbeddedServer } from "./embedded-server.js";
-import { DatabaseUnavailableError, describeDatabaseUrl, explainConnectionFailure } from "./errors.js";
+import {
+  DatabaseUnavailableError,
+  describeDatabaseUrl,
+  explainConnectionFailure,
+} from "./errors.js";
 import { guardPoolClients } from "./pool-guard.js";
 
 export type Database = NodePgDatabase<typeof schema>;
@@ -33,7 +37,8 @@ export function projectRoot(from: string = process.cwd()): string {
   let dir = path.resolve(from);
   for (;;) {
     const pj = path.join(dir, "package.json");
-    if (existsSync(pj) && JSON.parse(readFileSync(pj, "utf8")).name === "teardown-ledger") return dir;
+    if (existsSync(pj) && JSON.parse(readFileSync(pj, "utf8")).name === "teardown-ledger")
+      return dir;
     const up = path.dirname(dir);
     if (up === dir) return path.resolve(from);
     dir = up;
@@ -42,20 +47,33 @@ export function projectRoot(from: string = process.cwd()): string {
 
 /** Where local state lives: `TEARDOWN_DATA_DIR`, else `.data` under the project root. */
 export function dataDir(): string {
-  return process.env.TEARDOWN_DATA_DIR ? path.resolve(process.env.TEARDOWN_DATA_DIR) : path.join(projectRoot(), ".data");
+  return process.env.TEARDOWN_DATA_DIR
+    ? path.resolve(process.env.TEARDOWN_DATA_DIR)
+    : path.join(projectRoot(), ".data");
 }
 
 /**
  * A pool for a URL. The only place a pool is made. `onConnectionLost` hears of connections that
  * died while checked out (the query then fails and can be retried; the process lives on).
  */
-export function createPool(url: string, max = 10, onConnectionLost: (err: Error) => void = () => {}): pg.Pool {
+export function createPool(
+  url: string,
+  max = 10,
+  onConnectionLost: (err: Error) => void = () => {},
+): pg.Pool {
   try {
     new URL(url);
   } catch {
-    throw new DatabaseUnavailableError(describeDatabaseUrl(url), "DATABASE_URL is not a valid postgres:// URL");
+    throw new DatabaseUnavailableError(
+      describeDatabaseUrl(url),
+      "DATABASE_URL is not a valid postgres:// URL",
+    );
   }
-  const pool = new pg.Pool({ connectionString: url, max, connectionTimeoutMillis: CONNECT_TIMEOUT_MS });
+  const pool = new pg.Pool({
+    connectionString: url,
+    max,
+    connectionTimeoutMillis: CONNECT_TIMEOUT_MS,
+  });
   // An idle client's error (server restarted) must not crash the process; the next query retries.
   pool.on("error", () => {});
   guardPoolClients(pool, onConnectionLost);
@@ -68,18 +86,27 @@ export async function ping(pool: pg.Pool, url: string): Promise<number> {
   try {
     await pool.query("select 1");
   } catch (err) {
-    throw new DatabaseUnavailableError(describeDatabaseUrl(url), explainConnectionFailure(err), { cause: err });
+    throw new DatabaseUnavailableError(describeDatabaseUrl(url), explainConnectionFailure(err), {
+      cause: err,
+    });
   }
   return performance.now() - t0;
 }
 
 /** Starts the embedded server (or finds it running) and makes sure the app database exists. */
-export async function startEmbeddedDatabase(opts: { onLog?: (line: string) => void } = {}): Promise<{ url: string; server: EmbeddedServer }> {
-  const server = await startEmbeddedServer({ dataDir: path.join(dataDir(), "postgres"), onLog: opts.onLog });
+export async function startEmbeddedDatabase(
+  opts: { onLog?: (line: string) => void } = {},
+): Promise<{ url: string; server: EmbeddedServer }> {
+  const server = await startEmbeddedServer({
+    dataDir: path.join(dataDir(), "postgres"),
+    onLog: opts.onLog,
+  });
   const admin = new pg.Client({ connectionString: server.adminUrl });
   await admin.connect();
   try {
-    const found = await admin.query("select 1 from pg_database where datname = $1", [EMBEDDED_DATABASE]);
+    const found = await admin.query("select 1 from pg_database where datname = $1", [
+      EMBEDDED_DATABASE,
+    ]);
     if (found.rowCount === 0) await admin.query(`create database ${EMBEDDED_DATABASE}`);
   } finally {
     await admin.end();
@@ -92,7 +119,12 @@ export async function startEmbeddedDatabase(opts: { onLog?: (line: string) => vo
  * exported to `DATABASE_URL` for child processes). Fails with one clear DatabaseUnavailableError.
  */
 export async function openDatabase(
-  opts: { url?: string; poolSize?: number; onLog?: (line: string) => void; onConnectionLost?: (err: Error) => void } = {},
+  opts: {
+    url?: string;
+    poolSize?: number;
+    onLog?: (line: string) => void;
+    onConnectionLost?: (err: Error) => void;
+  } = {},
 ): Promise<DatabaseHandle> {
   let url = opts.url ?? process.env.DATABASE_URL ?? "";
   let embedded: EmbeddedServer | null = null;

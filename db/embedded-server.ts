@@ -5,7 +5,15 @@
  * and shutdown order stay under the start script's control.
  */
 import { execFileSync, spawn, type ChildProcess } from "node:child_process";
-import { chownSync, existsSync, mkdirSync, readdirSync, readFileSync, rmSync, statSync } from "node:fs";
+import {
+  chownSync,
+  existsSync,
+  mkdirSync,
+  readdirSync,
+  readFileSync,
+  rmSync,
+  statSync,
+} from "node:fs";
 import net from "node:net";
 import os from "node:os";
 import path from "node:path";
@@ -68,7 +76,9 @@ export async function findFreePort(): Promise<number> {
     srv.on("error", reject);
     srv.listen(0, "127.0.0.1", () => {
       const addr = srv.address();
-      srv.close(() => (typeof addr === "object" && addr ? resolve(addr.port) : reject(new Error("no port"))));
+      srv.close(() =>
+        typeof addr === "object" && addr ? resolve(addr.port) : reject(new Error("no port")),
+      );
     });
   });
 }
@@ -96,24 +106,45 @@ function runningServer(dataDir: string): { pid: number; port: number } | null {
 
 function run(cmd: string, args: string[], ids: { uid?: number; gid?: number }): Promise<void> {
   return new Promise((resolve, reject) => {
-    const child = spawn(cmd, args, { ...ids, stdio: ["ignore", "pipe", "pipe"], env: { ...process.env, LC_ALL: "C" } });
+    const child = spawn(cmd, args, {
+      ...ids,
+      stdio: ["ignore", "pipe", "pipe"],
+      env: { ...process.env, LC_ALL: "C" },
+    });
     let out = "";
     child.stdout.on("data", (c: Buffer) => (out += c.toString()));
     child.stderr.on("data", (c: Buffer) => (out += c.toString()));
     child.on("error", reject);
     child.on("close", (code) =>
-      code === 0 ? resolve() : reject(new Error(`${path.basename(cmd)} failed (exit ${code}): ${out.trim().split("\n").slice(-3).join(" | ")}`)),
+      code === 0
+        ? resolve()
+        : reject(
+            new Error(
+              `${path.basename(cmd)} failed (exit ${code}): ${out.trim().split("\n").slice(-3).join(" | ")}`,
+            ),
+          ),
     );
   });
 }
 
 /** Starts (or finds already running) a server on dataDir; initialises the folder the first time. */
-export async function startEmbeddedServer(opts: { dataDir: string; port?: number; onLog?: (line: string) => void }): Promise<EmbeddedServer> {
+export async function startEmbeddedServer(opts: {
+  dataDir: string;
+  port?: number;
+  onLog?: (line: string) => void;
+}): Promise<EmbeddedServer> {
   const dataDir = path.resolve(opts.dataDir);
   const urlFor = (port: number) => `postgres://postgres@127.0.0.1:${port}/postgres`;
   const existing = runningServer(dataDir);
   if (existing) {
-    return { adminUrl: urlFor(existing.port), port: existing.port, dataDir, owned: false, exited: new Promise(() => {}), stop: async () => {} };
+    return {
+      adminUrl: urlFor(existing.port),
+      port: existing.port,
+      dataDir,
+      owned: false,
+      exited: new Promise(() => {}),
+      stop: async () => {},
+    };
   }
   const bin = await binaryDir();
   const ids = runAsIds();
@@ -122,23 +153,55 @@ export async function startEmbeddedServer(opts: { dataDir: string; port?: number
     if (readdirSync(dataDir).length > 0) rmSync(dataDir, { recursive: true, force: true }); // a half-made folder from an interrupted initdb
     mkdirSync(dataDir, { recursive: true });
     chownTree(dataDir, ids);
-    await run(path.join(bin, "initdb"), [`--pgdata=${dataDir}`, "--auth=trust", "--username=postgres", "--encoding=UTF8", "--no-locale"], ids);
+    await run(
+      path.join(bin, "initdb"),
+      [
+        `--pgdata=${dataDir}`,
+        "--auth=trust",
+        "--username=postgres",
+        "--encoding=UTF8",
+        "--no-locale",
+      ],
+      ids,
+    );
   }
   if (ids.uid !== undefined && statSync(dataDir).uid !== ids.uid) chownTree(dataDir, ids);
   const port = opts.port ?? (await findFreePort());
   const child: ChildProcess = spawn(
     path.join(bin, "postgres"),
-    ["-D", dataDir, "-p", String(port), "-c", "listen_addresses=127.0.0.1", "-c", "unix_socket_directories=", "-c", "max_connections=200", "-c", "fsync=off"],
+    [
+      "-D",
+      dataDir,
+      "-p",
+      String(port),
+      "-c",
+      "listen_addresses=127.0.0.1",
+      "-c",
+      "unix_socket_directories=",
+      "-c",
+      "max_connections=200",
+      "-c",
+      "fsync=off",
+    ],
     // detached: its own process group, so a Ctrl-C at the terminal reaches the start script
     // alone, which stops the web server and workers first and the database last.
-    { ...ids, detached: true, stdio: ["ignore", "ignore", "pipe"], env: { ...process.env, LC_ALL: "C" } },
+    {
+      ...ids,
+      detached: true,
+      stdio: ["ignore", "ignore", "pipe"],
+      env: { ...process.env, LC_ALL: "C" },
+    },
   );
   const exited = new Promise<{ code: number | null; signal: NodeJS.Signals | null }>((resolve) =>
     child.once("exit", (code, signal) => resolve({ code, signal })),
   );
   let log = "";
   await new Promise<void>((resolve, reject) => {
-    const timer = setTimeout(() => reject(new Error(`embedded postgres did not start within ${SERVER_READY_TIMEOUT_MS} ms`)), SERVER_READY_TIMEOUT_MS);
+    const timer = setTimeout(
+      () =>
+        reject(new Error(`embedded postgres did not start within ${SERVER_READY_TIMEOUT_MS} ms`)),
+      SERVER_READY_TIMEOUT_MS,
+    );
     child.stderr!.on("data", (chunk: Buffer) => {
       const text = chunk.toString();
       if (log.length < 20_000) log += text;
@@ -154,7 +217,11 @@ export async function startEmbeddedServer(opts: { dataDir: string; port?: number
     });
     void exited.then(({ code }) => {
       clearTimeout(timer);
-      reject(new Error(`embedded postgres exited during start-up (exit ${code}): ${log.trim().split("\n").slice(-3).join(" | ")}`));
+      reject(
+        new Error(
+          `embedded postgres exited during start-up (exit ${code}): ${log.trim().split("\n").slice(-3).join(" | ")}`,
+        ),
+      );
     });
   });
   let stopping: Promise<void> | null = null;

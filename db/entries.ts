@@ -42,18 +42,43 @@ export interface NewEntry {
 }
 
 /** Creates an entry with its first revision and queues its analysis, in one transaction. */
-export async function createEntry(db: DatabaseOrTx, boss: PgBoss, input: NewEntry): Promise<{ entryId: string; revisionId: string }> {
+export async function createEntry(
+  db: DatabaseOrTx,
+  boss: PgBoss,
+  input: NewEntry,
+): Promise<{ entryId: string; revisionId: string }> {
   return db.transaction(async (tx) => {
     const [entry] = await tx
       .insert(schema.entries)
-      .values({ teamId: input.teamId, title: input.title, category: input.category, visibility: input.visibility ?? "team", createdBy: input.authorId, currentRevision: 1 })
+      .values({
+        teamId: input.teamId,
+        title: input.title,
+        category: input.category,
+        visibility: input.visibility ?? "team",
+        createdBy: input.authorId,
+        currentRevision: 1,
+      })
       .returning({ id: schema.entries.id });
     const [rev] = await tx
       .insert(schema.revisions)
-      .values({ entryId: entry!.id, number: 1, record: input.record, recordHash: recordHash(input.record), authorId: input.authorId, message: input.message })
+      .values({
+        entryId: entry!.id,
+        number: 1,
+        record: input.record,
+        recordHash: recordHash(input.record),
+        authorId: input.authorId,
+        message: input.message,
+      })
       .returning({ id: schema.revisions.id });
     await enqueueAnalysis(tx, boss, { revisionId: rev!.id, engineVersion: input.engineVersion });
-    await tx.insert(schema.auditLog).values({ actorId: input.authorId, teamId: input.teamId, action: "entry.create", targetType: "entry", targetId: entry!.id, detail: { revision: 1 } });
+    await tx.insert(schema.auditLog).values({
+      actorId: input.authorId,
+      teamId: input.teamId,
+      action: "entry.create",
+      targetType: "entry",
+      targetId: entry!.id,
+      detail: { revision: 1 },
+    });
     return { entryId: entry!.id, revisionId: rev!.id };
   });
 }
@@ -70,7 +95,16 @@ export type AddRevisionResult =
 export async function addRevision(
   db: DatabaseOrTx,
   boss: PgBoss,
-  input: { entryId: string; baseRevision: number; record: unknown; title?: string; category?: string | null; authorId: string | null; message: string; engineVersion: string },
+  input: {
+    entryId: string;
+    baseRevision: number;
+    record: unknown;
+    title?: string;
+    category?: string | null;
+    authorId: string | null;
+    message: string;
+    engineVersion: string;
+  },
 ): Promise<AddRevisionResult> {
   return db.transaction(async (tx) => {
     // Lock the entry row so two saves on the same base cannot both pass the check.
@@ -80,11 +114,19 @@ export async function addRevision(
     const row = rows.rows[0];
     if (!row) return { ok: false, code: "not-found" } as const;
     const current = row.current_revision ?? 0;
-    if (current !== input.baseRevision) return { ok: false, code: "stale", currentRevision: current } as const;
+    if (current !== input.baseRevision)
+      return { ok: false, code: "stale", currentRevision: current } as const;
     const number = current + 1;
     const [rev] = await tx
       .insert(schema.revisions)
-      .values({ entryId: input.entryId, number, record: input.record, recordHash: recordHash(input.record), authorId: input.authorId, message: input.message })
+      .values({
+        entryId: input.entryId,
+        number,
+        record: input.record,
+        recordHash: recordHash(input.record),
+        authorId: input.authorId,
+        message: input.message,
+      })
       .returning({ id: schema.revisions.id });
     await tx
       .update(schema.entries)
@@ -96,7 +138,14 @@ export async function addRevision(
       })
       .where(and(eq(schema.entries.id, input.entryId)));
     await enqueueAnalysis(tx, boss, { revisionId: rev!.id, engineVersion: input.engineVersion });
-    await tx.insert(schema.auditLog).values({ actorId: input.authorId, teamId: row.team_id, action: "entry.revise", targetType: "entry", targetId: input.entryId, detail: { revision: number } });
+    await tx.insert(schema.auditLog).values({
+      actorId: input.authorId,
+      teamId: row.team_id,
+      action: "entry.revise",
+      targetType: "entry",
+      targetId: input.entryId,
+      detail: { revision: number },
+    });
     return { ok: true, revisionId: rev!.id, number } as const;
   });
 }

@@ -30,7 +30,8 @@ export function describeDatabaseUrl(url: string): string {
 export function explainConnectionFailure(err: unknown): string {
   const e = err as { code?: string; message?: string; errors?: unknown[] };
   // node's happy-eyeballs connect wraps several attempts in an AggregateError
-  if (!e.code && Array.isArray(e.errors) && e.errors.length > 0) return explainConnectionFailure(e.errors[0]);
+  if (!e.code && Array.isArray(e.errors) && e.errors.length > 0)
+    return explainConnectionFailure(e.errors[0]);
   switch (e.code) {
     case "ECONNREFUSED":
       return "connection refused (is the server running and listening on that port?)";

@@ -66,6 +66,9 @@ export async function enqueueAnalysis(tx: Tx, boss: PgBoss, job: AnalysisJob): P
     .onConflictDoNothing({ target: [schema.analyses.revisionId, schema.analyses.engineVersion] })
     .returning({ id: schema.analyses.id });
   if (inserted.length === 0) return false;
-  await boss.send(ANALYSIS_QUEUE, job, { db: fromDrizzle(tx, sql), singletonKey: `${job.revisionId}:${job.engineVersion}` });
+  await boss.send(ANALYSIS_QUEUE, job, {
+    db: fromDrizzle(tx, sql),
+    singletonKey: `${job.revisionId}:${job.engineVersion}`,
+  });
   return true;
 }

@@ -1,5 +1,11 @@
 /** `npx tsx scripts/migrate.ts`: apply migrations and load the demo data once (for deployments). */
-import { applyMigrations, createQueue, DatabaseUnavailableError, openDatabase, startQueue } from "@teardown/db";
+import {
+  applyMigrations,
+  createQueue,
+  DatabaseUnavailableError,
+  openDatabase,
+  startQueue,
+} from "@teardown/db";
 import { loadDemoData } from "@teardown/seed-demo";
 
 try {
@@ -13,6 +19,8 @@ try {
   }
   await handle.close();
 } catch (err) {
-  process.stderr.write(`teardown-ledger: ${err instanceof DatabaseUnavailableError ? err.message : String(err)}\n`);
+  process.stderr.write(
+    `teardown-ledger: ${err instanceof DatabaseUnavailableError ? err.message : String(err)}\n`,
+  );
   process.exit(1);
 }

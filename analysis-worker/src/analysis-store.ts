@@ -15,7 +15,10 @@ export interface RevisionToAnalyse {
 }
 
 /** The revision and its entry's current revision number, or null when it no longer exists. */
-export async function loadRevision(db: Database, revisionId: string): Promise<RevisionToAnalyse | null> {
+export async function loadRevision(
+  db: Database,
+  revisionId: string,
+): Promise<RevisionToAnalyse | null> {
   const rows = await db
     .select({
       id: schema.revisions.id,
@@ -31,16 +34,29 @@ export async function loadRevision(db: Database, revisionId: string): Promise<Re
 }
 
 /** The state of the analysis row, or null when none exists yet. */
-export async function analysisState(db: Database, revisionId: string, engineVersion: string): Promise<string | null> {
+export async function analysisState(
+  db: Database,
+  revisionId: string,
+  engineVersion: string,
+): Promise<string | null> {
   const rows = await db
     .select({ state: schema.analyses.state })
     .from(schema.analyses)
-    .where(and(eq(schema.analyses.revisionId, revisionId), eq(schema.analyses.engineVersion, engineVersion)));
+    .where(
+      and(
+        eq(schema.analyses.revisionId, revisionId),
+        eq(schema.analyses.engineVersion, engineVersion),
+      ),
+    );
   return rows[0]?.state ?? null;
 }
 
 /** Marks the analysis running (creating the row if a job arrived without one). */
-export async function markRunning(db: Database, revisionId: string, engineVersion: string): Promise<void> {
+export async function markRunning(
+  db: Database,
+  revisionId: string,
+  engineVersion: string,
+): Promise<void> {
   await db
     .insert(schema.analyses)
     .values({ revisionId, engineVersion, state: "running", startedAt: sql`now()` })
@@ -52,7 +68,12 @@ export async function markRunning(db: Database, revisionId: string, engineVersio
 }
 
 /** Stores a finished analysis and, when it is of the entry's current revision, its search columns. */
-export async function storeDone(db: Database, rev: RevisionToAnalyse, engineVersion: string, output: AnalysisOutput): Promise<void> {
+export async function storeDone(
+  db: Database,
+  rev: RevisionToAnalyse,
+  engineVersion: string,
+  output: AnalysisOutput,
+): Promise<void> {
   await db.transaction(async (tx) => {
     await tx
       .insert(schema.analyses)
@@ -89,18 +110,40 @@ export async function storeDone(db: Database, rev: RevisionToAnalyse, engineVers
         facets: output.search.facets,
         searchText: output.search.text,
       })
-      .where(and(eq(schema.entries.id, rev.entryId), eq(schema.entries.currentRevision, rev.number)));
+      .where(
+        and(eq(schema.entries.id, rev.entryId), eq(schema.entries.currentRevision, rev.number)),
+      );
   });
 }
 
 /** Stores a failed analysis with the stage and the reason. */
-export async function storeFailed(db: Database, revisionId: string, engineVersion: string, stage: AnalysisStage | "timeout" | "engine", reason: string): Promise<void> {
+export async function storeFailed(
+  db: Database,
+  revisionId: string,
+  engineVersion: string,
+  stage: AnalysisStage | "timeout" | "engine",
+  reason: string,
+): Promise<void> {
   await db
     .insert(schema.analyses)
-    .values({ revisionId, engineVersion, state: "failed", error: reason, errorStage: stage, startedAt: sql`now()`, finishedAt: sql`now()` })
+    .values({
+      revisionId,
+      engineVersion,
+      state: "failed",
+      error: reason,
+      errorStage: stage,
+      startedAt: sql`now()`,
+      finishedAt: sql`now()`,
+    })
     .onConflictDoUpdate({
       target: [schema.analyses.revisionId, schema.analyses.engineVersion],
-      set: { state: "failed", error: reason, errorStage: stage, startedAt: sql`coalesce(${schema.analyses.startedAt}, now())`, finishedAt: sql`now()` },
+      set: {
+        state: "failed",
+        error: reason,
+        errorStage: stage,
+        startedAt: sql`coalesce(${schema.analyses.startedAt}, now())`,
+        finishedAt: sql`now()`,
+      },
       where: sql`${schema.analyses.state} <> 'done'`,
     });
 }

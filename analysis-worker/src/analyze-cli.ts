@@ -27,16 +27,31 @@ async function main(): Promise<void> {
   if (!parsed.ok)
     fail([
       `${file}: ${parsed.errors.length} error(s)`,
-      ...parsed.errors.map((e) => `${file}:${e.line ?? "?"}:${e.column ?? "?"} ${e.path || "(file)"}: ${e.message}`),
+      ...parsed.errors.map(
+        (e) => `${file}:${e.line ?? "?"}:${e.column ?? "?"} ${e.path || "(file)"}: ${e.message}`,
+      ),
     ]);
-  for (const w of parsed.warnings) process.stderr.write(`${file}:${w.line ?? "?"}:${w.column ?? "?"} warning ${w.path || "(file)"}: ${w.message}\n`);
-  const outcome = await analyzeRecord(parsed.record, { now: () => performance.now(), supply: supply ?? undefined });
-  if (!outcome.ok) fail([`${file}: the analysis failed at the ${outcome.stage} stage: ${outcome.message}`]);
-  process.stdout.write(json ? JSON.stringify(outcome.output.result, null, 2) + "\n" : readableReport(parsed.record, outcome.output.result) + "\n");
+  for (const w of parsed.warnings)
+    process.stderr.write(
+      `${file}:${w.line ?? "?"}:${w.column ?? "?"} warning ${w.path || "(file)"}: ${w.message}\n`,
+    );
+  const outcome = await analyzeRecord(parsed.record, {
+    now: () => performance.now(),
+    supply: supply ?? undefined,
+  });
+  if (!outcome.ok)
+    fail([`${file}: the analysis failed at the ${outcome.stage} stage: ${outcome.message}`]);
+  process.stdout.write(
+    json
+      ? JSON.stringify(outcome.output.result, null, 2) + "\n"
+      : readableReport(parsed.record, outcome.output.result) + "\n",
+  );
 }
 
 main().catch((err: unknown) => {
   // A bug, not bad input: still one line for the user, the detail for a bug report.
-  process.stderr.write(`analyze: internal error: ${err instanceof Error ? err.message : String(err)}\n`);
+  process.stderr.write(
+    `analyze: internal error: ${err instanceof Error ? err.message : String(err)}\n`,
+  );
   process.exit(2);
 });

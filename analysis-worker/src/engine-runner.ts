@@ -39,7 +39,10 @@ export class EngineRunner {
     try {
       worker = await this.take();
     } catch (err) {
-      return { kind: "crash", message: `the engine thread did not start: ${err instanceof Error ? err.message : String(err)}` };
+      return {
+        kind: "crash",
+        message: `the engine thread did not start: ${err instanceof Error ? err.message : String(err)}`,
+      };
     }
     const id = this.nextId++;
     return new Promise<EngineRun>((resolve) => {
@@ -56,7 +59,8 @@ export class EngineRunner {
         if (msg.crash !== undefined) done({ kind: "crash", message: msg.crash }, true);
         else done({ kind: "outcome", outcome: msg.outcome! }, true);
       };
-      const onError = (err: Error) => done({ kind: "crash", message: `${err.message}\n${err.stack ?? ""}` }, false);
+      const onError = (err: Error) =>
+        done({ kind: "crash", message: `${err.message}\n${err.stack ?? ""}` }, false);
       const timer = setTimeout(() => done({ kind: "timeout", budgetMs }, false), budgetMs);
       worker.on("message", onMessage);
       worker.on("error", onError);

@@ -11,7 +11,10 @@ parentPort!.on("message", async (msg: { id: number; record: unknown }) => {
     parentPort!.postMessage({ id: msg.id, outcome });
   } catch (err) {
     // A thrown error is an engine bug, not bad input: report it as such, with the stack.
-    parentPort!.postMessage({ id: msg.id, crash: err instanceof Error ? `${err.message}\n${err.stack ?? ""}` : String(err) });
+    parentPort!.postMessage({
+      id: msg.id,
+      crash: err instanceof Error ? `${err.message}\n${err.stack ?? ""}` : String(err),
+    });
   }
 });
 

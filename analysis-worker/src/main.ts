@@ -4,7 +4,16 @@
  * them, and results are idempotent upserts. SIGTERM finishes the jobs in hand within a grace
  * period, else releases them to the queue.
  */
-import { ANALYSIS_QUEUE, applyMigrations, createQueue, DatabaseUnavailableError, jobExpireSeconds, openDatabase, startQueue, type AnalysisJob } from "@teardown/db";
+import {
+  ANALYSIS_QUEUE,
+  applyMigrations,
+  createQueue,
+  DatabaseUnavailableError,
+  jobExpireSeconds,
+  openDatabase,
+  startQueue,
+  type AnalysisJob,
+} from "@teardown/db";
 import { runAnalysisJob } from "./analysis-job.js";
 import { EngineRunner } from "./engine-runner.js";
 import { logger } from "./logger.js";
@@ -22,11 +31,14 @@ async function main(): Promise<void> {
   try {
     handle = await openDatabase({
       poolSize: concurrency + 2,
-      onConnectionLost: (err) => logger.warn({ err: err.message }, "database connection lost (retrying)"),
+      onConnectionLost: (err) =>
+        logger.warn({ err: err.message }, "database connection lost (retrying)"),
     });
     await applyMigrations(handle.url);
   } catch (err) {
-    process.stderr.write(`teardown-ledger worker: ${err instanceof DatabaseUnavailableError ? err.message : String(err)}\n`);
+    process.stderr.write(
+      `teardown-ledger worker: ${err instanceof DatabaseUnavailableError ? err.message : String(err)}\n`,
+    );
     process.exit(1);
   }
   // A connection lost while checked out must fail its query, not end the process.
@@ -35,10 +47,18 @@ async function main(): Promise<void> {
   await startQueue(boss);
   const engine = new EngineRunner();
   // A third of the expiry, so a job that gives up is failed and retried well before it expires.
-  const ctx = { db: handle.db, engine, budgetMs: ANALYSIS_BUDGET_MS, dbRetryMs: Math.min(MAX_DB_RETRY_MS, (jobExpireSeconds() * 1000) / 3) };
+  const ctx = {
+    db: handle.db,
+    engine,
+    budgetMs: ANALYSIS_BUDGET_MS,
+    dbRetryMs: Math.min(MAX_DB_RETRY_MS, (jobExpireSeconds() * 1000) / 3),
+  };
   await boss.work<AnalysisJob>(
     ANALYSIS_QUEUE,
-    { localConcurrency: concurrency, pollingIntervalSeconds: Number(process.env.QUEUE_POLL_SECONDS ?? 0.5) },
+    {
+      localConcurrency: concurrency,
+      pollingIntervalSeconds: Number(process.env.QUEUE_POLL_SECONDS ?? 0.5),
+    },
     async ([job]) => {
       if (!job) return;
       await runAnalysisJob(ctx, job.id, job.data);

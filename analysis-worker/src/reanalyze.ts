@@ -3,7 +3,14 @@
  * Older analyses stay readable until the new one is done (they are other rows).
  */
 import { and, eq, isNotNull } from "drizzle-orm";
-import { createQueue, DatabaseUnavailableError, enqueueAnalysis, openDatabase, schema, startQueue } from "@teardown/db";
+import {
+  createQueue,
+  DatabaseUnavailableError,
+  enqueueAnalysis,
+  openDatabase,
+  schema,
+  startQueue,
+} from "@teardown/db";
 import { ENGINE_VERSION } from "@teardown/engine";
 
 try {
@@ -13,15 +20,30 @@ try {
   const current = await handle.db
     .select({ id: schema.revisions.id })
     .from(schema.revisions)
-    .innerJoin(schema.entries, and(eq(schema.entries.id, schema.revisions.entryId), eq(schema.entries.currentRevision, schema.revisions.number)))
+    .innerJoin(
+      schema.entries,
+      and(
+        eq(schema.entries.id, schema.revisions.entryId),
+        eq(schema.entries.currentRevision, schema.revisions.number),
+      ),
+    )
     .where(isNotNull(schema.entries.currentRevision));
   let queued = 0;
   for (const rev of current)
-    if (await handle.db.transaction((tx) => enqueueAnalysis(tx, boss, { revisionId: rev.id, engineVersion: ENGINE_VERSION }))) queued++;
-  process.stdout.write(`reanalyze: ${queued} of ${current.length} current revisions queued for engine ${ENGINE_VERSION}\n`);
+    if (
+      await handle.db.transaction((tx) =>
+        enqueueAnalysis(tx, boss, { revisionId: rev.id, engineVersion: ENGINE_VERSION }),
+      )
+    )
+      queued++;
+  process.stdout.write(
+    `reanalyze: ${queued} of ${current.length} current revisions queued for engine ${ENGINE_VERSION}\n`,
+  );
   await boss.stop({ close: true });
   await handle.close();
 } catch (err) {
-  process.stderr.write(`teardown-ledger reanalyze: ${err instanceof DatabaseUnavailableError ? err.message : String(err)}\n`);
+  process.stderr.write(
+    `teardown-ledger reanalyze: ${err instanceof DatabaseUnavailableError ? err.message : String(err)}\n`,
+  );
   process.exit(1);
 }

@@ -26,8 +26,14 @@ export const photos = pgTable(
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [
-    check("photos_content_type", sql`${t.contentType} in ('image/jpeg', 'image/png', 'image/webp')`),
-    check("photos_size", sql`${t.sizeBytes} > 0 and ${t.sizeBytes} <= ${sql.raw(String(MAX_PHOTO_BYTES))}`),
+    check(
+      "photos_content_type",
+      sql`${t.contentType} in ('image/jpeg', 'image/png', 'image/webp')`,
+    ),
+    check(
+      "photos_size",
+      sql`${t.sizeBytes} > 0 and ${t.sizeBytes} <= ${sql.raw(String(MAX_PHOTO_BYTES))}`,
+    ),
     check("photos_sha256_format", sql`${t.sha256} ~ '^[0-9a-f]{64}$'`),
     index("photos_entry_idx").on(t.entryId),
   ],
@@ -44,7 +50,10 @@ export const comments = pgTable(
     partRef: text("part_ref"),
     authorId: text("author_id").references(() => users.id, { onDelete: "set null" }),
     body: text("body").notNull(),
-    mentions: text("mentions").array().notNull().default(sql`'{}'::text[]`),
+    mentions: text("mentions")
+      .array()
+      .notNull()
+      .default(sql`'{}'::text[]`),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [

@@ -14,7 +14,9 @@ export const auditLog = pgTable(
     action: text("action").notNull(),
     targetType: text("target_type").notNull(),
     targetId: text("target_id").notNull(),
-    detail: jsonb("detail").notNull().default(sql`'{}'::jsonb`),
+    detail: jsonb("detail")
+      .notNull()
+      .default(sql`'{}'::jsonb`),
   },
   (t) => [index("audit_log_team_idx").on(t.teamId, t.at)],
 );

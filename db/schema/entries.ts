@@ -42,10 +42,21 @@ export const entries = pgTable(
     archivedAt: timestamp("archived_at", { withTimezone: true }),
     // Search columns, filled by the worker from the current revision's analysis.
     searchText: text("search_text").notNull().default(""),
-    searchBlocks: text("search_blocks").array().notNull().default(sql`'{}'::text[]`),
-    searchFlags: text("search_flags").array().notNull().default(sql`'{}'::text[]`),
-    fingerprint: integer("fingerprint").array().notNull().default(sql`'{}'::integer[]`),
-    facets: jsonb("facets").notNull().default(sql`'{}'::jsonb`),
+    searchBlocks: text("search_blocks")
+      .array()
+      .notNull()
+      .default(sql`'{}'::text[]`),
+    searchFlags: text("search_flags")
+      .array()
+      .notNull()
+      .default(sql`'{}'::text[]`),
+    fingerprint: integer("fingerprint")
+      .array()
+      .notNull()
+      .default(sql`'{}'::integer[]`),
+    facets: jsonb("facets")
+      .notNull()
+      .default(sql`'{}'::jsonb`),
     searchVector: tsvector("search_vector").generatedAlwaysAs(
       (): SQL =>
         sql`setweight(to_tsvector('simple', coalesce(${entries.title}, '')), 'A') || setweight(to_tsvector('simple', coalesce(${entries.category}, '')), 'B') || setweight(to_tsvector('simple', ${entries.searchText}), 'C')`,
@@ -53,7 +64,10 @@ export const entries = pgTable(
   },
   (t) => [
     check("entries_title_length", sql`char_length(${t.title}) between 1 and 200`),
-    check("entries_current_revision_positive", sql`${t.currentRevision} is null or ${t.currentRevision} > 0`),
+    check(
+      "entries_current_revision_positive",
+      sql`${t.currentRevision} is null or ${t.currentRevision} > 0`,
+    ),
     index("entries_team_idx").on(t.teamId, t.updatedAt),
     index("entries_search_vector_idx").using("gin", t.searchVector),
     index("entries_search_blocks_idx").using("gin", t.searchBlocks),

@@ -1,6 +1,15 @@
 /** Teams, their members with a role each, and one-time invitations. */
 import { sql } from "drizzle-orm";
-import { check, index, pgEnum, pgTable, primaryKey, text, timestamp, uuid } from "drizzle-orm/pg-core";
+import {
+  check,
+  index,
+  pgEnum,
+  pgTable,
+  primaryKey,
+  text,
+  timestamp,
+  uuid,
+} from "drizzle-orm/pg-core";
 import { users } from "./auth.js";
 
 export const memberRole = pgEnum("member_role", ["owner", "editor", "viewer"]);
@@ -31,7 +40,10 @@ export const memberships = pgTable(
     role: memberRole("role").notNull(),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
   },
-  (t) => [primaryKey({ columns: [t.teamId, t.userId] }), index("memberships_user_idx").on(t.userId)],
+  (t) => [
+    primaryKey({ columns: [t.teamId, t.userId] }),
+    index("memberships_user_idx").on(t.userId),
+  ],
 );
 
 export const invites = pgTable(

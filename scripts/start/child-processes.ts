@@ -7,7 +7,10 @@ import path from "node:path";
 import { fileURLToPath } from "node:url";
 
 /** Preloaded into every child: it exits when the start script dies (see the file). */
-const EXIT_WITH_PARENT = path.join(path.dirname(fileURLToPath(import.meta.url)), "exit-with-parent.cjs");
+const EXIT_WITH_PARENT = path.join(
+  path.dirname(fileURLToPath(import.meta.url)),
+  "exit-with-parent.cjs",
+);
 
 /** How long a child may take to finish its work after SIGTERM before it is killed. */
 export const CHILD_STOP_GRACE_MS = 15_000;
@@ -20,7 +23,12 @@ export interface ManagedChild {
 }
 
 /** Starts `args` with node, prefixing each output line with the child's name. */
-export function startChild(name: string, args: string[], env: NodeJS.ProcessEnv, cwd: string): ManagedChild {
+export function startChild(
+  name: string,
+  args: string[],
+  env: NodeJS.ProcessEnv,
+  cwd: string,
+): ManagedChild {
   const child = spawn(process.execPath, ["--require", EXIT_WITH_PARENT, ...args], {
     cwd,
     env: { ...env, TEARDOWN_EXIT_WITH_PARENT: "1" },

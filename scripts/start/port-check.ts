@@ -6,7 +6,11 @@ export function portProblem(port: number, host = "0.0.0.0"): Promise<string | nu
   return new Promise((resolve) => {
     const srv = net.createServer();
     srv.once("error", (err: NodeJS.ErrnoException) =>
-      resolve(err.code === "EADDRINUSE" ? `port ${port} is already in use (set PORT to another port, or stop what uses it)` : `cannot listen on port ${port}: ${err.message}`),
+      resolve(
+        err.code === "EADDRINUSE"
+          ? `port ${port} is already in use (set PORT to another port, or stop what uses it)`
+          : `cannot listen on port ${port}: ${err.message}`,
+      ),
     );
     srv.listen(port, host, () => srv.close(() => resolve(null)));
   });

@@ -23,7 +23,10 @@ function mainsCircuit(sections: number): TeardownRecord {
     part("D2", "diode", { anode: "N", cathode: "P" }),
     part("D3", "diode", { anode: "M", cathode: "B" }),
     part("D4", "diode", { anode: "M", cathode: "N" }),
-    part("C2", "capacitor", { plus: "P", minus: "M" }, 220e-6, { polarised: true, rating: { volts: 35 } }),
+    part("C2", "capacitor", { plus: "P", minus: "M" }, 220e-6, {
+      polarised: true,
+      rating: { volts: 35 },
+    }),
     part("Z1", "zener", { anode: "M", cathode: "P" }, 24),
     part("RA", "resistor", ["P", "G"], 22_000),
     part("RB", "resistor", ["G", "M"], 4_700),
@@ -43,13 +46,43 @@ function mainsCircuit(sections: number): TeardownRecord {
   return {
     ...rec,
     measurements: [
-      { what: "input.current_rms", value: 0.03, between: null, part: null, supply, instrument: null, uncertainty: { relative: 0.03 } },
-      { what: "voltage.dc", between: ["P", "M"], value: 23.5, part: null, supply, instrument: null, uncertainty: { absolute: 0.3 } },
+      {
+        what: "input.current_rms",
+        value: 0.03,
+        between: null,
+        part: null,
+        supply,
+        instrument: null,
+        uncertainty: { relative: 0.03 },
+      },
+      {
+        what: "voltage.dc",
+        between: ["P", "M"],
+        value: 23.5,
+        part: null,
+        supply,
+        instrument: null,
+        uncertainty: { absolute: 0.3 },
+      },
     ],
     board: {
       spacings: [
-        { between: ["L1", "N"], creepage_mm: 2.0, clearance_mm: 1.8, slot: false, material_group: "IIIa", pollution_degree: 2 },
-        { between: ["A", "P"], creepage_mm: 1.5, clearance_mm: 1.5, slot: false, material_group: "IIIa", pollution_degree: 2 },
+        {
+          between: ["L1", "N"],
+          creepage_mm: 2.0,
+          clearance_mm: 1.8,
+          slot: false,
+          material_group: "IIIa",
+          pollution_degree: 2,
+        },
+        {
+          between: ["A", "P"],
+          creepage_mm: 1.5,
+          clearance_mm: 1.5,
+          slot: false,
+          material_group: "IIIa",
+          pollution_degree: 2,
+        },
       ],
     },
   };
@@ -62,7 +95,8 @@ function median(xs: number[]): number {
 
 const rec = mainsCircuit(4);
 const analysis = analyzeCircuit(rec, {});
-if (!analysis.ok) throw new Error(`analysis failed: ${analysis.error.code} ${analysis.error.message}`);
+if (!analysis.ok)
+  throw new Error(`analysis failed: ${analysis.error.code} ${analysis.error.message}`);
 const times: number[] = [];
 let flags = 0;
 for (let k = 0; k < RUNS; k++) {

@@ -27,6 +27,12 @@ for (let i = 0; i < TIMED_RUNS; i++) {
 }
 times.sort((a, b) => a - b);
 const median = quantile(times, 0.5);
-console.log(`layoutSchematic, ${record.parts.length} parts, ${TIMED_RUNS} runs after ${WARM_UP_RUNS} warm-up:`);
-console.log(`  median ${median.toFixed(1)} ms, p95 ${quantile(times, 0.95).toFixed(1)} ms, min ${times[0]!.toFixed(1)} ms`);
-console.log(`  target median < ${TARGET_MEDIAN_MS} ms: ${median < TARGET_MEDIAN_MS ? "met" : "NOT met"}`);
+console.log(
+  `layoutSchematic, ${record.parts.length} parts, ${TIMED_RUNS} runs after ${WARM_UP_RUNS} warm-up:`,
+);
+console.log(
+  `  median ${median.toFixed(1)} ms, p95 ${quantile(times, 0.95).toFixed(1)} ms, min ${times[0]!.toFixed(1)} ms`,
+);
+console.log(
+  `  target median < ${TARGET_MEDIAN_MS} ms: ${median < TARGET_MEDIAN_MS ? "met" : "NOT met"}`,
+);

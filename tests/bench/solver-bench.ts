@@ -51,11 +51,21 @@ function median(xs: number[]): number {
 }
 
 /** Median milliseconds of `runs` analyses, or the failure's code. */
-function time(rec: TeardownRecord, lu: "sparse" | "dense", runs: number, minSupply: boolean): number | string {
+function time(
+  rec: TeardownRecord,
+  lu: "sparse" | "dense",
+  runs: number,
+  minSupply: boolean,
+): number | string {
   const times: number[] = [];
   for (let k = 0; k < runs; k++) {
     const t0 = performance.now();
-    const r = analyzeCircuit(rec, { lu, minSupply, now: () => performance.now(), budgetMs: 120_000 });
+    const r = analyzeCircuit(rec, {
+      lu,
+      minSupply,
+      now: () => performance.now(),
+      budgetMs: 120_000,
+    });
     times.push(performance.now() - t0);
     if (!r.ok) return `${r.error.code} after ${times[times.length - 1]!.toFixed(0)} ms`;
   }
@@ -73,7 +83,8 @@ for (const [label, sections, target] of [
   for (const minSupply of [true, false]) {
     const sparse = time(rec, "sparse", runs, minSupply);
     const dense = time(rec, "dense", runs, minSupply);
-    const ratio = typeof sparse === "number" && typeof dense === "number" ? (dense / sparse).toFixed(2) : "n/a";
+    const ratio =
+      typeof sparse === "number" && typeof dense === "number" ? (dense / sparse).toFixed(2) : "n/a";
     process.stdout.write(
       `${label} (${rec.parts.length} parts), ${minSupply ? "full analysis" : "without the lowest-firing-supply bisection"}: ` +
         `sparse ${show(sparse)} (target < ${target} ms), dense ${show(dense)}, dense/sparse ${ratio}\n`,

@@ -32,7 +32,9 @@ describe("the engine import rule", () => {
   });
 
   it("accepts an import of a sibling engine stage", async () => {
-    expect(await problems(ENGINE_FILE, 'import { KINDS } from "./kinds.js";\nexport const x = KINDS;\n')).toEqual([]);
+    expect(
+      await problems(ENGINE_FILE, 'import { KINDS } from "./kinds.js";\nexport const x = KINDS;\n'),
+    ).toEqual([]);
   });
 
   it("lets the worker import the database package", async () => {

@@ -33,7 +33,10 @@ describe("the closed-form RC discharge (reference-values.md §1, DERIVED vectors
   it("takes 0.47 µF through 1 MΩ from 325.27 V to 38.74 V at 1 s: fails 34 V, passes τ ≤ 1 s", () => {
     const v = rcDischargeVoltage(V0, 1e6, 0.47e-6, 1);
     expect(v).toBeCloseTo(38.74, 2);
-    expect(dischargeVerdicts(v, 0.47)).toEqual({ exceeds_pin_limit: true, exceeds_type_a_tau: false });
+    expect(dischargeVerdicts(v, 0.47)).toEqual({
+      exceeds_pin_limit: true,
+      exceeds_type_a_tau: false,
+    });
   });
 
   it("gives τ_max = 0.44281 s for 34 V at 1 s from 325.27 V", () => {
@@ -51,7 +54,10 @@ describe("the closed-form RC discharge (reference-values.md §1, DERIVED vectors
   });
 
   it("recovers RC as the equivalent time constant of an RC decay", () => {
-    expect(equivalentTimeConstant(V0, rcDischargeVoltage(V0, 2.2e6, 0.33e-6, 1), 1)).toBeCloseTo(0.726, 9);
+    expect(equivalentTimeConstant(V0, rcDischargeVoltage(V0, 2.2e6, 0.33e-6, 1), 1)).toBeCloseTo(
+      0.726,
+      9,
+    );
   });
 });
 

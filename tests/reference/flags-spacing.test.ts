@@ -2,7 +2,12 @@
  * IEC 60664-1 spacing figures against reference-values.md §2 (each value's mark beside it).
  */
 import { describe, expect, it } from "vitest";
-import { clearanceRequired, creepageRequired, nextImpulseStep, ratedImpulseOvcII } from "@teardown/engine";
+import {
+  clearanceRequired,
+  creepageRequired,
+  nextImpulseStep,
+  ratedImpulseOvcII,
+} from "@teardown/engine";
 
 describe("Table F.4 creepage (FOUND, Wago reproduction of DIN EN 60664-1)", () => {
   it("asks 1.0 mm at 250 V on printed wiring, pollution degree 2", () => {

@@ -27,12 +27,14 @@ describe("IEC 60062 resistance code", () => {
     expect(ohms("1K3")).toBe(1300);
   });
   it("47K3 is 47.3 kΩ (FOUND, RKM code page)", () => expect(ohms("47K3")).toBe(47300));
-  it("2M2 is 2 200 000 Ω (record-format.md; 4M7 form FOUND)", () => expect(ohms("2M2")).toBe(2_200_000));
+  it("2M2 is 2 200 000 Ω (record-format.md; 4M7 form FOUND)", () =>
+    expect(ohms("2M2")).toBe(2_200_000));
   it("0R1 is 0.1 Ω (common practice; the standard form R10 too)", () => {
     expect(ohms("0R1")).toBe(0.1);
     expect(ohms("R10")).toBe(0.1);
   });
-  it("4L7 is 4.7 mΩ (L FOUND, tickerdossier DIN 40825 page)", () => expect(ohms("4L7")).toBe(0.0047));
+  it("4L7 is 4.7 mΩ (L FOUND, tickerdossier DIN 40825 page)", () =>
+    expect(ohms("4L7")).toBe(0.0047));
   it("1G5 is 1.5 GΩ (G FOUND)", () => expect(ohms("1G5")).toBe(1.5e9));
 });
 
@@ -46,7 +48,8 @@ describe("IEC 60062 capacitance code", () => {
     expect(farads("1µ0")).toBe(1e-6);
     expect(farads("4u7")).toBe(4.7e-6);
   });
-  it("2m2 is 2.2 mF: lowercase m is milli, unlike the resistor's M (FOUND)", () => expect(farads("2m2")).toBe(2.2e-3));
+  it("2m2 is 2.2 mF: lowercase m is milli, unlike the resistor's M (FOUND)", () =>
+    expect(farads("2m2")).toBe(2.2e-3));
 });
 
 describe("IEC 60062 tolerance letters", () => {

@@ -6,7 +6,8 @@
 import { describe, expect, it } from "vitest";
 import { E_SERIES, eSeriesOf, isInSeries } from "@teardown/engine";
 
-const asHundredths = (values: readonly number[]): number[] => values.map((v) => Math.round(v * 100));
+const asHundredths = (values: readonly number[]): number[] =>
+  values.map((v) => Math.round(v * 100));
 
 describe("IEC 60063 series tables", () => {
   it("E6 is 1.0 1.5 2.2 3.3 4.7 6.8 (FOUND, qsl.net page)", () => {
@@ -19,7 +20,8 @@ describe("IEC 60063 series tables", () => {
 
   it("E24 is the published 24 values, with 4.3 and not 4.2 (FOUND, qsl.net page)", () => {
     expect(E_SERIES.E24).toEqual([
-      1.0, 1.1, 1.2, 1.3, 1.5, 1.6, 1.8, 2.0, 2.2, 2.4, 2.7, 3.0, 3.3, 3.6, 3.9, 4.3, 4.7, 5.1, 5.6, 6.2, 6.8, 7.5, 8.2, 9.1,
+      1.0, 1.1, 1.2, 1.3, 1.5, 1.6, 1.8, 2.0, 2.2, 2.4, 2.7, 3.0, 3.3, 3.6, 3.9, 4.3, 4.7, 5.1, 5.6,
+      6.2, 6.8, 7.5, 8.2, 9.1,
     ]);
   });
 
@@ -45,7 +47,9 @@ describe("IEC 60063 series tables", () => {
   });
 
   it("E96 equals round(100·10^(i/96)) for i = 0..95 (DERIVED, reference-values.md §3)", () => {
-    expect(asHundredths(E_SERIES.E96)).toEqual(Array.from({ length: 96 }, (_, i) => Math.round(100 * 10 ** (i / 96))));
+    expect(asHundredths(E_SERIES.E96)).toEqual(
+      Array.from({ length: 96 }, (_, i) => Math.round(100 * 10 ** (i / 96))),
+    );
   });
 
   it("E192 holds 920, not the computed 919 (MEMORY, reference-values.md §3), and every other E96 value", () => {

@@ -31,7 +31,12 @@ function randomNetwork(seed: number): Part[] {
     id++;
     if (kind < 0.4) parts.push(part(`R${id}`, "resistor", [a, b], logUniform(r, 10, 1e5)));
     else if (kind < 0.7) parts.push(part(`C${id}`, "capacitor", [a, b], logUniform(r, 1e-9, 1e-5)));
-    else parts.push(part(`L${id}`, "inductor", [a, b], logUniform(r, 1e-3, 1), { model: { r: logUniform(r, 0.1, 100) } }));
+    else
+      parts.push(
+        part(`L${id}`, "inductor", [a, b], logUniform(r, 1e-3, 1), {
+          model: { r: logUniform(r, 0.1, 100) },
+        }),
+      );
   };
   // A spanning chain keeps every net connected to L and N, then random extra branches.
   for (let i = 2; i < nets.length; i++) add(nets[i]!, i === 2 ? "L" : nets[Math.floor(r() * i)]!);
@@ -54,10 +59,14 @@ describe("AC phasors against mathjs on random RLC networks", () => {
       const res = solveAcPhasor(record(parts));
       if (!res.ok) throw new Error(`seed ${seed}: ${res.error.message}`);
       // Independent nodal analysis: unknowns are the nets other than L (known) and N (reference).
-      const unknown = [...new Set(parts.flatMap((p) => Object.values(p.pins)))].filter((n) => n !== "L" && n !== "N").sort();
+      const unknown = [...new Set(parts.flatMap((p) => Object.values(p.pins)))]
+        .filter((n) => n !== "L" && n !== "N")
+        .sort();
       const idx = new Map(unknown.map((n, i) => [n, i]));
       const m = unknown.length;
-      const y: math.Complex[][] = Array.from({ length: m }, () => Array.from({ length: m }, () => math.complex(0, 0)));
+      const y: math.Complex[][] = Array.from({ length: m }, () =>
+        Array.from({ length: m }, () => math.complex(0, 0)),
+      );
       const b: math.Complex[] = Array.from({ length: m }, () => math.complex(0, 0));
       // The engine's reported gmin from every net to the reference is part of its model.
       for (let i = 0; i < m; i++) y[i]![i] = math.complex(GMIN_SIEMENS, 0);
@@ -78,11 +87,18 @@ describe("AC phasors against mathjs on random RLC networks", () => {
           y[ib]![ia] = math.subtract(y[ib]![ia]!, adm) as math.Complex;
         }
         // A branch to the known line voltage moves Y·V_L to the right-hand side.
-        if (ia !== undefined && nb === "L") b[ia] = math.add(b[ia]!, math.multiply(adm, vpk)) as math.Complex;
-        if (ib !== undefined && na === "L") b[ib] = math.add(b[ib]!, math.multiply(adm, vpk)) as math.Complex;
+        if (ia !== undefined && nb === "L")
+          b[ia] = math.add(b[ia]!, math.multiply(adm, vpk)) as math.Complex;
+        if (ib !== undefined && na === "L")
+          b[ib] = math.add(b[ib]!, math.multiply(adm, vpk)) as math.Complex;
       }
       const sol = math.lusolve(y, b) as unknown as math.Complex[][];
-      const scale = Math.max(vpk, ...sol.map((row) => math.abs(math.complex(row[0]! as unknown as math.Complex)) as unknown as number));
+      const scale = Math.max(
+        vpk,
+        ...sol.map(
+          (row) => math.abs(math.complex(row[0]! as unknown as math.Complex)) as unknown as number,
+        ),
+      );
       unknown.forEach((n, i) => {
         const ref = math.complex(sol[i]![0]! as unknown as math.Complex);
         const got = res.value.nets[n]!;

@@ -6,7 +6,8 @@ import { describe, expect, it } from "vitest";
 import { analyzeCircuit, solveAcPhasor } from "@teardown/engine";
 import { dropperIntoResistor } from "../engine/solver/reference-circuits.js";
 
-const closedForm = (vrms: number, hz: number, c: number, r: number) => vrms / Math.hypot(r, 1 / (2 * Math.PI * hz * c));
+const closedForm = (vrms: number, hz: number, c: number, r: number) =>
+  vrms / Math.hypot(r, 1 / (2 * Math.PI * hz * c));
 
 describe("capacitive dropper into a resistor", () => {
   it("draws V/|R + 1/(jωC)| in the time domain at 230 V 50 Hz", () => {
@@ -29,10 +30,15 @@ describe("capacitive dropper into a resistor", () => {
   });
 
   it("draws the closed-form current at 120 V 60 Hz as a what-if", () => {
-    const r = analyzeCircuit(dropperIntoResistor(330e-9, 1000), { supply: { vrms: 120, hz: 60 }, minSupply: false });
+    const r = analyzeCircuit(dropperIntoResistor(330e-9, 1000), {
+      supply: { vrms: 120, hz: 60 },
+      minSupply: false,
+    });
     if (!r.ok) throw new Error(r.error.message);
     // Source: closed form.
-    expect(Math.abs(r.value.input.current_rms / closedForm(120, 60, 330e-9, 1000) - 1)).toBeLessThan(1e-3);
+    expect(
+      Math.abs(r.value.input.current_rms / closedForm(120, 60, 330e-9, 1000) - 1),
+    ).toBeLessThan(1e-3);
     expect(r.value.supply).toEqual({ vrms: 120, hz: 60 });
   });
 
@@ -41,8 +47,13 @@ describe("capacitive dropper into a resistor", () => {
     if (!r.ok) throw new Error(r.error.message);
     const w = 2 * Math.PI * 50;
     // Source: closed form.
-    expect(Math.abs(r.value.input_current.rms / closedForm(230, 50, 330e-9, 1000) - 1)).toBeLessThan(1e-6);
-    expect(r.value.input_current.phase_deg).toBeCloseTo((Math.atan(1 / (w * 1000 * 330e-9)) * 180) / Math.PI, 4);
+    expect(
+      Math.abs(r.value.input_current.rms / closedForm(230, 50, 330e-9, 1000) - 1),
+    ).toBeLessThan(1e-6);
+    expect(r.value.input_current.phase_deg).toBeCloseTo(
+      (Math.atan(1 / (w * 1000 * 330e-9)) * 180) / Math.PI,
+      4,
+    );
     expect(r.value.nets.A!.rms).toBeCloseTo(closedForm(230, 50, 330e-9, 1000) * 1000, 6);
   });
 });

@@ -14,7 +14,9 @@ describe("energy balance and KCL on the reference circuits", () => {
       if (!r.ok) throw new Error(r.error.message);
       const sum = Object.values(r.value.parts).reduce((a, p) => a + p.power, 0);
       // Source: conservation of energy (Tellegen's theorem), a law.
-      expect(Math.abs(sum - r.value.input.power)).toBeLessThan(0.01 * Math.abs(r.value.input.power) + 1e-9);
+      expect(Math.abs(sum - r.value.input.power)).toBeLessThan(
+        0.01 * Math.abs(r.value.input.power) + 1e-9,
+      );
       expect(r.value.input.power).toBeGreaterThan(0);
     });
 
@@ -30,7 +32,9 @@ describe("energy balance and KCL on the reference circuits", () => {
       if (!r.ok) throw new Error(r.error.message);
       // Source: closed form, a capacitor's mean power over a period of a periodic state is zero.
       for (const p of rec.parts.filter((q) => q.kind === "capacitor" || q.kind === "inductor")) {
-        expect(Math.abs(r.value.parts[p.ref]!.power)).toBeLessThan(0.01 * Math.max(r.value.input.power, 1e-3));
+        expect(Math.abs(r.value.parts[p.ref]!.power)).toBeLessThan(
+          0.01 * Math.max(r.value.input.power, 1e-3),
+        );
       }
     });
   }

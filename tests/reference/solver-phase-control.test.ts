@@ -7,10 +7,12 @@ import { describe, expect, it } from "vitest";
 import { analyzeCircuit } from "@teardown/engine";
 import { phaseControlled } from "../engine/solver/reference-circuits.js";
 
-const fullWaveRms = (vs: number, alpha: number) => vs * Math.sqrt(Math.max(0, 1 - alpha / Math.PI + Math.sin(2 * alpha) / (2 * Math.PI)));
+const fullWaveRms = (vs: number, alpha: number) =>
+  vs * Math.sqrt(Math.max(0, 1 - alpha / Math.PI + Math.sin(2 * alpha) / (2 * Math.PI)));
 
 /** Upper divider resistor for a wanted angle, from the divider's Thevenin equivalent (diode drops ignored). */
-const raFor = (deg: number, rb = 1000, vgt = 0.6, igt = 200e-6) => (230 * Math.SQRT2 * Math.sin((deg * Math.PI) / 180) - vgt) / (vgt / rb + igt);
+const raFor = (deg: number, rb = 1000, vgt = 0.6, igt = 200e-6) =>
+  (230 * Math.SQRT2 * Math.sin((deg * Math.PI) / 180) - vgt) / (vgt / rb + igt);
 
 describe("full-wave phase-controlled rectifier, resistive load", () => {
   it("uses a formula that matches the DERIVED vectors of reference-values.md §6b", () => {

@@ -13,7 +13,11 @@ function ripple(c: number, rl: number) {
   const m = r.value.waveforms.series["net.M"]!;
   const v = p.map((x, k) => x - m[k]!);
   const load = (r.value.nets.P!.dc - r.value.nets.M!.dc) / rl;
-  return { measured: Math.max(...v) - Math.min(...v), estimate: load / (2 * 50 * c), dc: r.value.nets.P!.dc - r.value.nets.M!.dc };
+  return {
+    measured: Math.max(...v) - Math.min(...v),
+    estimate: load / (2 * 50 * c),
+    dc: r.value.nets.P!.dc - r.value.nets.M!.dc,
+  };
 }
 
 describe("full-wave rectifier with a smoothing capacitor", () => {

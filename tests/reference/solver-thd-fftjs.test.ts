@@ -5,7 +5,13 @@
  */
 import { describe, expect, it } from "vitest";
 import FFT from "fft.js";
-import { FFT_POINTS, harmonicAmplitudes, resampleUniform, solveCircuit, thdFromSamples } from "@teardown/engine";
+import {
+  FFT_POINTS,
+  harmonicAmplitudes,
+  resampleUniform,
+  solveCircuit,
+  thdFromSamples,
+} from "@teardown/engine";
 import { smoothedRectifier, phaseControlled } from "../engine/solver/reference-circuits.js";
 
 function independentThd(samples: Float64Array): number {
@@ -46,14 +52,15 @@ describe("THD of the line current", () => {
 
   it("matches fft.js harmonic by harmonic on a random signal", () => {
     let seed = 7;
-    const rnd = () => ((seed = (seed * 1103515245 + 12345) % 2147483648) / 2147483648) - 0.5;
+    const rnd = () => (seed = (seed * 1103515245 + 12345) % 2147483648) / 2147483648 - 0.5;
     const x = Float64Array.from({ length: 256 }, rnd);
     const ours = harmonicAmplitudes(x);
     const f = new FFT(256);
     const out = f.createComplexArray() as number[];
     f.realTransform(out, Array.from(x));
     // Source: the fft.js package.
-    for (let h = 1; h < 128; h++) expect(ours[h]!).toBeCloseTo((2 * Math.hypot(out[2 * h]!, out[2 * h + 1]!)) / 256, 12);
+    for (let h = 1; h < 128; h++)
+      expect(ours[h]!).toBeCloseTo((2 * Math.hypot(out[2 * h]!, out[2 * h + 1]!)) / 256, 12);
   });
 
   it("gives a square wave's THD of sqrt(π²/8 − 1) within 0.5%", () => {

@@ -18,7 +18,8 @@ const vth = vgt + igt * ((ra * rb) / (ra + rb));
 const vAtFiring = vth / k;
 const iDivider = (vAtFiring - vgt) / ra;
 // Source: Shockley diode law with the record's own model (closed form).
-const vDiode = diode.n * THERMAL_VOLTAGE_V * Math.log(iDivider / diode.is + 1) + iDivider * diode.rs;
+const vDiode =
+  diode.n * THERMAL_VOLTAGE_V * Math.log(iDivider / diode.is + 1) + iDivider * diode.rs;
 const vpk = 230 * Math.SQRT2;
 
 describe("thyristor fired by a resistive divider from rectified mains", () => {
@@ -28,12 +29,16 @@ describe("thyristor fired by a resistive divider from rectified mains", () => {
 
   it("fires at asin(Vth/(k·Vpk)) within 1°", () => {
     // Source: closed form (divider Thevenin equivalent), diode drops ignored as in the formula.
-    expect(Math.abs(trig.angle_deg! - (Math.asin(vth / (k * vpk)) * 180) / Math.PI)).toBeLessThan(1);
+    expect(Math.abs(trig.angle_deg! - (Math.asin(vth / (k * vpk)) * 180) / Math.PI)).toBeLessThan(
+      1,
+    );
   });
 
   it("fires within 0.05° of the same closed form once the two bridge diode drops are added", () => {
     // Source: closed form plus the Shockley drop of two bridge diodes at the divider current.
-    expect(Math.abs(trig.angle_deg! - (Math.asin((vAtFiring + 2 * vDiode) / vpk) * 180) / Math.PI)).toBeLessThan(0.05);
+    expect(
+      Math.abs(trig.angle_deg! - (Math.asin((vAtFiring + 2 * vDiode) / vpk) * 180) / Math.PI),
+    ).toBeLessThan(0.05);
   });
 
   it("fires in the negative half-cycle at the same angle (a bridge rectifies both halves)", () => {

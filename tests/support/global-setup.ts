@@ -43,7 +43,9 @@ export default async function setup(project: TestProject): Promise<() => Promise
     url = LOCAL_SERVER_URL;
     kind = "local";
   } else {
-    embedded = await startEmbeddedServer({ dataDir: path.join(projectRoot(), ".data", "test-postgres") });
+    embedded = await startEmbeddedServer({
+      dataDir: path.join(projectRoot(), ".data", "test-postgres"),
+    });
     url = embedded.adminUrl;
     kind = "embedded";
   }

@@ -35,13 +35,18 @@ async function admin<T>(fn: (c: pg.Client) => Promise<T>): Promise<T> {
 }
 
 /** Creates an empty database (no migrations) and returns its name and URL. */
-export async function createEmptyDatabase(): Promise<{ name: string; url: string; drop(): Promise<void> }> {
+export async function createEmptyDatabase(): Promise<{
+  name: string;
+  url: string;
+  drop(): Promise<void>;
+}> {
   const name = `tl_test_${randomBytes(6).toString("hex")}`;
   await admin((c) => c.query(`create database ${name}`));
   return {
     name,
     url: urlForDatabase(name),
-    drop: () => admin((c) => c.query(`drop database if exists ${name} with (force)`)).then(() => undefined),
+    drop: () =>
+      admin((c) => c.query(`drop database if exists ${name} with (force)`)).then(() => undefined),
   };
 }
 

@@ -12,26 +12,36 @@ export interface WorkerProcess {
   logs: Array<Record<string, unknown>>;
   stderr: () => string;
   exited: Promise<{ code: number | null; signal: NodeJS.Signals | null }>;
-  waitForLog(pred: (line: Record<string, unknown>) => boolean, ms?: number): Promise<Record<string, unknown>>;
+  waitForLog(
+    pred: (line: Record<string, unknown>) => boolean,
+    ms?: number,
+  ): Promise<Record<string, unknown>>;
 }
 
 /** Starts one worker process; `env` adds to (and overrides) the test defaults. */
-export function startWorkerProcess(databaseUrl: string, env: Record<string, string> = {}): WorkerProcess {
+export function startWorkerProcess(
+  databaseUrl: string,
+  env: Record<string, string> = {},
+): WorkerProcess {
   const root = projectRoot();
-  const child = spawn(process.execPath, ["--import", "tsx", path.join(root, "analysis-worker", "src", "main.ts")], {
-    cwd: root,
-    env: {
-      ...process.env,
-      DATABASE_URL: databaseUrl,
-      WORKER_CONCURRENCY: "2",
-      JOB_EXPIRE_SECONDS: "30",
-      QUEUE_SUPERVISE_SECONDS: "2",
-      QUEUE_POLL_SECONDS: "0.5",
-      LOG_LEVEL: "info",
-      ...env,
+  const child = spawn(
+    process.execPath,
+    ["--import", "tsx", path.join(root, "analysis-worker", "src", "main.ts")],
+    {
+      cwd: root,
+      env: {
+        ...process.env,
+        DATABASE_URL: databaseUrl,
+        WORKER_CONCURRENCY: "2",
+        JOB_EXPIRE_SECONDS: "30",
+        QUEUE_SUPERVISE_SECONDS: "2",
+        QUEUE_POLL_SECONDS: "0.5",
+        LOG_LEVEL: "info",
+        ...env,
+      },
+      stdio: ["ignore", "pipe", "pipe"],
     },
-    stdio: ["ignore", "pipe", "pipe"],
-  });
+  );
   const logs: Array<Record<string, unknown>> = [];
   let buf = "";
   let err = "";
@@ -48,7 +58,9 @@ export function startWorkerProcess(databaseUrl: string, env: Record<string, stri
     }
   });
   child.stderr!.on("data", (c: Buffer) => (err += c.toString()));
-  const exited = new Promise<{ code: number | null; signal: NodeJS.Signals | null }>((r) => child.on("exit", (code, signal) => r({ code, signal })));
+  const exited = new Promise<{ code: number | null; signal: NodeJS.Signals | null }>((r) =>
+    child.on("exit", (code, signal) => r({ code, signal })),
+  );
   return {
     child,
     logs,
@@ -59,8 +71,12 @@ export function startWorkerProcess(databaseUrl: string, env: Record<string, stri
       for (;;) {
         const hit = logs.find(pred);
         if (hit) return hit;
-        if (Date.now() > end) throw new Error(`no matching worker log line within ${ms} ms; stderr: ${err.slice(-500)}`);
-        if (child.exitCode !== null) throw new Error(`worker exited (${child.exitCode}); stderr: ${err.slice(-1000)}`);
+        if (Date.now() > end)
+          throw new Error(
+            `no matching worker log line within ${ms} ms; stderr: ${err.slice(-500)}`,
+          );
+        if (child.exitCode !== null)
+          throw new Error(`worker exited (${child.exitCode}); stderr: ${err.slice(-1000)}`);
         await new Promise((r) => setTimeout(r, 100));
       }
     },

@@ -18,7 +18,10 @@ const globalForDb = globalThis as unknown as { teardownDb?: WebDatabase };
 export function database(): WebDatabase {
   if (globalForDb.teardownDb) return globalForDb.teardownDb;
   const url = process.env.DATABASE_URL;
-  if (!url) throw new Error("DATABASE_URL is not set: start the app with `npm start`, or set it to a Postgres URL");
+  if (!url)
+    throw new Error(
+      "DATABASE_URL is not set: start the app with `npm start`, or set it to a Postgres URL",
+    );
   const pool = createPool(url, Number(process.env.WEB_POOL_SIZE ?? 10));
   globalForDb.teardownDb = { db: drizzle(pool, { schema }), pool, url };
   return globalForDb.teardownDb;

@@ -11,7 +11,9 @@ export interface QueueHealth {
 
 export async function queueHealth(): Promise<QueueHealth> {
   const { pool } = database();
-  const depth = await pool.query<{ n: string }>(`select count(*) as n from analyses where state in ('queued', 'running')`);
+  const depth = await pool.query<{ n: string }>(
+    `select count(*) as n from analyses where state in ('queued', 'running')`,
+  );
   const recent = await pool.query<{ ms: number }>(
     `select extract(epoch from (finished_at - started_at)) * 1000 as ms from analyses
       where state in ('done', 'failed') and started_at is not null and finished_at is not null

@@ -16,7 +16,8 @@ import { analyzeCircuit } from "./solver/analyze-circuit.js";
 import { selectStoredWaveforms } from "./stored-waveforms.js";
 import { assessRisks } from "./flags/assess-risks.js";
 
-export type AnalysisStage = "validate" | "check" | "blocks" | "solve" | "flags" | "fingerprint" | "layout";
+export type AnalysisStage =
+  "validate" | "check" | "blocks" | "solve" | "flags" | "fingerprint" | "layout";
 
 export interface AnalysisOptions {
   /** A clock for stage timings and budgets (the engine never reads the clock itself). */
@@ -41,7 +42,10 @@ export type AnalysisOutcome =
   | { ok: false; stage: AnalysisStage; code: string; message: string; errors: InputError[] };
 
 /** Analyses a record given as its stored JSON document (record format version 1). */
-export async function analyzeStoredRecord(doc: unknown, opts: AnalysisOptions = {}): Promise<AnalysisOutcome> {
+export async function analyzeStoredRecord(
+  doc: unknown,
+  opts: AnalysisOptions = {},
+): Promise<AnalysisOutcome> {
   const now = opts.now ?? (() => 0);
   const timings: Partial<Record<AnalysisStage, number>> = {};
   const timed = <T>(stage: AnalysisStage, fn: () => T): T => {
@@ -50,19 +54,31 @@ export async function analyzeStoredRecord(doc: unknown, opts: AnalysisOptions = 
     timings[stage] = now() - t0;
     return out;
   };
-  const parsed = timed("validate", () => parseRecord(JSON.stringify(doc), { filename: "revision.json" }));
+  const parsed = timed("validate", () =>
+    parseRecord(JSON.stringify(doc), { filename: "revision.json" }),
+  );
   if (!parsed.ok) {
     const first = parsed.errors[0];
     const message = `${parsed.errors.length} error(s) in the record; first: ${first ? `${first.path}: ${first.message}` : "unknown"}`;
     return { ok: false, stage: "validate", code: "invalid-record", message, errors: parsed.errors };
   }
-  return analyzeRecord(parsed.record, { now, timings, supply: opts.supply, budgetMs: opts.budgetMs });
+  return analyzeRecord(parsed.record, {
+    now,
+    timings,
+    supply: opts.supply,
+    budgetMs: opts.budgetMs,
+  });
 }
 
 /** Analyses a validated record. */
 export async function analyzeRecord(
   record: TeardownRecord,
-  opts: { now: () => number; timings?: Partial<Record<AnalysisStage, number>>; supply?: Supply; budgetMs?: number },
+  opts: {
+    now: () => number;
+    timings?: Partial<Record<AnalysisStage, number>>;
+    supply?: Supply;
+    budgetMs?: number;
+  },
 ): Promise<AnalysisOutcome> {
   const { now } = opts;
   const timings = opts.timings ?? {};
@@ -78,17 +94,29 @@ export async function analyzeRecord(
   const t0 = now();
   const layout = await layoutSchematic(record);
   timings.layout = now() - t0;
-  if (!layout.ok) return { ok: false, stage: "layout", code: layout.code, message: layout.message, errors: [] };
+  if (!layout.ok)
+    return { ok: false, stage: "layout", code: layout.code, message: layout.message, errors: [] };
   const supply = opts.supply ?? record.device.rated_supply;
   const result: Record<string, unknown> = { engine: ENGINE_VERSION, supply };
-  const hasSupply = Object.values(record.nets).some((n) => n.role === "line") && Object.values(record.nets).some((n) => n.role === "neutral");
+  const hasSupply =
+    Object.values(record.nets).some((n) => n.role === "line") &&
+    Object.values(record.nets).some((n) => n.role === "neutral");
   if (hasSupply) {
     const t1 = now();
     const solved = analyzeCircuit(record, { supply, now, budgetMs: opts.budgetMs });
     timings.solve = now() - t1;
     if (!solved.ok) {
-      const where = [...solved.error.where.nets.map((n) => `net ${n}`), ...solved.error.where.parts.map((p) => `part ${p}`)].join(", ");
-      return { ok: false, stage: "solve", code: solved.error.code, message: where ? `${solved.error.message} (${where})` : solved.error.message, errors: [] };
+      const where = [
+        ...solved.error.where.nets.map((n) => `net ${n}`),
+        ...solved.error.where.parts.map((p) => `part ${p}`),
+      ].join(", ");
+      return {
+        ok: false,
+        stage: "solve",
+        code: solved.error.code,
+        message: where ? `${solved.error.message} (${where})` : solved.error.message,
+        errors: [],
+      };
     }
     const a = solved.value;
     const t2 = now();
@@ -108,7 +136,10 @@ export async function analyzeRecord(
     });
   } else {
     // A board fragment with no declared line and neutral: documented, drawn, not solved.
-    result.solver = { skipped: "the record declares no net with role line and one with role neutral, so there is no supply to solve against" };
+    result.solver = {
+      skipped:
+        "the record declares no net with role line and one with role neutral, so there is no supply to solve against",
+    };
   }
   result.flags ??= [];
   Object.assign(result, {
@@ -120,13 +151,20 @@ export async function analyzeRecord(
   });
   return {
     ok: true,
-    output: { result, layout: layout.layout, search: searchColumnsFor(record, result, features), timings },
+    output: {
+      result,
+      layout: layout.layout,
+      search: searchColumnsFor(record, result, features),
+      timings,
+    },
   };
 }
 
 /** Each resistor, capacitor, inductor and zener value's smallest IEC 60063 series, or null. */
 function seriesMembership(record: TeardownRecord): Record<string, string | null> {
   const out: Record<string, string | null> = {};
-  for (const p of record.parts) if (p.value !== null && ["resistor", "capacitor", "inductor", "zener"].includes(p.kind)) out[p.ref] = eSeriesOf(p.value, p.kind);
+  for (const p of record.parts)
+    if (p.value !== null && ["resistor", "capacitor", "inductor", "zener"].includes(p.kind))
+      out[p.ref] = eSeriesOf(p.value, p.kind);
   return out;
 }

@@ -14,14 +14,24 @@ export interface SearchColumns {
 }
 
 /** The search columns of a record and its analysis result. */
-export function searchColumnsFor(record: TeardownRecord, result: Record<string, unknown>, features: number[]): SearchColumns {
-  const blocks = [...new Set(((result.blocks as { kind: string }[] | undefined) ?? []).map((b) => b.kind))].sort();
-  const flags = [...new Set(((result.flags as { code: string }[] | undefined) ?? []).map((f) => f.code))].sort();
+export function searchColumnsFor(
+  record: TeardownRecord,
+  result: Record<string, unknown>,
+  features: number[],
+): SearchColumns {
+  const blocks = [
+    ...new Set(((result.blocks as { kind: string }[] | undefined) ?? []).map((b) => b.kind)),
+  ].sort();
+  const flags = [
+    ...new Set(((result.flags as { code: string }[] | undefined) ?? []).map((f) => f.code)),
+  ].sort();
   const input = (result.input as Record<string, number | null> | undefined) ?? {};
   const text = [
     record.summary ?? "",
     record.device.tags.join(" "),
-    ...record.parts.map((p) => [p.ref, p.kind, p.marking ?? "", p.value_text ?? "", p.note ?? ""].join(" ")),
+    ...record.parts.map((p) =>
+      [p.ref, p.kind, p.marking ?? "", p.value_text ?? "", p.note ?? ""].join(" "),
+    ),
     ...Object.values(record.nets).map((n) => n.note ?? ""),
   ]
     .join("\n")

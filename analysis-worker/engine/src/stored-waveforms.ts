@@ -11,9 +11,19 @@ export const MAX_STORED_PART_SERIES = 6;
 /** Significant digits kept in stored waveform samples (plots need no more). */
 export const WAVEFORM_SIGNIFICANT_DIGITS = 4;
 
-const PART_KINDS_WORTH_PLOTTING = new Set(["capacitor", "thyristor", "triac", "load", "led", "zener", "transformer", "fuse"]);
+const PART_KINDS_WORTH_PLOTTING = new Set([
+  "capacitor",
+  "thyristor",
+  "triac",
+  "load",
+  "led",
+  "zener",
+  "transformer",
+  "fuse",
+]);
 
-const round = (v: number) => (v === 0 || !Number.isFinite(v) ? v : Number(v.toPrecision(WAVEFORM_SIGNIFICANT_DIGITS)));
+const round = (v: number) =>
+  v === 0 || !Number.isFinite(v) ? v : Number(v.toPrecision(WAVEFORM_SIGNIFICANT_DIGITS));
 
 /** A smaller set of the solver's waveforms, rounded for storage. */
 export function selectStoredWaveforms(
@@ -33,7 +43,11 @@ export function selectStoredWaveforms(
     .slice(0, MAX_STORED_NET_SERIES);
   const parts = record.parts
     .filter((p) => PART_KINDS_WORTH_PLOTTING.has(p.kind) && `${p.ref}.current` in waveforms.series)
-    .sort((a, b) => (partRms[b.ref]?.current_rms ?? 0) - (partRms[a.ref]?.current_rms ?? 0) || a.ref.localeCompare(b.ref))
+    .sort(
+      (a, b) =>
+        (partRms[b.ref]?.current_rms ?? 0) - (partRms[a.ref]?.current_rms ?? 0) ||
+        a.ref.localeCompare(b.ref),
+    )
     .slice(0, MAX_STORED_PART_SERIES);
   keep.push(...nets.map((n) => `net.${n}`), ...parts.map((p) => `${p.ref}.current`));
   const series: Record<string, number[]> = {};

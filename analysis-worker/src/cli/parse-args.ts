@@ -9,7 +9,8 @@ export interface AnalyzeArgs {
 
 export type ArgsResult = { ok: true; args: AnalyzeArgs } | { ok: false; message: string };
 
-export const USAGE = "usage: npm run analyze -- FILE [--json] [--supply VRMS/HZ]   (FILE: a record .yaml/.json, a netlist deck, or a .csv parts list)";
+export const USAGE =
+  "usage: npm run analyze -- FILE [--json] [--supply VRMS/HZ]   (FILE: a record .yaml/.json, a netlist deck, or a .csv parts list)";
 
 /** Reads argv (without node and script); a bad argument is a message, not an exception. */
 export function parseAnalyzeArgs(argv: string[]): ArgsResult {
@@ -22,9 +23,11 @@ export function parseAnalyzeArgs(argv: string[]): ArgsResult {
     else if (a === "--supply" || a.startsWith("--supply=")) {
       const v = a.includes("=") ? a.slice(a.indexOf("=") + 1) : argv[++i];
       const m = /^(\d+(?:\.\d+)?)\s*\/\s*(\d+(?:\.\d+)?)$/.exec(v ?? "");
-      if (!m) return { ok: false, message: `--supply wants VRMS/HZ such as 120/60, got "${v ?? ""}"` };
+      if (!m)
+        return { ok: false, message: `--supply wants VRMS/HZ such as 120/60, got "${v ?? ""}"` };
       supply = { vrms: Number(m[1]), hz: Number(m[2]) };
-      if (supply.vrms <= 0 || supply.hz <= 0) return { ok: false, message: "--supply values must be positive" };
+      if (supply.vrms <= 0 || supply.hz <= 0)
+        return { ok: false, message: "--supply values must be positive" };
     } else if (a === "-h" || a === "--help") return { ok: false, message: USAGE };
     else if (a.startsWith("-")) return { ok: false, message: `unknown option ${a}\n${USAGE}` };
     else if (file === null) file = a;

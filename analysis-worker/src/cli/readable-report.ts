@@ -14,7 +14,14 @@ export const SAFETY_CAUTION =
 type Result = Record<string, unknown>;
 type Num = number | null | undefined;
 
-const UNIT_OF_KIND: Record<string, string> = { resistor: "Ω", capacitor: "F", inductor: "H", zener: "V", fuse: "A", varistor: "V" };
+const UNIT_OF_KIND: Record<string, string> = {
+  resistor: "Ω",
+  capacitor: "F",
+  inductor: "H",
+  zener: "V",
+  fuse: "A",
+  varistor: "V",
+};
 
 function valueText(p: TeardownRecord["parts"][number]): string {
   if (p.value === null) return p.value_text ?? "";
@@ -43,57 +50,167 @@ function unitOfMeasurement(what: string): string {
 
 /** Evidence as `key value unit` pairs: numbers rounded, units read from the key's suffix. */
 function evidenceText(evidence: Record<string, unknown>): string {
-  const suffixUnits: Array<[RegExp, string]> = [[/_v$/, "V"], [/_a$/, "A"], [/_w$/, "W"], [/_s$/, "s"], [/_f$/, "F"], [/_ohms$/, "Ω"], [/_mm$/, "mm"], [/_hz$/, "Hz"]];
+  const suffixUnits: Array<[RegExp, string]> = [
+    [/_v$/, "V"],
+    [/_a$/, "A"],
+    [/_w$/, "W"],
+    [/_s$/, "s"],
+    [/_f$/, "F"],
+    [/_ohms$/, "Ω"],
+    [/_mm$/, "mm"],
+    [/_hz$/, "Hz"],
+  ];
   const show = (key: string, v: unknown): string => {
     if (typeof v === "number") {
       const unit = suffixUnits.find(([re]) => re.test(key))?.[1];
       return unit && unit !== "mm" ? eng(v, unit, 4) : String(Number(v.toPrecision(4)));
     }
-    if (Array.isArray(v)) return `[${v.map((x) => (typeof x === "object" && x !== null ? Object.entries(x).map(([k, y]) => `${k}=${show(k, y)}`).join(" ") : show(key, x))).join("; ")}]`;
-    if (v && typeof v === "object") return Object.entries(v).map(([k, y]) => `${k}=${show(k, y)}`).join(" ");
+    if (Array.isArray(v))
+      return `[${v
+        .map((x) =>
+          typeof x === "object" && x !== null
+            ? Object.entries(x)
+                .map(([k, y]) => `${k}=${show(k, y)}`)
+                .join(" ")
+            : show(key, x),
+        )
+        .join("; ")}]`;
+    if (v && typeof v === "object")
+      return Object.entries(v)
+        .map(([k, y]) => `${k}=${show(k, y)}`)
+        .join(" ");
     return String(v);
   };
-  return Object.entries(evidence).map(([k, v]) => `${k}: ${show(k, v)}`).join(", ");
+  return Object.entries(evidence)
+    .map(([k, v]) => `${k}: ${show(k, v)}`)
+    .join(", ");
 }
 
 /** The whole readable report for one analysed record. */
 export function readableReport(record: TeardownRecord, result: Result): string {
   const out: string[] = [];
   const supply = result.supply as { vrms: number; hz: number };
-  out.push(`${record.title}`, `category: ${record.device.category ?? "—"}   supply analysed: ${supply.vrms} V / ${supply.hz} Hz   engine ${String(result.engine)}`, "");
+  out.push(
+    `${record.title}`,
+    `category: ${record.device.category ?? "—"}   supply analysed: ${supply.vrms} V / ${supply.hz} Hz   engine ${String(result.engine)}`,
+    "",
+  );
   const series = (result.series as Record<string, string | null> | undefined) ?? {};
-  out.push("Parts", textTable(
-    ["ref", "kind", "value", "series", "rating", "pins"],
-    record.parts.map((p) => [p.ref, p.kind, valueText(p), p.ref in series ? (series[p.ref] ?? "none") : "", ratingText(p.rating), Object.entries(p.pins).map(([role, net]) => `${role}=${net}`).join(" ")]),
-  ), "");
+  out.push(
+    "Parts",
+    textTable(
+      ["ref", "kind", "value", "series", "rating", "pins"],
+      record.parts.map((p) => [
+        p.ref,
+        p.kind,
+        valueText(p),
+        p.ref in series ? (series[p.ref] ?? "none") : "",
+        ratingText(p.rating),
+        Object.entries(p.pins)
+          .map(([role, net]) => `${role}=${net}`)
+          .join(" "),
+      ]),
+    ),
+    "",
+  );
   const pinCount = new Map<string, number>();
-  for (const p of record.parts) for (const n of Object.values(p.pins)) pinCount.set(n, (pinCount.get(n) ?? 0) + 1);
-  const netFigures = (result.nets as Record<string, { dc: Num; rms: Num; peak: Num }> | undefined) ?? {};
-  out.push("Nets", textTable(
-    ["net", "role", "accessible", "pins", "dc", "rms", "peak"],
-    Object.entries(record.nets).sort(([a], [b]) => a.localeCompare(b)).map(([name, info]) => [
-      name, info.role ?? "", info.accessible ? "yes" : "", pinCount.get(name) ?? 0,
-      eng(netFigures[name]?.dc, "V"), eng(netFigures[name]?.rms, "V"), eng(netFigures[name]?.peak, "V"),
-    ]),
-  ), "");
+  for (const p of record.parts)
+    for (const n of Object.values(p.pins)) pinCount.set(n, (pinCount.get(n) ?? 0) + 1);
+  const netFigures =
+    (result.nets as Record<string, { dc: Num; rms: Num; peak: Num }> | undefined) ?? {};
+  out.push(
+    "Nets",
+    textTable(
+      ["net", "role", "accessible", "pins", "dc", "rms", "peak"],
+      Object.entries(record.nets)
+        .sort(([a], [b]) => a.localeCompare(b))
+        .map(([name, info]) => [
+          name,
+          info.role ?? "",
+          info.accessible ? "yes" : "",
+          pinCount.get(name) ?? 0,
+          eng(netFigures[name]?.dc, "V"),
+          eng(netFigures[name]?.rms, "V"),
+          eng(netFigures[name]?.peak, "V"),
+        ]),
+    ),
+    "",
+  );
   const blocks = (result.blocks as Array<{ kind: string; parts: string[] }> | undefined) ?? [];
-  out.push("Functional blocks", blocks.length ? blocks.map((b) => `  ${b.kind.padEnd(22)} ${b.parts.join(", ")}`).join("\n") : "  none found", "");
-  const checks = (result.checks as Array<{ severity: string; code: string; message: string }> | undefined) ?? [];
-  out.push("Checks", checks.length ? checks.map((c) => `  ${c.severity.padEnd(8)} ${c.code.padEnd(24)} ${c.message}`).join("\n") : "  no problems found", "");
+  out.push(
+    "Functional blocks",
+    blocks.length
+      ? blocks.map((b) => `  ${b.kind.padEnd(22)} ${b.parts.join(", ")}`).join("\n")
+      : "  none found",
+    "",
+  );
+  const checks =
+    (result.checks as Array<{ severity: string; code: string; message: string }> | undefined) ?? [];
+  out.push(
+    "Checks",
+    checks.length
+      ? checks.map((c) => `  ${c.severity.padEnd(8)} ${c.code.padEnd(24)} ${c.message}`).join("\n")
+      : "  no problems found",
+    "",
+  );
 
   const input = result.input as Record<string, Num> | undefined;
   let safetyShown = false;
   if (input) {
     safetyShown = true;
-    out.push("Input", `  current ${eng(input.current_rms, "A")} rms   real power ${eng(input.power, "W")}   apparent ${eng(input.apparent_power, "VA")}   power factor ${input.power_factor?.toFixed(3) ?? "—"}   THD ${input.thd !== null && input.thd !== undefined ? `${(input.thd * 100).toFixed(1)} %` : "—"}`, "");
-    const parts = (result.parts as Record<string, { voltage_peak: Num; current_rms: Num; power: Num }> | undefined) ?? {};
-    out.push("Per part", textTable(["ref", "peak voltage", "rms current", "dissipation"], Object.entries(parts).map(([ref, f]) => [ref, eng(f.voltage_peak, "V"), eng(f.current_rms, "A"), eng(f.power, "W")])), "");
+    out.push(
+      "Input",
+      `  current ${eng(input.current_rms, "A")} rms   real power ${eng(input.power, "W")}   apparent ${eng(input.apparent_power, "VA")}   power factor ${input.power_factor?.toFixed(3) ?? "—"}   THD ${input.thd !== null && input.thd !== undefined ? `${(input.thd * 100).toFixed(1)} %` : "—"}`,
+      "",
+    );
+    const parts =
+      (result.parts as
+        Record<string, { voltage_peak: Num; current_rms: Num; power: Num }> | undefined) ?? {};
+    out.push(
+      "Per part",
+      textTable(
+        ["ref", "peak voltage", "rms current", "dissipation"],
+        Object.entries(parts).map(([ref, f]) => [
+          ref,
+          eng(f.voltage_peak, "V"),
+          eng(f.current_rms, "A"),
+          eng(f.power, "W"),
+        ]),
+      ),
+      "",
+    );
   }
-  const triggers = (result.triggers as Array<{ part: string; fires: boolean; angle_deg: Num; min_supply_vrms: Num }> | undefined) ?? [];
+  const triggers =
+    (result.triggers as
+      Array<{ part: string; fires: boolean; angle_deg: Num; min_supply_vrms: Num }> | undefined) ??
+    [];
   if (triggers.length) {
-    out.push("Triggers", textTable(["part", "fires", "firing angle", "lowest firing supply"], triggers.map((t) => [t.part, t.fires ? "yes" : "no", t.angle_deg !== null && t.angle_deg !== undefined ? `${t.angle_deg.toFixed(1)}°` : null, eng(t.min_supply_vrms, "V")])), "");
+    out.push(
+      "Triggers",
+      textTable(
+        ["part", "fires", "firing angle", "lowest firing supply"],
+        triggers.map((t) => [
+          t.part,
+          t.fires ? "yes" : "no",
+          t.angle_deg !== null && t.angle_deg !== undefined ? `${t.angle_deg.toFixed(1)}°` : null,
+          eng(t.min_supply_vrms, "V"),
+        ]),
+      ),
+      "",
+    );
   }
-  const flags = (result.flags as Array<{ code: string; severity: string; message: string; evidence: Record<string, unknown>; source: string; parts: string[]; nets: string[] }> | undefined) ?? [];
+  const flags =
+    (result.flags as
+      | Array<{
+          code: string;
+          severity: string;
+          message: string;
+          evidence: Record<string, unknown>;
+          source: string;
+          parts: string[];
+          nets: string[];
+        }>
+      | undefined) ?? [];
   if (flags.length) {
     safetyShown = true;
     out.push("Risk flags");
@@ -105,13 +222,31 @@ export function readableReport(record: TeardownRecord, result: Result): string {
     }
     out.push("");
   }
-  const comparisons = (result.comparisons as Array<{ what: string; measured: number; predicted: Num; low: Num; high: Num; verdict: string }> | undefined) ?? [];
+  const comparisons =
+    (result.comparisons as
+      | Array<{
+          what: string;
+          measured: number;
+          predicted: Num;
+          low: Num;
+          high: Num;
+          verdict: string;
+        }>
+      | undefined) ?? [];
   if (comparisons.length) {
-    out.push("Measured against predicted", textTable(["measurement", "measured", "predicted", "band", "verdict"], comparisons.map((c) => {
-      const u = unitOfMeasurement(c.what);
-      const f = (v: Num) => (u ? eng(v, u, 4) : v === null || v === undefined ? "—" : v.toFixed(3));
-      return [c.what, f(c.measured), f(c.predicted), `${f(c.low)} … ${f(c.high)}`, c.verdict];
-    })), "");
+    out.push(
+      "Measured against predicted",
+      textTable(
+        ["measurement", "measured", "predicted", "band", "verdict"],
+        comparisons.map((c) => {
+          const u = unitOfMeasurement(c.what);
+          const f = (v: Num) =>
+            u ? eng(v, u, 4) : v === null || v === undefined ? "—" : v.toFixed(3);
+          return [c.what, f(c.measured), f(c.predicted), `${f(c.low)} … ${f(c.high)}`, c.verdict];
+        }),
+      ),
+      "",
+    );
   }
   if (safetyShown) out.push(SAFETY_CAUTION);
   return out.join("\n");

@@ -4,14 +4,29 @@
  */
 import { describe, expect, it } from "vitest";
 import type { Measurement, SolvedCircuit, TeardownRecord } from "@teardown/engine";
-import { analyzeCircuit, assessRisks, mulberry32, riskBudget, solveCircuit, toleranceBands } from "@teardown/engine";
+import {
+  analyzeCircuit,
+  assessRisks,
+  mulberry32,
+  riskBudget,
+  solveCircuit,
+  toleranceBands,
+} from "@teardown/engine";
 import { dropperHeater } from "../flags/flag-circuits.js";
 
 const SUPPLY = { vrms: 230, hz: 50 };
 const current = (s: SolvedCircuit) => s.figures.input.current_rms;
 
 function measured(value: number, uncertainty = 0.05): Measurement {
-  return { what: "input.current_rms", value, between: null, part: null, supply: SUPPLY, instrument: null, uncertainty: { relative: uncertainty } };
+  return {
+    what: "input.current_rms",
+    value,
+    between: null,
+    part: null,
+    supply: SUPPLY,
+    instrument: null,
+    uncertainty: { relative: uncertainty },
+  };
 }
 
 function withTolerance(rec: TeardownRecord, t: number): TeardownRecord {
@@ -19,7 +34,11 @@ function withTolerance(rec: TeardownRecord, t: number): TeardownRecord {
 }
 
 function band(rec: TeardownRecord, seed = 3) {
-  return toleranceBands(rec, SUPPLY, [current], { seed, samples: 12, budget: riskBudget(undefined, undefined) }).figures[0]!;
+  return toleranceBands(rec, SUPPLY, [current], {
+    seed,
+    samples: 12,
+    budget: riskBudget(undefined, undefined),
+  }).figures[0]!;
 }
 
 describe("the seeded generator", () => {
@@ -65,7 +84,10 @@ describe("measured against predicted", () => {
   const predicted = analysis.value.input.current_rms;
 
   it("agrees, with no flag, when the measurement is the prediction within its uncertainty", () => {
-    const r = assessRisks({ ...base, measurements: [measured(predicted * 1.02)] }, analysis.value, { samples: 12, seed: 1 });
+    const r = assessRisks({ ...base, measurements: [measured(predicted * 1.02)] }, analysis.value, {
+      samples: 12,
+      seed: 1,
+    });
     expect(r.comparisons).toHaveLength(1);
     expect(r.comparisons[0]!.verdict).toBe("agrees");
     expect(r.comparisons[0]!.low).toBeLessThan(predicted);
@@ -73,7 +95,10 @@ describe("measured against predicted", () => {
   });
 
   it("flags a current twice the prediction and names the dropper capacitor at about twice its value", () => {
-    const r = assessRisks({ ...base, measurements: [measured(2 * predicted)] }, analysis.value, { samples: 12, seed: 1 });
+    const r = assessRisks({ ...base, measurements: [measured(2 * predicted)] }, analysis.value, {
+      samples: 12,
+      seed: 1,
+    });
     expect(r.comparisons[0]!.verdict).toBe("disagrees");
     const f = r.flags.find((x) => x.code === "measurement-mismatch")!;
     expect(f.parts[0]).toBe("C1");

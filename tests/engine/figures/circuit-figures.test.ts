@@ -9,7 +9,10 @@ import { triacDimmer } from "../solver/reference-circuits.js";
 
 describe("figures of a steady cycle", () => {
   it("gives a half-wave rectified resistor load a DC of about Vpk/π and an RMS of about Vpk/2", () => {
-    const rec = record([part("D1", "diode", { anode: "L", cathode: "P" }), part("R1", "resistor", ["P", "N"], 10_000)]);
+    const rec = record([
+      part("D1", "diode", { anode: "L", cathode: "P" }),
+      part("R1", "resistor", ["P", "N"], 10_000),
+    ]);
     const r = analyzeCircuit(rec, { minSupply: false });
     if (!r.ok) throw new Error(r.error.message);
     const vpk = 230 * Math.SQRT2;
@@ -30,7 +33,8 @@ describe("figures of a steady cycle", () => {
     // Source: symmetry of a triac with a symmetric gate drive (closed form).
     expect(Math.abs(trig.angle_deg! - trig.angle_negative_deg!)).toBeLessThan(0.1);
     expect(r.value.waveforms.t.length).toBeLessThanOrEqual(MAX_WAVEFORM_POINTS);
-    for (const s of Object.values(r.value.waveforms.series)) expect(s.length).toBe(r.value.waveforms.t.length);
+    for (const s of Object.values(r.value.waveforms.series))
+      expect(s.length).toBe(r.value.waveforms.t.length);
     expect(Object.keys(r.value.waveforms.series)).toContain("input.current");
   });
 
@@ -42,7 +46,15 @@ describe("figures of a steady cycle", () => {
     ]);
     const r = analyzeCircuit(rec);
     if (!r.ok) throw new Error(r.error.message);
-    expect(r.value.triggers).toEqual([{ part: "Q1", fires: false, angle_deg: null, angle_negative_deg: null, min_supply_vrms: null }]);
+    expect(r.value.triggers).toEqual([
+      {
+        part: "Q1",
+        fires: false,
+        angle_deg: null,
+        angle_negative_deg: null,
+        min_supply_vrms: null,
+      },
+    ]);
     expect(r.value.solver.assumptions.some((a) => a.startsWith("Q1: igt"))).toBe(true);
   });
 });

@@ -2,7 +2,13 @@
  * Period statistics on uneven time points and uniform resampling, against closed forms.
  */
 import { describe, expect, it } from "vitest";
-import { peakMagnitude, periodMean, periodMeanProduct, periodRms, resampleUniform } from "@teardown/engine";
+import {
+  peakMagnitude,
+  periodMean,
+  periodMeanProduct,
+  periodRms,
+  resampleUniform,
+} from "@teardown/engine";
 
 // Uneven points over one period of 20 ms.
 const t = Array.from({ length: 2001 }, (_, k) => 0.02 * (k / 2000) ** 1.3);

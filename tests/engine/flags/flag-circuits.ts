@@ -32,15 +32,27 @@ export function xCapacitorInput(bleederOhms: number | null, farads = 0.47e-6): T
 }
 
 /** A dropper (X2 or unrated) with an optional bleeder, optional fuse and surge resistor, into a half-wave heater. */
-export function dropperHeater(o: { bleeder?: number | null; fuse?: boolean; surge?: boolean; cls?: string | null; farads?: number } = {}): TeardownRecord {
+export function dropperHeater(
+  o: {
+    bleeder?: number | null;
+    fuse?: boolean;
+    surge?: boolean;
+    cls?: string | null;
+    farads?: number;
+  } = {},
+): TeardownRecord {
   const start = o.fuse ? "L1" : "L";
   const afterSurge = o.surge ? "L2" : start;
   const parts: Part[] = [];
   if (o.fuse) parts.push(part("F1", "fuse", ["L", "L1"], 0.5));
   if (o.surge) parts.push(part("RS", "resistor", [start, "L2"], 100, { rating: { watts: 1 } }));
-  const rating = o.cls === null || o.cls === undefined ? { volts: 400 } : { volts: 275, class: o.cls };
-  parts.push(part("C1", "capacitor", [afterSurge, "A"], o.farads ?? 1e-6, { rating, tolerance: 0.1 }));
-  if (o.bleeder !== null && o.bleeder !== undefined) parts.push(part("R1", "resistor", [afterSurge, "A"], o.bleeder));
+  const rating =
+    o.cls === null || o.cls === undefined ? { volts: 400 } : { volts: 275, class: o.cls };
+  parts.push(
+    part("C1", "capacitor", [afterSurge, "A"], o.farads ?? 1e-6, { rating, tolerance: 0.1 }),
+  );
+  if (o.bleeder !== null && o.bleeder !== undefined)
+    parts.push(part("R1", "resistor", [afterSurge, "A"], o.bleeder));
   parts.push(
     part("D1", "diode", { anode: "A", cathode: "H" }),
     part("D2", "diode", { anode: "N", cathode: "A" }),
@@ -61,11 +73,17 @@ export function thyristorHeater(ra: number): TeardownRecord {
 }
 
 /** A fused step-up transformer into an emitter (a discharge load) or a resistor. */
-export function stepUp(o: { ratio: number; dischargeLoad: boolean; tags?: string[] }): TeardownRecord {
+export function stepUp(o: {
+  ratio: number;
+  dischargeLoad: boolean;
+  tags?: string[];
+}): TeardownRecord {
   const rec = record(
     [
       part("F1", "fuse", ["L", "L1"], 0.5),
-      part("T1", "transformer", { p1: "L1", p2: "N", s1: "HV", s2: "RET" }, null, { model: { lp: 2, ratio: o.ratio, k: 0.99 } }),
+      part("T1", "transformer", { p1: "L1", p2: "N", s1: "HV", s2: "RET" }, null, {
+        model: { lp: 2, ratio: o.ratio, k: 0.99 },
+      }),
       o.dischargeLoad
         ? part("E1", "load", ["HV", "RET"], null, { model: { c: 1e-9 } })
         : part("E1", "load", ["HV", "RET"], null, { model: { r: 10e6 } }),

@@ -5,7 +5,14 @@ import { describe, expect, it } from "vitest";
 import type { Part, TeardownRecord } from "@teardown/engine";
 import { part, record } from "../../support/record-factory.js";
 import { testCircuit } from "../../support/circuits/all-test-circuits.js";
-import { assess, codes, dropperHeater, stepUp, thyristorHeater, xCapacitorInput } from "./flag-circuits.js";
+import {
+  assess,
+  codes,
+  dropperHeater,
+  stepUp,
+  thyristorHeater,
+  xCapacitorInput,
+} from "./flag-circuits.js";
 
 function replacePart(rec: TeardownRecord, ref: string, next: Part | null): TeardownRecord {
   return { ...rec, parts: rec.parts.flatMap((p) => (p.ref === ref ? (next ? [next] : []) : [p])) };
@@ -13,7 +20,9 @@ function replacePart(rec: TeardownRecord, ref: string, next: Part | null): Teard
 
 describe("accessible-mains", () => {
   const plate = (link: Part) =>
-    record([...dropperHeater({ fuse: true, cls: "X2", bleeder: 330e3 }).parts, link], { CASE: { accessible: true } });
+    record([...dropperHeater({ fuse: true, cls: "X2", bleeder: 330e3 }).parts, link], {
+      CASE: { accessible: true },
+    });
 
   it("fires when a touchable plate is tied to neutral through a resistor, naming the path", () => {
     const r = assess(plate(part("RC", "resistor", ["N", "CASE"], 10e3)));
@@ -24,14 +33,19 @@ describe("accessible-mains", () => {
   });
 
   it("stays silent when the plate is coupled only through a Y1 capacitor", () => {
-    const r = assess(plate(part("CY", "capacitor", ["N", "CASE"], 1e-9, { rating: { class: "Y1" } })));
+    const r = assess(
+      plate(part("CY", "capacitor", ["N", "CASE"], 1e-9, { rating: { class: "Y1" } })),
+    );
     expect(codes(r)).not.toContain("accessible-mains");
     expect(codes(r)).not.toContain("capacitor-class");
   });
 
   it("does not pass from a transformer's primary to its secondary", () => {
     const rec = stepUp({ ratio: 1, dischargeLoad: false });
-    const isolated = { ...replacePart(rec, "RG", null), nets: { ...rec.nets, RET: { role: null, accessible: true, note: null } } };
+    const isolated = {
+      ...replacePart(rec, "RG", null),
+      nets: { ...rec.nets, RET: { role: null, accessible: true, note: null } },
+    };
     delete (isolated.nets as Record<string, unknown>).RG;
     expect(codes(assess(isolated))).not.toContain("accessible-mains");
   });
@@ -65,7 +79,9 @@ describe("bleeder-missing and bleeder-slow", () => {
   });
 
   it("tells a dropper without a bleeder from one with a fast bleeder", () => {
-    expect(codes(assess(dropperHeater({ fuse: true, cls: "X2", bleeder: null })))).toContain("bleeder-missing");
+    expect(codes(assess(dropperHeater({ fuse: true, cls: "X2", bleeder: null })))).toContain(
+      "bleeder-missing",
+    );
     const fast = codes(assess(dropperHeater({ fuse: true, cls: "X2", bleeder: 220e3 })));
     expect(fast).not.toContain("bleeder-missing");
     expect(fast).not.toContain("bleeder-slow");
@@ -74,8 +90,12 @@ describe("bleeder-missing and bleeder-slow", () => {
 
 describe("no-fuse", () => {
   it("fires without a fuse in the supply path and not with one", () => {
-    expect(codes(assess(dropperHeater({ fuse: false, cls: "X2", bleeder: 220e3 })))).toContain("no-fuse");
-    expect(codes(assess(dropperHeater({ fuse: true, cls: "X2", bleeder: 220e3 })))).not.toContain("no-fuse");
+    expect(codes(assess(dropperHeater({ fuse: false, cls: "X2", bleeder: 220e3 })))).toContain(
+      "no-fuse",
+    );
+    expect(codes(assess(dropperHeater({ fuse: true, cls: "X2", bleeder: 220e3 })))).not.toContain(
+      "no-fuse",
+    );
   });
 });
 
@@ -83,7 +103,10 @@ describe("no-surge-limit", () => {
   it("fires when a dropper feeds the bridge with no surge resistor, and the diode's peak passes 30 A", () => {
     const rec = testCircuit("night-light-dropper");
     const bare = replacePart(rec, "R1", null);
-    bare.parts = bare.parts.map((p) => ({ ...p, pins: Object.fromEntries(Object.entries(p.pins).map(([k, v]) => [k, v === "A" ? "L1" : v])) }));
+    bare.parts = bare.parts.map((p) => ({
+      ...p,
+      pins: Object.fromEntries(Object.entries(p.pins).map(([k, v]) => [k, v === "A" ? "L1" : v])),
+    }));
     const r = assess(bare);
     const f = r.flags.find((x) => x.code === "no-surge-limit")!;
     expect(f.evidence.peak_a as number).toBeGreaterThan(30);
@@ -98,10 +121,14 @@ describe("no-surge-limit", () => {
 
 describe("capacitor-class", () => {
   it("fires for an unrated dropper and not for an X2 one", () => {
-    const unrated = assess(dropperHeater({ fuse: true, cls: null, bleeder: 220e3 })).flags.filter((f) => f.code === "capacitor-class");
+    const unrated = assess(dropperHeater({ fuse: true, cls: null, bleeder: 220e3 })).flags.filter(
+      (f) => f.code === "capacitor-class",
+    );
     expect(unrated.map((f) => f.parts)).toEqual([["C1"]]);
     expect(unrated[0]!.evidence.position).toContain("series");
-    expect(codes(assess(dropperHeater({ fuse: true, cls: "X2", bleeder: 220e3 })))).not.toContain("capacitor-class");
+    expect(codes(assess(dropperHeater({ fuse: true, cls: "X2", bleeder: 220e3 })))).not.toContain(
+      "capacitor-class",
+    );
   });
 
   it("reads the class from the marking when the rating has none", () => {
@@ -113,12 +140,25 @@ describe("capacitor-class", () => {
   it("asks for a Y rating on a capacitor bridging to a touchable plate", () => {
     const base = dropperHeater({ fuse: true, cls: "X2", bleeder: 220e3 });
     const withCap = (extra: Partial<Part>) =>
-      record([...base.parts, part("CY", "capacitor", ["N", "CASE"], 2.2e-9, extra), part("RC", "resistor", ["CASE", "CASE2"], 1)], {
-        CASE: { accessible: true },
-      });
-    const bad = assess(withCap({})).flags.find((f) => f.code === "capacitor-class" && f.parts[0] === "CY")!;
+      record(
+        [
+          ...base.parts,
+          part("CY", "capacitor", ["N", "CASE"], 2.2e-9, extra),
+          part("RC", "resistor", ["CASE", "CASE2"], 1),
+        ],
+        {
+          CASE: { accessible: true },
+        },
+      );
+    const bad = assess(withCap({})).flags.find(
+      (f) => f.code === "capacitor-class" && f.parts[0] === "CY",
+    )!;
     expect(bad.severity).toBe("danger");
-    expect(assess(withCap({ rating: { class: "Y2" } })).flags.filter((f) => f.code === "capacitor-class")).toEqual([]);
+    expect(
+      assess(withCap({ rating: { class: "Y2" } })).flags.filter(
+        (f) => f.code === "capacitor-class",
+      ),
+    ).toEqual([]);
   });
 });
 
@@ -130,10 +170,16 @@ describe("overstress-voltage and overstress-power", () => {
   };
 
   it("flags a 4 V reservoir on a 5.3 V rail and not a 16 V one", () => {
-    const f = assess(withRating("C2", { volts: 4 })).flags.find((x) => x.code === "overstress-voltage" && x.parts[0] === "C2")!;
+    const f = assess(withRating("C2", { volts: 4 })).flags.find(
+      (x) => x.code === "overstress-voltage" && x.parts[0] === "C2",
+    )!;
     expect(f.severity).toBe("danger");
     expect(f.evidence.basis).toContain("DC");
-    expect(assess(withRating("C2", { volts: 16 })).flags.some((x) => x.code === "overstress-voltage" && x.parts[0] === "C2")).toBe(false);
+    expect(
+      assess(withRating("C2", { volts: 16 })).flags.some(
+        (x) => x.code === "overstress-voltage" && x.parts[0] === "C2",
+      ),
+    ).toBe(false);
   });
 
   it("compares an X2 rating as RMS: a 310 V~ part across 230 V passes", () => {
@@ -142,14 +188,19 @@ describe("overstress-voltage and overstress-power", () => {
   });
 
   it("uses the package's limiting element voltage when none is given, and says so", () => {
-    const f = assess(withRating("R2", { package: "0805" })).flags.find((x) => x.code === "overstress-voltage" && x.parts[0] === "R2")!;
+    const f = assess(withRating("R2", { package: "0805" })).flags.find(
+      (x) => x.code === "overstress-voltage" && x.parts[0] === "R2",
+    )!;
     expect(f.evidence.limit_v).toBe(150);
     expect(f.evidence.rating_source).toContain("0805");
   });
 
   it("warns above half the power rating and calls danger above it", () => {
     // R1 carries the dropper's 33.9 mA RMS: 100 Ω × (33.9 mA)² = 0.115 W.
-    const at = (watts: number) => assess(withRating("R1", { watts })).flags.find((x) => x.code === "overstress-power" && x.parts[0] === "R1");
+    const at = (watts: number) =>
+      assess(withRating("R1", { watts })).flags.find(
+        (x) => x.code === "overstress-power" && x.parts[0] === "R1",
+      );
     expect(at(0.5)).toBeUndefined();
     expect(at(0.2)!.severity).toBe("warning");
     expect(at(0.1)!.severity).toBe("danger");
@@ -160,7 +211,21 @@ describe("overstress-voltage and overstress-power", () => {
 describe("spacing-short", () => {
   const spaced = (mm: number) => {
     const rec = testCircuit("night-light-dropper");
-    return { ...rec, board: { spacings: [{ between: ["L1", "N"] as [string, string], creepage_mm: mm, clearance_mm: mm, slot: false, material_group: "IIIa" as const, pollution_degree: 2 as const }] } };
+    return {
+      ...rec,
+      board: {
+        spacings: [
+          {
+            between: ["L1", "N"] as [string, string],
+            creepage_mm: mm,
+            clearance_mm: mm,
+            slot: false,
+            material_group: "IIIa" as const,
+            pollution_degree: 2 as const,
+          },
+        ],
+      },
+    };
   };
 
   it("flags 0.8 mm between line and neutral and passes 3.0 mm", () => {
@@ -177,7 +242,18 @@ describe("spacing-short", () => {
     const withSpacing = {
       ...iso,
       nets: { ...iso.nets, RET: { role: null, accessible: true, note: null } },
-      board: { spacings: [{ between: ["L1", "RET"] as [string, string], creepage_mm: 3.0, clearance_mm: 2.0, slot: false, material_group: "IIIa" as const, pollution_degree: 2 as const }] },
+      board: {
+        spacings: [
+          {
+            between: ["L1", "RET"] as [string, string],
+            creepage_mm: 3.0,
+            clearance_mm: 2.0,
+            slot: false,
+            material_group: "IIIa" as const,
+            pollution_degree: 2 as const,
+          },
+        ],
+      },
     };
     const f = assess(withSpacing).flags.find((x) => x.code === "spacing-short")!;
     expect(f.evidence.insulation).toBe("reinforced");
@@ -209,9 +285,13 @@ describe("high-voltage-output and ozone", () => {
   });
 
   it("stays quiet at a 1:1 ratio into a resistor, and notes ozone from the tags alone", () => {
-    expect(codes(assess(stepUp({ ratio: 1, dischargeLoad: false })))).not.toContain("high-voltage-output");
+    expect(codes(assess(stepUp({ ratio: 1, dischargeLoad: false })))).not.toContain(
+      "high-voltage-output",
+    );
     expect(codes(assess(stepUp({ ratio: 1, dischargeLoad: false })))).not.toContain("ozone");
-    expect(codes(assess(stepUp({ ratio: 1, dischargeLoad: false, tags: ["ionizer"] })))).toContain("ozone");
+    expect(codes(assess(stepUp({ ratio: 1, dischargeLoad: false, tags: ["ionizer"] })))).toContain(
+      "ozone",
+    );
   });
 });
 

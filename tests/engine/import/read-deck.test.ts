@@ -51,28 +51,47 @@ describe("readDeck", () => {
       ["C2", "capacitor"],
       ["J1", "connector"],
     ]);
-    expect(r.parts[2]).toMatchObject({ pins: { anode: "A", cathode: "P" }, marking: "1N4007", rating: { volts: 1000 } });
+    expect(r.parts[2]).toMatchObject({
+      pins: { anode: "A", cathode: "P" },
+      marking: "1N4007",
+      rating: { volts: 1000 },
+    });
   });
 
   it("reads deck values: meg is mega, and the value text is kept in record notation", () => {
     expect(r.parts[0]).toMatchObject({ value: 1e6, value_text: "1M", rating: { watts: 0.25 } });
-    expect(r.parts[1]).toMatchObject({ value: 3.3e-7, tolerance: 0.1, rating: { volts: 310, class: "X2" }, marking: "334K 310V~" });
+    expect(r.parts[1]).toMatchObject({
+      value: 3.3e-7,
+      tolerance: 0.1,
+      rating: { volts: 310, class: "X2" },
+      marking: "334K 310V~",
+    });
   });
 
   it("reads X lines: nets, the kind word, then parameters", () => {
-    expect(r.parts[3]).toMatchObject({ pins: { anode: "P", gate: "G", cathode: "M" }, model: { vgt: 0.7, igt: 50e-6, ih: 3e-3 } });
+    expect(r.parts[3]).toMatchObject({
+      pins: { anode: "P", gate: "G", cathode: "M" },
+      model: { vgt: 0.7, igt: 50e-6, ih: 3e-3 },
+    });
     expect(r.parts[4]!.pins).toEqual({ p1: "P", p2: "X", s1: "HV", s2: "M" });
     expect(r.parts[5]).toMatchObject({ value: 5.1, pins: { anode: "M", cathode: "N" } });
     expect(r.parts[7]!.pins).toEqual({ p1: "L", p2: "N", p3: "CASE" });
   });
 
   it("puts a polarised capacitor's nets in plus, minus order", () => {
-    expect(r.parts[6]).toMatchObject({ polarised: true, pins: { plus: "P", minus: "M" }, value: 1e-5 });
+    expect(r.parts[6]).toMatchObject({
+      polarised: true,
+      pins: { plus: "P", minus: "M" },
+      value: 1e-5,
+    });
   });
 
   it("warns about lines after .end", () => {
     const result = readDeck(deck);
-    expect(result.ok && result.warnings.map((w) => [w.code, w.line])).toContainEqual(["after-end", 16]);
+    expect(result.ok && result.warnings.map((w) => [w.code, w.line])).toContainEqual([
+      "after-end",
+      16,
+    ]);
   });
 
   it("reads m and M alike as milli", () => {
@@ -112,7 +131,13 @@ describe("readDeck errors", () => {
   });
 
   it("never throws on garbage", () => {
-    for (const text of ["", "\u0000\u0001", "x\n+\n+\n", "t\nX\nR\n.supply\n.line\n", "t\n" + "R1 A B 1k\n".repeat(3)]) {
+    for (const text of [
+      "",
+      "\u0000\u0001",
+      "x\n+\n+\n",
+      "t\nX\nR\n.supply\n.line\n",
+      "t\n" + "R1 A B 1k\n".repeat(3),
+    ]) {
       const result = readDeck(text);
       expect(typeof result.ok).toBe("boolean");
     }

@@ -1,5 +1,10 @@
 import { describe, expect, it } from "vitest";
-import { readPartsCsv, type InputError, type ParseResult, type TeardownRecord } from "@teardown/engine";
+import {
+  readPartsCsv,
+  type InputError,
+  type ParseResult,
+  type TeardownRecord,
+} from "@teardown/engine";
 
 function ok(result: ParseResult): TeardownRecord {
   if (!result.ok) throw new Error(JSON.stringify(result.errors, null, 1));
@@ -31,7 +36,12 @@ describe("readPartsCsv", () => {
   });
 
   it("reads pins as role=net or as nets in the kind's order, and quoted fields with commas", () => {
-    expect(r.parts[0]).toMatchObject({ ref: "C1", value: 3.3e-7, pins: { a: "L", b: "A" }, marking: "334K, 310V~" });
+    expect(r.parts[0]).toMatchObject({
+      ref: "C1",
+      value: 3.3e-7,
+      pins: { a: "L", b: "A" },
+      marking: "334K, 310V~",
+    });
     expect(r.parts[1]).toMatchObject({ ref: "R1", value: 4700, pins: { a: "L", b: "A" } });
   });
 
@@ -43,7 +53,11 @@ describe("readPartsCsv", () => {
   });
 
   it("takes the title from the file name when there is no # title line", () => {
-    const plain = ok(readPartsCsv("ref,kind,value,pins\nR1,resistor,1k,A B\n", { filename: "dir/kettle-base.csv" }));
+    const plain = ok(
+      readPartsCsv("ref,kind,value,pins\nR1,resistor,1k,A B\n", {
+        filename: "dir/kettle-base.csv",
+      }),
+    );
     expect(plain.title).toBe("kettle-base");
   });
 });
@@ -70,10 +84,14 @@ describe("readPartsCsv errors", () => {
   });
 
   it("needs the ref, kind and pins columns", () => {
-    expect(errors(readPartsCsv("ref,value\nR1,1k\n")).map((e) => [e.code, e.line])).toEqual([["csv-missing-column", 1]]);
+    expect(errors(readPartsCsv("ref,value\nR1,1k\n")).map((e) => [e.code, e.line])).toEqual([
+      ["csv-missing-column", 1],
+    ]);
   });
 
   it("reports an unclosed quote at its line", () => {
-    expect(errors(readPartsCsv('ref,kind,pins\nR1,resistor,"A B\n')).map((e) => [e.code, e.line])).toEqual([["csv-syntax", 2]]);
+    expect(
+      errors(readPartsCsv('ref,kind,pins\nR1,resistor,"A B\n')).map((e) => [e.code, e.line]),
+    ).toEqual([["csv-syntax", 2]]);
   });
 });

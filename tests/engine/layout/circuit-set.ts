@@ -8,7 +8,9 @@ import { LAYOUT_CIRCUITS, type NamedRecord } from "./layout-circuits.js";
 
 function isRecord(value: unknown): value is TeardownRecord {
   const v = value as Partial<TeardownRecord> | null;
-  return typeof v === "object" && v !== null && Array.isArray(v.parts) && typeof v.nets === "object";
+  return (
+    typeof v === "object" && v !== null && Array.isArray(v.parts) && typeof v.nets === "object"
+  );
 }
 
 /** Accepts a library entry that is a record, or holds one under `record` (named or not). */
@@ -16,7 +18,8 @@ function named(entry: unknown, index: number): NamedRecord | null {
   if (isRecord(entry)) return { name: `library #${index}: ${entry.title}`, record: entry };
   const e = entry as { name?: unknown; title?: unknown; record?: unknown } | null;
   if (typeof e === "object" && e !== null && isRecord(e.record)) {
-    const label = typeof e.name === "string" ? e.name : typeof e.title === "string" ? e.title : e.record.title;
+    const label =
+      typeof e.name === "string" ? e.name : typeof e.title === "string" ? e.title : e.record.title;
     return { name: `library: ${label}`, record: e.record };
   }
   return null;
@@ -32,7 +35,11 @@ export async function libraryCircuits(): Promise<NamedRecord[]> {
     return [];
   }
   const list = mod.ALL_TEST_CIRCUITS;
-  const entries = Array.isArray(list) ? list : typeof list === "object" && list !== null ? Object.values(list) : [];
+  const entries = Array.isArray(list)
+    ? list
+    : typeof list === "object" && list !== null
+      ? Object.values(list)
+      : [];
   return entries.map(named).filter((n): n is NamedRecord => n !== null);
 }
 

@@ -23,7 +23,10 @@ const dropperBridge = record(
     part("D2", "diode", { anode: "N", cathode: "P" }),
     part("D3", "diode", { anode: "M", cathode: "B" }),
     part("D4", "diode", { anode: "M", cathode: "N" }),
-    part("C2", "capacitor", { plus: "P", minus: "M" }, 100e-6, { polarised: true, value_text: "100u" }),
+    part("C2", "capacitor", { plus: "P", minus: "M" }, 100e-6, {
+      polarised: true,
+      value_text: "100u",
+    }),
     part("DZ1", "zener", { anode: "M", cathode: "P" }, 12, { value_text: "12V" }),
     part("LED1", "led", { anode: "P", cathode: "K" }),
     part("R3", "resistor", ["K", "M"], 1000, { value_text: "1k" }),
@@ -97,7 +100,10 @@ const awkwardCases = record(
 
 /** A ladder of `stages` RC-diode-zener stages behind a fuse and varistor: 4 + 4·stages parts. */
 export function ladderRecord(stages: number): TeardownRecord {
-  const parts = [part("F1", "fuse", ["L", "S0"], 1, { value_text: "1A" }), part("RV1", "varistor", ["S0", "N"], 275, { value_text: "275V" })];
+  const parts = [
+    part("F1", "fuse", ["L", "S0"], 1, { value_text: "1A" }),
+    part("RV1", "varistor", ["S0", "N"], 275, { value_text: "275V" }),
+  ];
   for (let i = 1; i <= stages; i++) {
     const prev = `S${i - 1}`;
     const here = `S${i}`;
@@ -108,7 +114,10 @@ export function ladderRecord(stages: number): TeardownRecord {
       part(`Z${i}`, "zener", { anode: "N", cathode: `T${i}` }, 5.1, { value_text: "5V1" }),
     );
   }
-  parts.push(part("LD1", "load", [`T${stages}`, "N"]), part("RB1", "resistor", [`T${stages}`, "N"], 100e3, { value_text: "100k" }));
+  parts.push(
+    part("LD1", "load", [`T${stages}`, "N"]),
+    part("RB1", "resistor", [`T${stages}`, "N"], 100e3, { value_text: "100k" }),
+  );
   return record(parts, { [`T${stages}`]: { role: "output" } });
 }
 

@@ -1,5 +1,10 @@
 import { describe, expect, it } from "vitest";
-import { layoutSchematic, renderSchematicSvg, type SchematicLayout, type TeardownRecord } from "@teardown/engine";
+import {
+  layoutSchematic,
+  renderSchematicSvg,
+  type SchematicLayout,
+  type TeardownRecord,
+} from "@teardown/engine";
 import { part, record } from "../../support/record-factory.js";
 import { allLayoutCircuits } from "./circuit-set.js";
 
@@ -65,14 +70,23 @@ describe.each(circuits)("the SVG drawing of $name", ({ record: r }) => {
 
 describe("renderSchematicSvg", () => {
   it("draws the line conductor dark red and the neutral dark blue", async () => {
-    const { svg } = await svgOf(record([part("R1", "resistor", ["L", "A"]), part("R2", "resistor", ["A", "N"]), part("R3", "resistor", ["A", "N"])]));
+    const { svg } = await svgOf(
+      record([
+        part("R1", "resistor", ["L", "A"]),
+        part("R2", "resistor", ["A", "N"]),
+        part("R3", "resistor", ["A", "N"]),
+      ]),
+    );
     expect(svg).toMatch(/<g data-net="L" stroke="#8b1a1a"/);
     expect(svg).toMatch(/<g data-net="N" stroke="#1f3a8a"/);
     expect(svg).toMatch(/<g data-net="A" stroke="#3c3c3c"/);
   });
 
   it("escapes net names and values that contain markup characters", async () => {
-    const r = record([part("R1", "resistor", ["L", "A<&>B"], 10, { value_text: `10 "k" & 'more'` }), part("R2", "resistor", ["A<&>B", "N"])]);
+    const r = record([
+      part("R1", "resistor", ["L", "A<&>B"], 10, { value_text: `10 "k" & 'more'` }),
+      part("R2", "resistor", ["A<&>B", "N"]),
+    ]);
     const { svg } = await svgOf(r);
     expect(xmlProblem(svg)).toBeNull();
     expect(svg).toContain("A&lt;&amp;&gt;B");
@@ -81,7 +95,11 @@ describe("renderSchematicSvg", () => {
 
   it("sizes the document to the layout", async () => {
     const { svg, layout } = await svgOf(record([part("R1", "resistor", ["L", "N"])]));
-    expect(svg.startsWith(`<svg xmlns="http://www.w3.org/2000/svg" width="${layout.width}" height="${layout.height}"`)).toBe(true);
+    expect(
+      svg.startsWith(
+        `<svg xmlns="http://www.w3.org/2000/svg" width="${layout.width}" height="${layout.height}"`,
+      ),
+    ).toBe(true);
   });
 
   it("the well-formedness check itself rejects broken markup", () => {

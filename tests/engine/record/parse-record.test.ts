@@ -1,6 +1,11 @@
 import { readFileSync } from "node:fs";
 import { describe, expect, it } from "vitest";
-import { parseRecord, type InputError, type ParseResult, type TeardownRecord } from "@teardown/engine";
+import {
+  parseRecord,
+  type InputError,
+  type ParseResult,
+  type TeardownRecord,
+} from "@teardown/engine";
 
 const example = readFileSync(new URL("./fixtures/fragrance-warmer.yaml", import.meta.url), "utf8");
 
@@ -14,13 +19,24 @@ function errors(result: ParseResult): InputError[] {
   return result.errors;
 }
 
-const brief = (e: InputError): [string, string, number | null, number | null] => [e.path, e.code, e.line, e.column];
+const brief = (e: InputError): [string, string, number | null, number | null] => [
+  e.path,
+  e.code,
+  e.line,
+  e.column,
+];
 
 describe("parseRecord on the record-format example", () => {
   const r = ok(parseRecord(example, { filename: "warmer.yaml" }));
 
   it("reads values as SI numbers and keeps their text", () => {
-    expect(r.parts[0]).toMatchObject({ ref: "C1", value: 3.3e-7, value_text: "330n", tolerance: 0.1, rating: { volts: 310, class: "X2" } });
+    expect(r.parts[0]).toMatchObject({
+      ref: "C1",
+      value: 3.3e-7,
+      value_text: "330n",
+      tolerance: 0.1,
+      rating: { volts: 310, class: "X2" },
+    });
     expect(r.parts[1]).toMatchObject({ ref: "R1", value: 1e6, value_text: "1M" });
   });
 
@@ -48,7 +64,14 @@ describe("parseRecord on the record-format example", () => {
   });
 
   it("defaults a spacing to material group IIIa and pollution degree 2", () => {
-    expect(r.board.spacings[0]).toEqual({ between: ["L", "CASE"], creepage_mm: 3.2, clearance_mm: 2.5, slot: true, material_group: "IIIa", pollution_degree: 2 });
+    expect(r.board.spacings[0]).toEqual({
+      between: ["L", "CASE"],
+      creepage_mm: 3.2,
+      clearance_mm: 2.5,
+      slot: true,
+      material_group: "IIIa",
+      pollution_degree: 2,
+    });
   });
 });
 
@@ -75,28 +98,48 @@ parts:
     expect(r.parts[0]!.pins).toEqual({ p1: "L", p2: "N", p3: "PE" });
     expect(r.parts[1]!.pins).toEqual({ p1: "A", p2: "B" });
     expect(r.parts[2]!.pins).toEqual({ vin: "A" });
-    if (result.ok) expect(result.warnings.filter((w) => w.code === "unknown-kind").map((w) => w.path)).toEqual(["parts[1].kind", "parts[2].kind"]);
+    if (result.ok)
+      expect(result.warnings.filter((w) => w.code === "unknown-kind").map((w) => w.path)).toEqual([
+        "parts[1].kind",
+        "parts[2].kind",
+      ]);
   });
 
   it("keeps a marking that YAML would read as a number as its text", () => {
-    const r = ok(parseRecord("record: 1\ntitle: t\nparts:\n  - { ref: C1, kind: capacitor, value: 100n, marking: 0104, pins: [A, B] }\n"));
+    const r = ok(
+      parseRecord(
+        "record: 1\ntitle: t\nparts:\n  - { ref: C1, kind: capacitor, value: 100n, marking: 0104, pins: [A, B] }\n",
+      ),
+    );
     expect(r.parts[0]!.marking).toBe("0104");
   });
 
   it("keeps a numeric value's own spelling as value_text", () => {
-    const r = ok(parseRecord("record: 1\ntitle: t\nparts:\n  - { ref: R1, kind: resistor, value: 1e6, pins: [A, B] }\n"));
+    const r = ok(
+      parseRecord(
+        "record: 1\ntitle: t\nparts:\n  - { ref: R1, kind: resistor, value: 1e6, pins: [A, B] }\n",
+      ),
+    );
     expect(r.parts[0]).toMatchObject({ value: 1e6, value_text: "1e6" });
   });
 
   it("orders polarised capacitor pins plus, minus", () => {
-    const r = ok(parseRecord("record: 1\ntitle: t\nparts:\n  - { ref: C2, kind: capacitor, polarised: true, value: 10u, pins: [P, M] }\n"));
+    const r = ok(
+      parseRecord(
+        "record: 1\ntitle: t\nparts:\n  - { ref: C2, kind: capacitor, polarised: true, value: 10u, pins: [P, M] }\n",
+      ),
+    );
     expect(r.parts[0]).toMatchObject({ polarised: true, pins: { plus: "P", minus: "M" } });
   });
 
   it("warns about unknown fields and ignores them", () => {
     const result = parseRecord("record: 1\ntitle: t\ncolour: red\nparts: []\n");
     expect(result.ok).toBe(true);
-    if (result.ok) expect(result.warnings.find((w) => w.code === "unknown-field")).toMatchObject({ path: "colour", line: 3 });
+    if (result.ok)
+      expect(result.warnings.find((w) => w.code === "unknown-field")).toMatchObject({
+        path: "colour",
+        line: 3,
+      });
   });
 });
 
@@ -156,7 +199,11 @@ describe("parseRecord errors", () => {
   });
 
   it("reports wrong types with what was found", () => {
-    const e = errors(parseRecord("record: 1\ntitle: t\nparts:\n  - { ref: R1, kind: resistor, value: [1], pins: [A, B], polarised: 3 }\n"));
+    const e = errors(
+      parseRecord(
+        "record: 1\ntitle: t\nparts:\n  - { ref: R1, kind: resistor, value: [1], pins: [A, B], polarised: 3 }\n",
+      ),
+    );
     expect(e.map((x) => [x.path, x.code, x.line])).toEqual([
       ["parts[0].value", "wrong-type", 4],
       ["parts[0].polarised", "wrong-type", 4],
@@ -170,11 +217,17 @@ describe("parseRecord errors", () => {
   });
 
   it("reports a duplicate key as a syntax error at the second key", () => {
-    expect(errors(parseRecord("record: 1\ntitle: a\ntitle: b\nparts: []\n")).map(brief)).toEqual([["", "yaml-syntax", 3, 1]]);
+    expect(errors(parseRecord("record: 1\ntitle: a\ntitle: b\nparts: []\n")).map(brief)).toEqual([
+      ["", "yaml-syntax", 3, 1],
+    ]);
   });
 
   it("needs a measurement's between and part fields", () => {
-    const e = errors(parseRecord("record: 1\ntitle: t\nparts: []\nmeasurements:\n  - { what: voltage.rms, value: 3 }\n  - { what: part.power, value: 3 }\n"));
+    const e = errors(
+      parseRecord(
+        "record: 1\ntitle: t\nparts: []\nmeasurements:\n  - { what: voltage.rms, value: 3 }\n  - { what: part.power, value: 3 }\n",
+      ),
+    );
     expect(e.map((x) => [x.path, x.code, x.line])).toEqual([
       ["measurements[0]", "missing-field", 5],
       ["measurements[1]", "missing-field", 6],
@@ -193,7 +246,9 @@ describe("parseRecord on JSON", () => {
 }`;
 
   it("places errors at the JSON line and column", () => {
-    expect(errors(parseRecord(json, { filename: "b.json" })).map(brief)).toEqual([["parts[1].value", "wrong-unit", 6, 50]]);
+    expect(errors(parseRecord(json, { filename: "b.json" })).map(brief)).toEqual([
+      ["parts[1].value", "wrong-unit", 6, 50],
+    ]);
   });
 
   it("sniffs JSON without a file name", () => {
@@ -201,19 +256,39 @@ describe("parseRecord on JSON", () => {
   });
 
   it("reports JSON syntax errors at their line and column, including a trailing comma YAML would accept", () => {
-    expect(errors(parseRecord('{\n  "record": 1,\n  "title": "x" "parts": []\n}', { filename: "a.json" })).map(brief)).toEqual([["", "json-syntax", 3, 16]]);
-    expect(errors(parseRecord('{"record": 1, "title": "x", "parts": [],}', { filename: "a.json" })).map(brief)).toEqual([["", "json-syntax", 1, 41]]);
+    expect(
+      errors(
+        parseRecord('{\n  "record": 1,\n  "title": "x" "parts": []\n}', { filename: "a.json" }),
+      ).map(brief),
+    ).toEqual([["", "json-syntax", 3, 16]]);
+    expect(
+      errors(parseRecord('{"record": 1, "title": "x", "parts": [],}', { filename: "a.json" })).map(
+        brief,
+      ),
+    ).toEqual([["", "json-syntax", 1, 41]]);
   });
 
   it("reads tab-indented JSON", () => {
-    const r = ok(parseRecord('{\n\t"record": 1,\n\t"title": "t",\n\t"parts": []\n}', { filename: "t.json" }));
+    const r = ok(
+      parseRecord('{\n\t"record": 1,\n\t"title": "t",\n\t"parts": []\n}', { filename: "t.json" }),
+    );
     expect(r.title).toBe("t");
   });
 });
 
 describe("parseRecord never throws", () => {
   it("answers absurd input with structured errors", () => {
-    const inputs = ["", "\u0000\u0001\u00ff", "[".repeat(50_000), "a: &x [*x]\n", "- - - -", "record: 1e999\n", "x".repeat(2_100_000), "42", "null"];
+    const inputs = [
+      "",
+      "\u0000\u0001\u00ff",
+      "[".repeat(50_000),
+      "a: &x [*x]\n",
+      "- - - -",
+      "record: 1e999\n",
+      "x".repeat(2_100_000),
+      "42",
+      "null",
+    ];
     for (const text of inputs) {
       const result = parseRecord(text);
       expect(result.ok).toBe(false);

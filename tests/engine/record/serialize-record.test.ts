@@ -28,7 +28,10 @@ describe("serializeRecord", () => {
   });
 
   it("writes records built in code (no value text of their own) readably", () => {
-    const r = record([part("R1", "resistor", ["L", "A"], 2.2e6), part("C9", "capacitor", ["A", "N"], 4.7e-9, { value_text: null })]);
+    const r = record([
+      part("R1", "resistor", ["L", "A"], 2.2e6),
+      part("C9", "capacitor", ["A", "N"], 4.7e-9, { value_text: null }),
+    ]);
     const back = parsed(serializeRecord(r, "yaml"));
     expect(back.parts.map((p) => [p.value, p.value_text])).toEqual([
       [2.2e6, "2200000"],
@@ -39,12 +42,19 @@ describe("serializeRecord", () => {
 
   it("round-trips generated records through YAML and JSON", () => {
     fc.assert(
-      fc.property(validRawRecord, fc.constantFrom("yaml" as const, "json" as const), (raw, format) => {
-        const first = parseRecord(stringify(raw));
-        if (!first.ok) throw new Error(`generator made an invalid record: ${JSON.stringify(first.errors)}`);
-        const again = parseRecord(serializeRecord(first.record, format), { filename: `r.${format}` });
-        expect(again.ok && again.record).toEqual(first.record);
-      }),
+      fc.property(
+        validRawRecord,
+        fc.constantFrom("yaml" as const, "json" as const),
+        (raw, format) => {
+          const first = parseRecord(stringify(raw));
+          if (!first.ok)
+            throw new Error(`generator made an invalid record: ${JSON.stringify(first.errors)}`);
+          const again = parseRecord(serializeRecord(first.record, format), {
+            filename: `r.${format}`,
+          });
+          expect(again.ok && again.record).toEqual(first.record);
+        },
+      ),
       { numRuns: 300 },
     );
   });

@@ -13,7 +13,9 @@ describe("AC phasor view", () => {
       part("C1", "capacitor", ["A", "B"], 1e-6),
       part("L1", "inductor", ["B", "N"], 2, { model: { r: 30 } }),
       part("R2", "resistor", ["A", "N"], 2200),
-      part("T1", "transformer", { p1: "B", p2: "N", s1: "S", s2: "N" }, null, { model: { lp: 5, ratio: 10, k: 0.95, rp: 20, rs: 1 } }),
+      part("T1", "transformer", { p1: "B", p2: "N", s1: "S", s2: "N" }, null, {
+        model: { lp: 5, ratio: 10, k: 0.95, rp: 20, rs: 1 },
+      }),
       part("R3", "resistor", ["S", "N"], 100),
     ]);
     const ac = solveAcPhasor(rec);
@@ -23,12 +25,19 @@ describe("AC phasor view", () => {
       // Source: for a linear circuit the periodic steady state is the phasor solution (superposition).
       expect(Math.abs(tr.value.nets[net]!.rms / ac.value.nets[net]!.rms - 1)).toBeLessThan(2e-3);
     }
-    expect(Math.abs(tr.value.input.current_rms / ac.value.input_current.rms - 1)).toBeLessThan(2e-3);
-    expect(Math.abs(tr.value.linear.input_current.rms - ac.value.input_current.rms)).toBeLessThan(1e-12);
+    expect(Math.abs(tr.value.input.current_rms / ac.value.input_current.rms - 1)).toBeLessThan(
+      2e-3,
+    );
+    expect(Math.abs(tr.value.linear.input_current.rms - ac.value.input_current.rms)).toBeLessThan(
+      1e-12,
+    );
   });
 
   it("treats a diode as open in the linear view", () => {
-    const rec = record([part("R1", "resistor", ["L", "A"], 1000), part("D1", "diode", { anode: "A", cathode: "N" })]);
+    const rec = record([
+      part("R1", "resistor", ["L", "A"], 1000),
+      part("D1", "diode", { anode: "A", cathode: "N" }),
+    ]);
     const ac = solveAcPhasor(rec);
     if (!ac.ok) throw new Error(ac.error.message);
     expect(ac.value.linearised).toEqual(["D1"]);
@@ -38,14 +47,20 @@ describe("AC phasor view", () => {
 
   it("steps a transformer down by its turns ratio into a light load", () => {
     const rec = record([
-      part("T1", "transformer", { p1: "L", p2: "N", s1: "S", s2: "Z" }, null, { model: { lp: 10, ratio: 20, k: 0.999, rp: 0.01, rs: 0.01 } }),
+      part("T1", "transformer", { p1: "L", p2: "N", s1: "S", s2: "Z" }, null, {
+        model: { lp: 10, ratio: 20, k: 0.999, rp: 0.01, rs: 0.01 },
+      }),
       part("R1", "resistor", ["S", "Z"], 1e6),
       part("R2", "resistor", ["Z", "N"], 1),
     ]);
     const ac = solveAcPhasor(rec);
     if (!ac.ok) throw new Error(ac.error.message);
-    const vs = Math.hypot(ac.value.nets.S!.re - ac.value.nets.Z!.re, ac.value.nets.S!.im - ac.value.nets.Z!.im) / Math.SQRT2;
+    const vs =
+      Math.hypot(
+        ac.value.nets.S!.re - ac.value.nets.Z!.re,
+        ac.value.nets.S!.im - ac.value.nets.Z!.im,
+      ) / Math.SQRT2;
     // Source: closed form, an unloaded coupled pair gives k·sqrt(Ls/Lp)·Vp = 0.999 · 230 / 20.
-    expect(vs / (0.999 * 230 / 20)).toBeCloseTo(1, 3);
+    expect(vs / ((0.999 * 230) / 20)).toBeCloseTo(1, 3);
   });
 });

@@ -4,7 +4,12 @@
  */
 import { describe, expect, it } from "vitest";
 import type { TeardownRecord } from "@teardown/engine";
-import { compileCircuit, periodicSteadyState, solveCircuit, TransientSolver } from "@teardown/engine";
+import {
+  compileCircuit,
+  periodicSteadyState,
+  solveCircuit,
+  TransientSolver,
+} from "@teardown/engine";
 import { part, record } from "../../support/record-factory.js";
 import { bridge, dropperSupply } from "./reference-circuits.js";
 
@@ -12,7 +17,12 @@ function steady(rec: TeardownRecord, shooting: boolean) {
   const c = compileCircuit(rec, { vrms: 230, hz: 50 });
   if (!c.ok) throw new Error(c.error.message);
   const solver = new TransientSolver(c.value, { lu: "sparse", maxNewtonIterations: 60 });
-  const r = periodicSteadyState(solver, { now: null, deadlineMs: Infinity, stepsLeft: 5e6 }, undefined, { shooting, maxCycles: 2000 });
+  const r = periodicSteadyState(
+    solver,
+    { now: null, deadlineMs: Infinity, stepsLeft: 5e6 },
+    undefined,
+    { shooting, maxCycles: 2000 },
+  );
   if (!r.ok) throw new Error(r.error.message);
   const cap = c.value.devices.find((d) => d.ref === "C2")!;
   return { ...r.value, vCap: r.value.startMem[cap.mem]! };

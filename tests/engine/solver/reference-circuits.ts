@@ -7,7 +7,13 @@ import type { TeardownRecord } from "@teardown/engine";
 import { part, record } from "../../support/record-factory.js";
 
 /** Bridge rectifier between the AC nets `a`, `b` and the DC nets `plus`, `minus`. */
-export function bridge(a: string, b: string, plus: string, minus: string, model: Record<string, number> = {}) {
+export function bridge(
+  a: string,
+  b: string,
+  plus: string,
+  minus: string,
+  model: Record<string, number> = {},
+) {
   return [
     part("D1", "diode", { anode: a, cathode: plus }, null, { model }),
     part("D2", "diode", { anode: b, cathode: plus }, null, { model }),
@@ -45,7 +51,12 @@ export function dropperSupply(): TeardownRecord {
 }
 
 /** Full-wave phase control: bridge, load RL to the anode, thyristor to the minus rail, divider RA/RB on the gate. */
-export function phaseControlled(ra: number, rb = 1000, rl = 10_000, diodeModel: Record<string, number> = {}): TeardownRecord {
+export function phaseControlled(
+  ra: number,
+  rb = 1000,
+  rl = 10_000,
+  diodeModel: Record<string, number> = {},
+): TeardownRecord {
   return record([
     ...bridge("L", "N", "P", "M", diodeModel),
     part("RL", "resistor", ["P", "A"], rl),
@@ -61,7 +72,9 @@ export function phaseControlled(ra: number, rb = 1000, rl = 10_000, diodeModel: 
 export function triacDimmer(ra = 47_000): TeardownRecord {
   return record([
     part("RL", "resistor", ["L", "A"], 500),
-    part("Q1", "triac", { mt1: "N", mt2: "A", gate: "G" }, null, { model: { vgt: 0.8, igt: 5e-3, ih: 10e-3, von: 1.2 } }),
+    part("Q1", "triac", { mt1: "N", mt2: "A", gate: "G" }, null, {
+      model: { vgt: 0.8, igt: 5e-3, ih: 10e-3, von: 1.2 },
+    }),
     part("RA", "resistor", ["A", "G"], ra),
     part("RB", "resistor", ["G", "N"], 1000),
   ]);

@@ -16,7 +16,10 @@ function timed<T>(f: () => T): { value: T; ms: number } {
 
 describe("solver failures as values", () => {
   it("names the floating nets of a part connected to nothing else", () => {
-    const rec = record([part("R1", "resistor", ["L", "N"], 1000), part("R2", "resistor", ["X", "Y"], 1000)]);
+    const rec = record([
+      part("R1", "resistor", ["L", "N"], 1000),
+      part("R2", "resistor", ["X", "Y"], 1000),
+    ]);
     const { value: r, ms } = timed(() => analyzeCircuit(rec));
     expect(r.ok).toBe(false);
     if (r.ok) return;
@@ -26,7 +29,10 @@ describe("solver failures as values", () => {
   });
 
   it("names the loop when a zero-ohm link shorts the supply", () => {
-    const rec = record([part("R1", "resistor", ["L", "N"], 1000), part("R0", "resistor", ["L", "N"], 0)]);
+    const rec = record([
+      part("R1", "resistor", ["L", "N"], 1000),
+      part("R0", "resistor", ["L", "N"], 0),
+    ]);
     const { value: r, ms } = timed(() => analyzeCircuit(rec));
     expect(r.ok).toBe(false);
     if (r.ok) return;
@@ -50,7 +56,10 @@ describe("solver failures as values", () => {
   });
 
   it("names the part and the time when Newton-Raphson does not converge", () => {
-    const rec = record([part("R1", "resistor", ["L", "A"], 1000), part("D1", "diode", { anode: "A", cathode: "N" })]);
+    const rec = record([
+      part("R1", "resistor", ["L", "A"], 1000),
+      part("D1", "diode", { anode: "A", cathode: "N" }),
+    ]);
     const { value: r, ms } = timed(() => solveCircuit(rec, { maxNewtonIterations: 1 }));
     expect(r.ok).toBe(false);
     if (r.ok) return;
@@ -80,7 +89,10 @@ describe("solver failures as values", () => {
   });
 
   it("takes the lowest-named net as the reference when there is no neutral", () => {
-    const rec = record([part("R1", "resistor", ["L", "B"], 1000), part("R2", "resistor", ["B", "A"], 1000)]);
+    const rec = record([
+      part("R1", "resistor", ["L", "B"], 1000),
+      part("R2", "resistor", ["B", "A"], 1000),
+    ]);
     const r = analyzeCircuit(rec, { minSupply: false });
     if (!r.ok) throw new Error(r.error.message);
     expect(r.value.nets.A).toEqual({ dc: 0, rms: 0, peak: 0 });

@@ -7,7 +7,7 @@ import { DenseLu, SparseLu } from "@teardown/engine";
 
 function generator(seed: number) {
   let s = seed;
-  return () => ((s = (s * 16807) % 2147483647) / 2147483647);
+  return () => (s = (s * 16807) % 2147483647) / 2147483647;
 }
 
 function randomSparse(n: number, seed: number) {
@@ -29,7 +29,13 @@ function randomSparse(n: number, seed: number) {
   return { rows: Int32Array.from(rows), cols: Int32Array.from(cols), values, r };
 }
 
-function residual(rows: Int32Array, cols: Int32Array, v: Float64Array, x: Float64Array, b: Float64Array): number {
+function residual(
+  rows: Int32Array,
+  cols: Int32Array,
+  v: Float64Array,
+  x: Float64Array,
+  b: Float64Array,
+): number {
   const ax = new Float64Array(b.length);
   for (let s = 0; s < v.length; s++) ax[rows[s]!]! += v[s]! * x[cols[s]!]!;
   return Math.max(...ax.map((a, i) => Math.abs(a - b[i]!)));
@@ -84,6 +90,9 @@ describe("sparse LU", () => {
     const status = lu.factor(Float64Array.from([1, 1, 1, 0]));
     expect(status).toEqual({ ok: false, singularUnknown: 2 });
     const dense = new DenseLu(3, rows, cols);
-    expect(dense.factor(Float64Array.from([1, 1, 1, 0]))).toEqual({ ok: false, singularUnknown: 2 });
+    expect(dense.factor(Float64Array.from([1, 1, 1, 0]))).toEqual({
+      ok: false,
+      singularUnknown: 2,
+    });
   });
 });

@@ -9,21 +9,32 @@ import { dropperIntoResistor, phaseControlled } from "./reference-circuits.js";
 describe("what-if runs", () => {
   it("draws less current through a dropper at 120 V 60 Hz by the closed-form ratio", () => {
     const base = analyzeCircuit(dropperIntoResistor(), { minSupply: false });
-    const us = analyzeCircuit(dropperIntoResistor(), { supply: { vrms: 120, hz: 60 }, minSupply: false });
+    const us = analyzeCircuit(dropperIntoResistor(), {
+      supply: { vrms: 120, hz: 60 },
+      minSupply: false,
+    });
     if (!base.ok || !us.ok) throw new Error("solve failed");
     const z = (hz: number) => Math.hypot(1000, 1 / (2 * Math.PI * hz * 330e-9));
     // Source: closed form, I = V/|Z(f)|.
-    expect(us.value.input.current_rms / base.value.input.current_rms).toBeCloseTo((120 / z(60)) / (230 / z(50)), 4);
+    expect(us.value.input.current_rms / base.value.input.current_rms).toBeCloseTo(
+      120 / z(60) / (230 / z(50)),
+      4,
+    );
   });
 
   it("sweeps the dropper capacitor and the current rises with it", () => {
-    const sweep = sweepPartValue(dropperIntoResistor(), "C1", [100e-9, 220e-9, 470e-9], { minSupply: false });
+    const sweep = sweepPartValue(dropperIntoResistor(), "C1", [100e-9, 220e-9, 470e-9], {
+      minSupply: false,
+    });
     if (!sweep.ok) throw new Error(sweep.error.message);
     const currents = sweep.value.map((p) => (p.result.ok ? p.result.value.input.current_rms : NaN));
     expect(currents[0]!).toBeLessThan(currents[1]!);
     expect(currents[1]!).toBeLessThan(currents[2]!);
     // Source: closed form at 470 nF.
-    expect(currents[2]! / (230 / Math.hypot(1000, 1 / (2 * Math.PI * 50 * 470e-9)))).toBeCloseTo(1, 3);
+    expect(currents[2]! / (230 / Math.hypot(1000, 1 / (2 * Math.PI * 50 * 470e-9)))).toBeCloseTo(
+      1,
+      3,
+    );
   });
 
   it("refuses to sweep a part that is not in the record", () => {
@@ -33,7 +44,11 @@ describe("what-if runs", () => {
 
   it("suggests an E24 upper divider resistor that fires near the wanted angle at 120 V", () => {
     const s = suggestTriggerResistor(phaseControlled(100_000), {
-      thyristor: "Q1", resistor: "RA", wantedAngleDeg: 30, supply: { vrms: 120, hz: 60 }, series: "E24",
+      thyristor: "Q1",
+      resistor: "RA",
+      wantedAngleDeg: 30,
+      supply: { vrms: 120, hz: 60 },
+      series: "E24",
     });
     if (!s.ok) throw new Error(s.error.message);
     const mantissa = s.value.suggested_ohms / 10 ** Math.floor(Math.log10(s.value.suggested_ohms));

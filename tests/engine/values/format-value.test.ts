@@ -26,10 +26,14 @@ describe("exactValueText", () => {
 
   it("always reads back to the same number in both notations", () => {
     fc.assert(
-      fc.property(fc.double({ min: -1e15, max: 1e15, noNaN: true }), fc.constantFrom("record" as const, "deck" as const), (v, notation) => {
-        const r = parseValue(exactValueText(v, notation), { notation });
-        return r.ok && (r.value === v || (v === 0 && r.value === 0));
-      }),
+      fc.property(
+        fc.double({ min: -1e15, max: 1e15, noNaN: true }),
+        fc.constantFrom("record" as const, "deck" as const),
+        (v, notation) => {
+          const r = parseValue(exactValueText(v, notation), { notation });
+          return r.ok && (r.value === v || (v === 0 && r.value === 0));
+        },
+      ),
       { numRuns: 2000 },
     );
   });

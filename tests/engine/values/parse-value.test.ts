@@ -1,18 +1,31 @@
 import { describe, expect, it } from "vitest";
 import { parseValue, parseTolerance, parseUncertainty, percentText } from "@teardown/engine";
 
-const valueOf = (text: string | number, unit = "any", notation: "record" | "deck" = "record"): number | string => {
+const valueOf = (
+  text: string | number,
+  unit = "any",
+  notation: "record" | "deck" = "record",
+): number | string => {
   const r = parseValue(text, { unit, notation });
   return r.ok ? r.value : r.code;
 };
 
 describe("parseValue", () => {
   it("reads SI prefixes p n u µ m k M G as powers of ten", () => {
-    expect(["2p", "3n", "4u", "4µ", "5m", "6k", "7M", "8G"].map((t) => valueOf(t))).toEqual([2e-12, 3e-9, 4e-6, 4e-6, 5e-3, 6e3, 7e6, 8e9]);
+    expect(["2p", "3n", "4u", "4µ", "5m", "6k", "7M", "8G"].map((t) => valueOf(t))).toEqual([
+      2e-12, 3e-9, 4e-6, 4e-6, 5e-3, 6e3, 7e6, 8e9,
+    ]);
   });
 
   it("reads plain numbers, decimals, signs and exponent form", () => {
-    expect([valueOf("310"), valueOf("0.25"), valueOf(".5"), valueOf("-12"), valueOf("2.2e-7"), valueOf("1E3")]).toEqual([310, 0.25, 0.5, -12, 2.2e-7, 1000]);
+    expect([
+      valueOf("310"),
+      valueOf("0.25"),
+      valueOf(".5"),
+      valueOf("-12"),
+      valueOf("2.2e-7"),
+      valueOf("1E3"),
+    ]).toEqual([310, 0.25, 0.5, -12, 2.2e-7, 1000]);
   });
 
   it("gives the same number as the literal, so 4n7 equals 4.7e-9 exactly", () => {
@@ -75,7 +88,14 @@ describe("parseValue", () => {
 
 describe("parseTolerance", () => {
   it("reads percentages, plus-minus percentages and fractions below one", () => {
-    expect([parseTolerance("5%"), parseTolerance("±10 %"), parseTolerance(0.2), parseTolerance("0.01")].map((r) => r.ok && r.value)).toEqual([0.05, 0.1, 0.2, 0.01]);
+    expect(
+      [
+        parseTolerance("5%"),
+        parseTolerance("±10 %"),
+        parseTolerance(0.2),
+        parseTolerance("0.01"),
+      ].map((r) => r.ok && r.value),
+    ).toEqual([0.05, 0.1, 0.2, 0.01]);
   });
 
   it("rejects tolerances of 100% or more and unknown letters", () => {

@@ -428,16 +428,14 @@ describe("public entries, archive, state and exports", () => {
       .select()
       .from(schema.revisions)
       .where(eq(schema.revisions.entryId, entryId));
-    await app.db.db
-      .insert(schema.analyses)
-      .values({
-        revisionId: rev!.id,
-        engineVersion: "0.9.0",
-        state: "done",
-        result: { engine: "0.9.0" },
-        startedAt: sql`now()`,
-        finishedAt: sql`now()`,
-      });
+    await app.db.db.insert(schema.analyses).values({
+      revisionId: rev!.id,
+      engineVersion: "0.9.0",
+      state: "done",
+      result: { engine: "0.9.0" },
+      startedAt: sql`now()`,
+      finishedAt: sql`now()`,
+    });
     const got = await call("GET", `/api/entries/${entryId}`, { as: viewer.as });
     expect(got.body.analysis.state).toBe("queued");
     expect(got.body.olderAnalysis).toMatchObject({

@@ -11,7 +11,11 @@ const ROOT = projectRoot();
 const dir = mkdtempSync(path.join(os.tmpdir(), "tl-analyze-"));
 
 function analyze(...args: string[]) {
-  const r = spawnSync(process.execPath, ["--import", "tsx", path.join(ROOT, "analysis-worker/src/analyze-cli.ts"), ...args], { cwd: ROOT, encoding: "utf8", timeout: 120_000 });
+  const r = spawnSync(
+    process.execPath,
+    ["--import", "tsx", path.join(ROOT, "analysis-worker/src/analyze-cli.ts"), ...args],
+    { cwd: ROOT, encoding: "utf8", timeout: 120_000 },
+  );
   return { code: r.status, stdout: r.stdout, stderr: r.stderr };
 }
 
@@ -20,7 +24,22 @@ describe("npm run analyze", () => {
     const file = path.join(dir, "bad.yaml");
     writeFileSync(
       file,
-      ["record: 1", "title: Broken", "parts:", "  - ref: C1", "    kind: capacitor", "    value: 33x", "    pins: [L, A]", "  - ref: R1", "    kind: resistor", "    value: 1M", "    pins: { gate: L, b: A }", "nets:", "  L: { role: line }", ""].join("\n"),
+      [
+        "record: 1",
+        "title: Broken",
+        "parts:",
+        "  - ref: C1",
+        "    kind: capacitor",
+        "    value: 33x",
+        "    pins: [L, A]",
+        "  - ref: R1",
+        "    kind: resistor",
+        "    value: 1M",
+        "    pins: { gate: L, b: A }",
+        "nets:",
+        "  L: { role: line }",
+        "",
+      ].join("\n"),
     );
     const r = analyze(file);
     expect(r.code).toBe(1);
@@ -33,7 +52,12 @@ describe("npm run analyze", () => {
 
   it("exits 1 with line numbers on a malformed netlist deck", () => {
     const file = path.join(dir, "bad.cir");
-    writeFileSync(file, ["Broken deck", ".line L", ".neutral N", "R1 L A 1M", "C1 A N 33q", "R2 A", ".end", ""].join("\n"));
+    writeFileSync(
+      file,
+      ["Broken deck", ".line L", ".neutral N", "R1 L A 1M", "C1 A N 33q", "R2 A", ".end", ""].join(
+        "\n",
+      ),
+    );
     const r = analyze(file);
     expect(r.code).toBe(1);
     expect(r.stderr).toMatch(new RegExp(`${file.replace(/[.*+?^${}()|[\]\\]/g, "\\$&")}:5:`));
@@ -43,7 +67,9 @@ describe("npm run analyze", () => {
   it("names a file it cannot read", () => {
     const r = analyze(path.join(dir, "missing.yaml"));
     expect(r.code).toBe(1);
-    expect(r.stderr.trim()).toBe(`${path.join(dir, "missing.yaml")}: cannot read the file (ENOENT)`);
+    expect(r.stderr.trim()).toBe(
+      `${path.join(dir, "missing.yaml")}: cannot read the file (ENOENT)`,
+    );
   });
 
   it("prints parts, series, blocks and checks for a good record", () => {
@@ -56,9 +82,18 @@ describe("npm run analyze", () => {
   });
 
   it("prints the result fields as JSON with --json, at the supply --supply names", () => {
-    const r = analyze("seed-demo/records/glowmoth-night-light.yaml", "--json", "--supply", "120/60");
+    const r = analyze(
+      "seed-demo/records/glowmoth-night-light.yaml",
+      "--json",
+      "--supply",
+      "120/60",
+    );
     expect(r.code).toBe(0);
-    const result = JSON.parse(r.stdout) as { engine: string; supply: { vrms: number; hz: number }; blocks: Array<{ kind: string }> };
+    const result = JSON.parse(r.stdout) as {
+      engine: string;
+      supply: { vrms: number; hz: number };
+      blocks: Array<{ kind: string }>;
+    };
     expect(result.supply).toEqual({ vrms: 120, hz: 60 });
     expect(result.blocks.map((b) => b.kind)).toContain("bridge-rectifier");
   });

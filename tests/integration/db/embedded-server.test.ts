@@ -36,7 +36,10 @@ describe("the embedded server", () => {
   it("starts on a fresh folder, answers, and stops cleanly", async () => {
     const server = await startEmbeddedServer({ dataDir: path.join(dir, "pg") });
     expect(server.owned).toBe(true);
-    const r = await query(server.adminUrl, "select current_setting('server_version_num')::int as v");
+    const r = await query(
+      server.adminUrl,
+      "select current_setting('server_version_num')::int as v",
+    );
     expect(r.rows[0].v).toBeGreaterThanOrEqual(170000);
     await query(server.adminUrl, "create table kept (x int); insert into kept values (42)");
     await server.stop();

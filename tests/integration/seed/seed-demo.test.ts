@@ -33,7 +33,13 @@ describe("the demo seed", () => {
     expect(first).toEqual({ loaded: true, entries: demoRecordDocs().length });
     const second = await loadDemoData(a.db, boss);
     expect(second).toEqual({ loaded: false, entries: 0 });
-    const counts = await a.db.execute<{ teams: number; entries: number; revisions: number; queued: number; jobs: number }>(sql`
+    const counts = await a.db.execute<{
+      teams: number;
+      entries: number;
+      revisions: number;
+      queued: number;
+      jobs: number;
+    }>(sql`
       select (select count(*)::int from teams) as teams, (select count(*)::int from entries) as entries,
              (select count(*)::int from revisions) as revisions,
              (select count(*)::int from analyses where state = 'queued') as queued,
@@ -44,7 +50,11 @@ describe("the demo seed", () => {
   it("gives two databases the same records, hash for hash", async () => {
     await loadDemoData(b.db, await bossFor(b.url));
     const hashes = async (t: TestDatabase) =>
-      (await t.db.execute<{ record_hash: string }>(sql`select record_hash from revisions order by record_hash`)).rows.map((r) => r.record_hash);
+      (
+        await t.db.execute<{ record_hash: string }>(
+          sql`select record_hash from revisions order by record_hash`,
+        )
+      ).rows.map((r) => r.record_hash);
     expect(await hashes(b)).toEqual(await hashes(a));
   });
 });

@@ -8,13 +8,19 @@ import { projectRoot } from "@teardown/db";
 
 const ROOT = projectRoot();
 
-function runStart(env: Record<string, string>): Promise<{ code: number | null; stdout: string; stderr: string }> {
+function runStart(
+  env: Record<string, string>,
+): Promise<{ code: number | null; stdout: string; stderr: string }> {
   return new Promise((resolve) => {
-    const child = spawn(process.execPath, ["--import", "tsx", path.join(ROOT, "scripts", "start.ts")], {
-      cwd: ROOT,
-      env: { ...process.env, ...env },
-      stdio: ["ignore", "pipe", "pipe"],
-    });
+    const child = spawn(
+      process.execPath,
+      ["--import", "tsx", path.join(ROOT, "scripts", "start.ts")],
+      {
+        cwd: ROOT,
+        env: { ...process.env, ...env },
+        stdio: ["ignore", "pipe", "pipe"],
+      },
+    );
     let stdout = "";
     let stderr = "";
     child.stdout.on("data", (c: Buffer) => (stdout += c.toString()));
@@ -34,7 +40,10 @@ async function closedPort(): Promise<number> {
 describe("npm start with bad configuration", () => {
   it("names the host and the cause in one line when DATABASE_URL is unreachable", async () => {
     const dbPort = await closedPort();
-    const res = await runStart({ DATABASE_URL: `postgres://postgres@127.0.0.1:${dbPort}/nowhere`, PORT: String(await closedPort()) });
+    const res = await runStart({
+      DATABASE_URL: `postgres://postgres@127.0.0.1:${dbPort}/nowhere`,
+      PORT: String(await closedPort()),
+    });
     expect(res.code).toBe(1);
     const lines = res.stderr.trim().split("\n");
     expect(lines).toHaveLength(1);
@@ -44,7 +53,10 @@ describe("npm start with bad configuration", () => {
   }, 60_000);
 
   it("says the URL is malformed when DATABASE_URL is not a URL", async () => {
-    const res = await runStart({ DATABASE_URL: "not a url at all", PORT: String(await closedPort()) });
+    const res = await runStart({
+      DATABASE_URL: "not a url at all",
+      PORT: String(await closedPort()),
+    });
     expect(res.code).toBe(1);
     expect(res.stderr.trim().split("\n")).toHaveLength(1);
     expect(res.stderr).toMatch(/not a valid postgres:\/\/ URL/);
@@ -55,9 +67,14 @@ describe("npm start with bad configuration", () => {
     await new Promise<void>((r) => srv.listen(0, "0.0.0.0", () => r()));
     const port = (srv.address() as net.AddressInfo).port;
     try {
-      const res = await runStart({ PORT: String(port), DATABASE_URL: "postgres://postgres@127.0.0.1:1/x" });
+      const res = await runStart({
+        PORT: String(port),
+        DATABASE_URL: "postgres://postgres@127.0.0.1:1/x",
+      });
       expect(res.code).toBe(1);
-      expect(res.stderr.trim()).toBe(`teardown-ledger: port ${port} is already in use (set PORT to another port, or stop what uses it)`);
+      expect(res.stderr.trim()).toBe(
+        `teardown-ledger: port ${port} is already in use (set PORT to another port, or stop what uses it)`,
+      );
     } finally {
       srv.close();
     }

@@ -26,11 +26,15 @@ afterAll(async () => {
 });
 
 function start(env: Record<string, string>): Started {
-  const child = spawn(process.execPath, ["--import", "tsx", path.join(ROOT, "scripts", "start.ts")], {
-    cwd: ROOT,
-    env: "PATH" in env ? env : { ...process.env, ...env },
-    stdio: ["ignore", "pipe", "pipe"],
-  });
+  const child = spawn(
+    process.execPath,
+    ["--import", "tsx", path.join(ROOT, "scripts", "start.ts")],
+    {
+      cwd: ROOT,
+      env: "PATH" in env ? env : { ...process.env, ...env },
+      stdio: ["ignore", "pipe", "pipe"],
+    },
+  );
   started.push(child);
   let out = "";
   child.stdout!.on("data", (c: Buffer) => (out += c.toString()));
@@ -65,7 +69,10 @@ async function childPids(pid: number): Promise<Array<{ pid: number; cmd: string 
       .trim()
       .split("\n")
       .filter(Boolean)
-      .map((p) => ({ pid: Number(p), cmd: readFileSync(`/proc/${p}/cmdline`, "utf8").replace(/\0/g, " ") }));
+      .map((p) => ({
+        pid: Number(p),
+        cmd: readFileSync(`/proc/${p}/cmdline`, "utf8").replace(/\0/g, " "),
+      }));
   } catch {
     return [];
   }
@@ -94,7 +101,10 @@ describe("npm start with DATABASE_URL", () => {
     };
 
     const first = start(env);
-    await waitFor(() => /is running at/.test(first.output()) || first.child.exitCode !== null, 240_000);
+    await waitFor(
+      () => /is running at/.test(first.output()) || first.child.exitCode !== null,
+      240_000,
+    );
     expect(first.output()).toContain(`http://localhost:${port}`);
     const health = await fetch(`http://localhost:${port}/api/health`);
     expect(health.status).toBe(200);
@@ -114,14 +124,18 @@ describe("npm start with DATABASE_URL", () => {
     expect(await first.exit).toBe(0);
     expect(first.output()).toContain("[start] stopped");
     await new Promise((r) => setTimeout(r, 500));
-    const leftovers = (await import("node:child_process")).execFileSync("ps", ["-eo", "pid,args"], { encoding: "utf8" })
+    const leftovers = (await import("node:child_process"))
+      .execFileSync("ps", ["-eo", "pid,args"], { encoding: "utf8" })
       .split("\n")
       .filter((l) => l.includes(`-p ${port}`) || l.includes(target.name));
     expect(leftovers).toEqual([]);
     expect(alive(first.child.pid!)).toBe(false);
 
     const second = start(env);
-    await waitFor(() => /is running at/.test(second.output()) || second.child.exitCode !== null, 240_000);
+    await waitFor(
+      () => /is running at/.test(second.output()) || second.child.exitCode !== null,
+      240_000,
+    );
     expect(second.output()).toContain("demo data already present");
     expect(second.output()).not.toContain("building the web app");
     expect(await demoTeams()).toBe(teamsAfterFirst);
@@ -134,12 +148,19 @@ describe("npm start with DATABASE_URL", () => {
     const port = await findFreePort();
     const run = start({ DATABASE_URL: target.url, PORT: String(port) });
     await waitFor(() => /is running at/.test(run.output()) || run.child.exitCode !== null, 240_000);
-    const worker = (await childPids(run.child.pid!)).find((c) => c.cmd.includes("analysis-worker/src/main.ts"));
+    const worker = (await childPids(run.child.pid!)).find((c) =>
+      c.cmd.includes("analysis-worker/src/main.ts"),
+    );
     expect(worker).toBeDefined();
     process.kill(worker!.pid, "SIGKILL");
     expect(await run.exit).toBe(1);
-    expect(run.output()).toMatch(/the worker process exited \(code null, signal SIGKILL\); stopping everything/);
-    const health = await fetch(`http://localhost:${port}/api/health`).then((r) => r.status, () => "refused");
+    expect(run.output()).toMatch(
+      /the worker process exited \(code null, signal SIGKILL\); stopping everything/,
+    );
+    const health = await fetch(`http://localhost:${port}/api/health`).then(
+      (r) => r.status,
+      () => "refused",
+    );
     expect(health).toBe("refused");
   }, 300_000);
 
@@ -150,12 +171,20 @@ describe("npm start with DATABASE_URL", () => {
     chmodSync(dataDir, 0o755);
     try {
       const port = await findFreePort();
-      const env = { ...process.env, PORT: String(port), TEARDOWN_DATA_DIR: dataDir } as Record<string, string>;
+      const env = { ...process.env, PORT: String(port), TEARDOWN_DATA_DIR: dataDir } as Record<
+        string,
+        string
+      >;
       delete env.DATABASE_URL;
       const run = start(env);
-      await waitFor(() => /is running at/.test(run.output()) || run.child.exitCode !== null, 240_000);
+      await waitFor(
+        () => /is running at/.test(run.output()) || run.child.exitCode !== null,
+        240_000,
+      );
       expect(run.output()).toContain("embedded Postgres on port");
-      const pidLine = (await import("node:fs")).readFileSync(path.join(dataDir, "postgres", "postmaster.pid"), "utf8").split("\n")[0];
+      const pidLine = (await import("node:fs"))
+        .readFileSync(path.join(dataDir, "postgres", "postmaster.pid"), "utf8")
+        .split("\n")[0];
       process.kill(Number(pidLine), "SIGKILL");
       expect(await run.exit).toBe(1);
       expect(run.output()).toMatch(/the embedded Postgres server exited/);

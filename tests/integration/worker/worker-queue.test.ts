@@ -26,14 +26,19 @@ afterAll(async () => {
 });
 
 async function analysesByState(): Promise<Record<string, number>> {
-  const rows = await t.db.execute<{ state: string; n: number }>(sql`select state, count(*)::int as n from analyses group by state`);
+  const rows = await t.db.execute<{ state: string; n: number }>(
+    sql`select state, count(*)::int as n from analyses group by state`,
+  );
   return Object.fromEntries(rows.rows.map((r) => [r.state, r.n]));
 }
 
 async function waitUntil(cond: () => Promise<boolean>, ms: number): Promise<void> {
   const end = Date.now() + ms;
   while (!(await cond())) {
-    if (Date.now() > end) throw new Error(`condition not met within ${ms} ms: ${JSON.stringify(await analysesByState())}`);
+    if (Date.now() > end)
+      throw new Error(
+        `condition not met within ${ms} ms: ${JSON.stringify(await analysesByState())}`,
+      );
     await new Promise((r) => setTimeout(r, 250));
   }
 }
@@ -41,30 +46,45 @@ async function waitUntil(cond: () => Promise<boolean>, ms: number): Promise<void
 describe("the analysis worker", () => {
   it("turns 200 enqueued revisions into exactly 200 analyses, each once, across two processes", async () => {
     const team = await makeTeam(t.db);
-    for (let i = 0; i < 200; i++) await makeEntry(t.db, boss, team, nightLightDoc(i), ENGINE_VERSION);
-    workers.push(startWorkerProcess(t.url, { WORKER_CONCURRENCY: "2" }), startWorkerProcess(t.url, { WORKER_CONCURRENCY: "2" }));
+    for (let i = 0; i < 200; i++)
+      await makeEntry(t.db, boss, team, nightLightDoc(i), ENGINE_VERSION);
+    workers.push(
+      startWorkerProcess(t.url, { WORKER_CONCURRENCY: "2" }),
+      startWorkerProcess(t.url, { WORKER_CONCURRENCY: "2" }),
+    );
     await waitUntil(async () => ((await analysesByState()).done ?? 0) === 200, 240_000);
     expect(await analysesByState()).toEqual({ done: 200 });
-    const finishedDone = workers.flatMap((w) => w.logs).filter((l) => l.msg === "analysis job finished" && l.outcome === "done");
+    const finishedDone = workers
+      .flatMap((w) => w.logs)
+      .filter((l) => l.msg === "analysis job finished" && l.outcome === "done");
     expect(finishedDone).toHaveLength(200);
     expect(new Set(finishedDone.map((l) => l.revisionId)).size).toBe(200);
     // The entries' search columns came from their analyses.
-    const withBlocks = await t.db.execute<{ n: number }>(sql`select count(*)::int as n from entries where 'bridge-rectifier' = any(search_blocks) and cardinality(fingerprint) > 10`);
+    const withBlocks = await t.db.execute<{ n: number }>(
+      sql`select count(*)::int as n from entries where 'bridge-rectifier' = any(search_blocks) and cardinality(fingerprint) > 10`,
+    );
     expect(withBlocks.rows[0]!.n).toBe(200);
   }, 300_000);
 
   it("gives one analysis row when the same revision is enqueued twice", async () => {
     const team = await makeTeam(t.db);
     const { revisionId } = await makeEntry(t.db, boss, team, nightLightDoc(7), ENGINE_VERSION);
-    const again = await t.db.transaction((tx) => enqueueAnalysis(tx, boss, { revisionId, engineVersion: ENGINE_VERSION }));
+    const again = await t.db.transaction((tx) =>
+      enqueueAnalysis(tx, boss, { revisionId, engineVersion: ENGINE_VERSION }),
+    );
     expect(again).toBe(false);
     // A duplicate job sent behind the guard's back is absorbed by the idempotent upsert too.
     await boss.send(ANALYSIS_QUEUE, { revisionId, engineVersion: ENGINE_VERSION });
     await waitUntil(async () => {
-      const jobs = await t.db.execute<{ n: number }>(sql`select count(*)::int as n from pgboss.job where name = ${ANALYSIS_QUEUE} and data->>'revisionId' = ${revisionId} and state = 'completed'`);
+      const jobs = await t.db.execute<{ n: number }>(
+        sql`select count(*)::int as n from pgboss.job where name = ${ANALYSIS_QUEUE} and data->>'revisionId' = ${revisionId} and state = 'completed'`,
+      );
       return jobs.rows[0]!.n === 2;
     }, 60_000);
-    const rows = await t.db.select().from(schema.analyses).where(sql`${schema.analyses.revisionId} = ${revisionId}`);
+    const rows = await t.db
+      .select()
+      .from(schema.analyses)
+      .where(sql`${schema.analyses.revisionId} = ${revisionId}`);
     expect(rows).toHaveLength(1);
     expect(rows[0]!.state).toBe("done");
   }, 90_000);
@@ -74,14 +94,22 @@ describe("the analysis worker", () => {
     const bad = await makeEntry(t.db, boss, team, brokenDoc(), ENGINE_VERSION);
     const good = await makeEntry(t.db, boss, team, nightLightDoc(3), ENGINE_VERSION);
     await waitUntil(async () => {
-      const rows = await t.db.execute<{ state: string }>(sql`select state from analyses where revision_id in (${bad.revisionId}, ${good.revisionId}) and state in ('done', 'failed')`);
+      const rows = await t.db.execute<{ state: string }>(
+        sql`select state from analyses where revision_id in (${bad.revisionId}, ${good.revisionId}) and state in ('done', 'failed')`,
+      );
       return rows.rows.length === 2;
     }, 60_000);
-    const [failed] = await t.db.select().from(schema.analyses).where(sql`${schema.analyses.revisionId} = ${bad.revisionId}`);
+    const [failed] = await t.db
+      .select()
+      .from(schema.analyses)
+      .where(sql`${schema.analyses.revisionId} = ${bad.revisionId}`);
     expect(failed!.state).toBe("failed");
     expect(failed!.errorStage).toBe("validate");
     expect(failed!.error).toMatch(/parts\[1\]/);
-    const [ok] = await t.db.select().from(schema.analyses).where(sql`${schema.analyses.revisionId} = ${good.revisionId}`);
+    const [ok] = await t.db
+      .select()
+      .from(schema.analyses)
+      .where(sql`${schema.analyses.revisionId} = ${good.revisionId}`);
     expect(ok!.state).toBe("done");
   }, 90_000);
 });
@@ -95,20 +123,32 @@ describe("a worker with a short time budget", () => {
     const team = await makeTeam(t.db);
     const slow = await makeEntry(t.db, boss, team, ladderDoc(150), ENGINE_VERSION);
     const quick: Array<{ revisionId: string }> = [];
-    for (let i = 0; i < 4; i++) quick.push(await makeEntry(t.db, boss, team, nightLightDoc(100 + i), ENGINE_VERSION));
+    for (let i = 0; i < 4; i++)
+      quick.push(await makeEntry(t.db, boss, team, nightLightDoc(100 + i), ENGINE_VERSION));
     const w = startWorkerProcess(t.url, { WORKER_CONCURRENCY: "2", ANALYSIS_BUDGET_MS: "2500" });
     workers.push(w);
     await waitUntil(async () => {
       const ids = [slow.revisionId, ...quick.map((q) => q.revisionId)];
-      const rows = await t.db.execute<{ n: number }>(sql`select count(*)::int as n from analyses where revision_id in (${sql.join(ids.map((id) => sql`${id}`), sql`, `)}) and state in ('done', 'failed')`);
+      const rows = await t.db.execute<{ n: number }>(
+        sql`select count(*)::int as n from analyses where revision_id in (${sql.join(
+          ids.map((id) => sql`${id}`),
+          sql`, `,
+        )}) and state in ('done', 'failed')`,
+      );
       return rows.rows[0]!.n === 5;
     }, 90_000);
-    const [s] = await t.db.select().from(schema.analyses).where(sql`${schema.analyses.revisionId} = ${slow.revisionId}`);
+    const [s] = await t.db
+      .select()
+      .from(schema.analyses)
+      .where(sql`${schema.analyses.revisionId} = ${slow.revisionId}`);
     expect(s!.state).toBe("failed");
     expect(s!.errorStage).toBe("timeout");
     expect(s!.error).toContain("time budget of 2500 ms");
     for (const q of quick) {
-      const [r] = await t.db.select().from(schema.analyses).where(sql`${schema.analyses.revisionId} = ${q.revisionId}`);
+      const [r] = await t.db
+        .select()
+        .from(schema.analyses)
+        .where(sql`${schema.analyses.revisionId} = ${q.revisionId}`);
       expect(r!.state).toBe("done");
     }
   }, 120_000);

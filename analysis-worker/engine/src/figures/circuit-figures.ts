@@ -9,7 +9,13 @@ import { GMIN_SIEMENS, nodeV } from "../solver/mna.js";
 import type { SteadyState } from "../solver/periodic-steady-state.js";
 import { terminalCurrents } from "../solver/transient-stamps.js";
 import { thdFromSamples } from "./fft.js";
-import { peakMagnitude, periodMean, periodMeanProduct, periodRms, resampleUniform } from "./waveform-stats.js";
+import {
+  peakMagnitude,
+  periodMean,
+  periodMeanProduct,
+  periodRms,
+  resampleUniform,
+} from "./waveform-stats.js";
 
 /** Uniform points per cycle for the line-current FFT (2^10). */
 export const FFT_POINTS = 1024;
@@ -71,7 +77,9 @@ export function cycleFigures(c: Circuit, steady: SteadyState): CycleFigures {
   const samples = [{ t: 0, x: last.x, mem: last.mem }, ...run.samples];
   const ns = samples.length;
   const t = Float64Array.from(samples, (s) => s.t);
-  const supply = c.devices.find((d): d is Extract<CircuitDevice, { type: "supply" }> => d.type === "supply")!;
+  const supply = c.devices.find(
+    (d): d is Extract<CircuitDevice, { type: "supply" }> => d.type === "supply",
+  )!;
   const vIn = Float64Array.from(samples, (s) => nodeV(s.x, supply.terminals[0]!));
   const iIn = Float64Array.from(samples, (s) => s.x[supply.branch]!);
 
@@ -96,13 +104,19 @@ export function cycleFigures(c: Circuit, steady: SteadyState): CycleFigures {
     if (d.type === "supply") continue;
     let vPeak = 0;
     for (let k = 0; k < ns; k++)
-      for (let a = 0; a < nt; a++) for (let b = a + 1; b < nt; b++) vPeak = Math.max(vPeak, Math.abs(volts[k * nt + a]! - volts[k * nt + b]!));
+      for (let a = 0; a < nt; a++)
+        for (let b = a + 1; b < nt; b++)
+          vPeak = Math.max(vPeak, Math.abs(volts[k * nt + a]! - volts[k * nt + b]!));
     const main = new Float64Array(ns);
     for (let k = 0; k < ns; k++) main[k] = amps[k * nt]!;
     // Storage parts by the step quadrature that matches their companion model (their mean is then
     // exactly their energy change); dissipating parts by the trapezoid of v·i, like their RMS.
     const storage = d.type === "capacitor" || d.type === "coupled";
-    parts[d.ref] = { voltage_peak: vPeak, current_rms: periodRms(t, main), power: storage ? stepPower(t, volts, amps, nt) : trapezoidPower(t, volts, amps, nt) };
+    parts[d.ref] = {
+      voltage_peak: vPeak,
+      current_rms: periodRms(t, main),
+      power: storage ? stepPower(t, volts, amps, nt) : trapezoidPower(t, volts, amps, nt),
+    };
     series[`${d.ref}.current`] = main;
   }
 
@@ -117,7 +131,11 @@ export function cycleFigures(c: Circuit, steady: SteadyState): CycleFigures {
   // KCL at every net and sample: currents into the parts' pins plus the gmin leak.
   let kcl = 0;
   for (let k = 0; k < ns; k++)
-    for (const { i } of netNodes) kcl = Math.max(kcl, Math.abs(kclSum[k * c.nodeCount + i]! + GMIN_SIEMENS * samples[k]!.x[i]!));
+    for (const { i } of netNodes)
+      kcl = Math.max(
+        kcl,
+        Math.abs(kclSum[k * c.nodeCount + i]! + GMIN_SIEMENS * samples[k]!.x[i]!),
+      );
 
   const currentRms = periodRms(t, iIn);
   const power = periodMeanProduct(t, vIn, iIn);
@@ -136,7 +154,8 @@ export function cycleFigures(c: Circuit, steady: SteadyState): CycleFigures {
   const nOut = Math.min(MAX_WAVEFORM_POINTS, t.length);
   const tOut = Array.from({ length: nOut }, (_, k) => (window * k) / nOut);
   const out: Record<string, number[]> = {};
-  for (const [name, y] of Object.entries(series)) out[name] = Array.from(resampleUniform(t, y, nOut));
+  for (const [name, y] of Object.entries(series))
+    out[name] = Array.from(resampleUniform(t, y, nOut));
   return { input, parts, nets, firings, waveforms: { t: tOut, series: out }, kclResidualAmps: kcl };
 }
 
@@ -148,7 +167,12 @@ export function cycleFigures(c: Circuit, steady: SteadyState): CycleFigures {
  * spurious -h/4·Δv·Δi per step, which is large where a fast ring is stepped across.
  */
 /** Mean power into a part's terminals by the trapezoid of Σ v·i at the samples. */
-function trapezoidPower(t: Float64Array, volts: Float64Array, amps: Float64Array, nt: number): number {
+function trapezoidPower(
+  t: Float64Array,
+  volts: Float64Array,
+  amps: Float64Array,
+  nt: number,
+): number {
   let e = 0;
   let before = 0;
   for (let k = 0; k < t.length; k++) {
@@ -165,7 +189,10 @@ function stepPower(t: Float64Array, volts: Float64Array, amps: Float64Array, nt:
   let e = 0;
   for (let k = 1; k < t.length; k++) {
     let p = 0;
-    for (let q = 0; q < nt; q++) p += (volts[(k - 1) * nt + q]! + volts[k * nt + q]!) * (amps[(k - 1) * nt + q]! + amps[k * nt + q]!);
+    for (let q = 0; q < nt; q++)
+      p +=
+        (volts[(k - 1) * nt + q]! + volts[k * nt + q]!) *
+        (amps[(k - 1) * nt + q]! + amps[k * nt + q]!);
     e += 0.25 * (t[k]! - t[k - 1]!) * p;
   }
   const span = t[t.length - 1]! - t[0]!;
@@ -182,7 +209,9 @@ export function firingFigures(c: Circuit, steady: SteadyState): FiringFigures[] 
   return c.devices
     .filter((d) => d.type === "switching")
     .map((d) => {
-      const ons = run.events.filter((e) => e.ref === d.ref && e.on).map((e) => ({ ...e, t: Math.max(0, inCycle(e.t)) }));
+      const ons = run.events
+        .filter((e) => e.ref === d.ref && e.on)
+        .map((e) => ({ ...e, t: Math.max(0, inCycle(e.t)) }));
       const pos = ons.find((e) => e.t < period / 2);
       const neg = ons.find((e) => e.t >= period / 2);
       const latchedAll = ons.length === 0 && samples.every((s) => s.mem[d.mem]! > 0.5);
@@ -191,7 +220,10 @@ export function firingFigures(c: Circuit, steady: SteadyState): FiringFigures[] 
         fires: ons.length > 0 || latchedAll,
         angle_deg: pos ? (pos.t / period) * 360 : null,
         angle_negative_deg: neg ? (neg.t / period) * 360 - 180 : null,
-        halves: { positive: pos !== undefined || latchedAll, negative: neg !== undefined || latchedAll },
+        halves: {
+          positive: pos !== undefined || latchedAll,
+          negative: neg !== undefined || latchedAll,
+        },
       };
     });
 }

@@ -6,7 +6,8 @@
 /** In-place forward FFT of (re, im); the length must be a power of two. */
 export function fftRadix2(re: Float64Array, im: Float64Array): void {
   const n = re.length;
-  if (n !== im.length || (n & (n - 1)) !== 0) throw new Error(`FFT length ${n} is not a power of two`);
+  if (n !== im.length || (n & (n - 1)) !== 0)
+    throw new Error(`FFT length ${n} is not a power of two`);
   for (let i = 1, j = 0; i < n; i++) {
     let bit = n >> 1;
     for (; j & bit; bit >>= 1) j ^= bit;

@@ -51,9 +51,9 @@ export function figureOfMeasurement(m: Measurement): FigureOf {
         return m.what === "voltage.rms" ? periodRms(a.t, d) : peakMagnitude(d);
       };
     case "part.current_rms":
-      return (s) => (m.part === null ? null : s.figures.parts[m.part]?.current_rms ?? null);
+      return (s) => (m.part === null ? null : (s.figures.parts[m.part]?.current_rms ?? null));
     case "part.power":
-      return (s) => (m.part === null ? null : s.figures.parts[m.part]?.power ?? null);
+      return (s) => (m.part === null ? null : (s.figures.parts[m.part]?.power ?? null));
     default: {
       const never: never = m.what;
       throw new Error(`unhandled measurement kind ${String(never)}`);
@@ -64,7 +64,9 @@ export function figureOfMeasurement(m: Measurement): FigureOf {
 /** The measurement's stated uncertainty in its own unit (0 when none is stated). */
 export function uncertaintyOf(m: Measurement): number {
   if (m.uncertainty === null) return 0;
-  return "relative" in m.uncertainty ? Math.abs(m.uncertainty.relative * m.value) : Math.abs(m.uncertainty.absolute);
+  return "relative" in m.uncertainty
+    ? Math.abs(m.uncertainty.relative * m.value)
+    : Math.abs(m.uncertainty.absolute);
 }
 
 /** One compared measurement with the band behind it. */
@@ -91,7 +93,10 @@ function sameSupply(a: Supply, b: Supply): boolean {
 }
 
 /** Compares every measurement of the record with its predicted band; measurements whose figure cannot be read are noted and left out. */
-export function compareMeasurements(rec: TeardownRecord, opts: CompareOptions): { checks: MeasurementCheck[]; notes: string[] } {
+export function compareMeasurements(
+  rec: TeardownRecord,
+  opts: CompareOptions,
+): { checks: MeasurementCheck[]; notes: string[] } {
   const notes: string[] = [];
   const checks: MeasurementCheck[] = [];
   const groups: Array<{ supply: Supply; members: number[] }> = [];
@@ -102,8 +107,14 @@ export function compareMeasurements(rec: TeardownRecord, opts: CompareOptions): 
   });
   for (const g of groups) {
     const figures = g.members.map((i) => figureOfMeasurement(rec.measurements[i]!));
-    const reuse = opts.reuse && sameSupply(opts.reuse.supply, g.supply) ? opts.reuse.solved : undefined;
-    const bands: BandResult = toleranceBands(rec, g.supply, figures, { seed: opts.seed, samples: opts.samples, budget: opts.budget, nominal: reuse });
+    const reuse =
+      opts.reuse && sameSupply(opts.reuse.supply, g.supply) ? opts.reuse.solved : undefined;
+    const bands: BandResult = toleranceBands(rec, g.supply, figures, {
+      seed: opts.seed,
+      samples: opts.samples,
+      budget: opts.budget,
+      nominal: reuse,
+    });
     notes.push(...bands.notes);
     const nominal = bands.nominalSolve;
     if (nominal === null) continue;
@@ -111,15 +122,31 @@ export function compareMeasurements(rec: TeardownRecord, opts: CompareOptions): 
       const m = rec.measurements[i]!;
       const b = bands.figures[k]!;
       if (b === null) {
-        notes.push(`measurements[${i}] (${m.what}): the figure cannot be read from the solved circuit (unknown net or part), so it was not compared`);
+        notes.push(
+          `measurements[${i}] (${m.what}): the figure cannot be read from the solved circuit (unknown net or part), so it was not compared`,
+        );
         return;
       }
       const u = uncertaintyOf(m);
       const low = b.low - u;
       const high = b.high + u;
       checks.push({
-        comparison: { measurement: i, what: m.what, measured: m.value, predicted: b.nominal, low, high, verdict: m.value >= low && m.value <= high ? "agrees" : "disagrees" },
-        band: { nominal: b.nominal, low: b.low, high: b.high, uncertainty: u, samples: bands.samplesUsed },
+        comparison: {
+          measurement: i,
+          what: m.what,
+          measured: m.value,
+          predicted: b.nominal,
+          low,
+          high,
+          verdict: m.value >= low && m.value <= high ? "agrees" : "disagrees",
+        },
+        band: {
+          nominal: b.nominal,
+          low: b.low,
+          high: b.high,
+          uncertainty: u,
+          samples: bands.samplesUsed,
+        },
         supply: g.supply,
         figure: figures[k]!,
         nominal,

@@ -55,7 +55,13 @@ export function mismatchHint(
   const f0 = figure(nominal);
   if (f0 === null) return { ranking: [], explaining: null };
   const at = (ref: string, value: number): number | null => {
-    const s = solveVariant(withPartValues(rec, new Map([[ref, value]])), supply, budget, nominal.steady.startMem, { periodHint: nominal.steady.periodCycles });
+    const s = solveVariant(
+      withPartValues(rec, new Map([[ref, value]])),
+      supply,
+      budget,
+      nominal.steady.startMem,
+      { periodHint: nominal.steady.periodCycles },
+    );
     return s.ok ? figure(s.value) : null;
   };
   const ranking: PartSensitivity[] = [];
@@ -71,7 +77,9 @@ export function mismatchHint(
     const sens = (f1 - f0) / scale / SENSITIVITY_STEP;
     if (Math.abs(sens) >= MIN_SENSITIVITY) ranking.push({ part: p.ref, sensitivity: sens });
   }
-  ranking.sort((a, b) => Math.abs(b.sensitivity) - Math.abs(a.sensitivity) || (a.part < b.part ? -1 : 1));
+  ranking.sort(
+    (a, b) => Math.abs(b.sensitivity) - Math.abs(a.sensitivity) || (a.part < b.part ? -1 : 1),
+  );
   const top = ranking[0];
   if (top === undefined) return { ranking, explaining: null };
   const part = rec.parts.find((p) => p.ref === top.part)!;
@@ -82,7 +90,13 @@ export function mismatchHint(
   let ub = Math.log(v0 * (1 + SENSITIVITY_STEP));
   let gb = firstStep.get(top.part)! - target;
   let best = Math.abs(ga) < Math.abs(gb) ? { u: ua, g: ga } : { u: ub, g: gb };
-  for (let k = 0; k < SECANT_MAX_ITERATIONS && Math.abs(best.g) > SECANT_RELATIVE_TOLERANCE * Math.abs(target) && !budgetSpent(budget); k++) {
+  for (
+    let k = 0;
+    k < SECANT_MAX_ITERATIONS &&
+    Math.abs(best.g) > SECANT_RELATIVE_TOLERANCE * Math.abs(target) &&
+    !budgetSpent(budget);
+    k++
+  ) {
     if (gb === ga) break;
     let un = ub - (gb * (ub - ua)) / (gb - ga);
     const maxStep = Math.log(SECANT_MAX_FACTOR_PER_STEP);
@@ -103,7 +117,14 @@ export function mismatchHint(
   return {
     ranking,
     explaining: found
-      ? { part: top.part, nominal_value: v0, explaining_value: value, factor: value / v0, achieved: best.g + target, nearest }
+      ? {
+          part: top.part,
+          nominal_value: v0,
+          explaining_value: value,
+          factor: value / v0,
+          achieved: best.g + target,
+          nearest,
+        }
       : null,
   };
 }

@@ -9,7 +9,14 @@ import type { Part, Supply, TeardownRecord } from "../record/types.js";
 import type { SolvedCircuit } from "../solver/analyze-circuit.js";
 import type { Budget } from "../solver/transient.js";
 import { mulberry32, uniformBetween } from "../flags/seeded-random.js";
-import { SAMPLE_MAX_CYCLES, SAMPLE_TOLERANCE_SCALE, budgetSpent, partValueOf, solveVariant, withPartValues } from "../flags/variant-solve.js";
+import {
+  SAMPLE_MAX_CYCLES,
+  SAMPLE_TOLERANCE_SCALE,
+  budgetSpent,
+  partValueOf,
+  solveVariant,
+  withPartValues,
+} from "../flags/variant-solve.js";
 
 /** Default Monte Carlo samples per supply. */
 export const DEFAULT_TOLERANCE_SAMPLES = 40;
@@ -32,12 +39,17 @@ export function toleranceOf(p: Part): { tolerance: number; assumed: string | nul
   if (partValueOf(p) === null) return null;
   if (p.tolerance !== null) return { tolerance: p.tolerance, assumed: null };
   const d = DEFAULT_TOLERANCES;
-  const pick = (t: number, what: string) => ({ tolerance: t, assumed: `${p.ref}: tolerance ±${Math.round(t * 100)} % assumed (${what})` });
+  const pick = (t: number, what: string) => ({
+    tolerance: t,
+    assumed: `${p.ref}: tolerance ±${Math.round(t * 100)} % assumed (${what})`,
+  });
   switch (p.kind) {
     case "resistor":
       return pick(d.resistor, "resistor, common practice");
     case "capacitor":
-      return p.polarised ? pick(d.electrolytic, "electrolytic, common practice") : pick(d.filmCapacitor, "film capacitor, common practice");
+      return p.polarised
+        ? pick(d.electrolytic, "electrolytic, common practice")
+        : pick(d.filmCapacitor, "film capacitor, common practice");
     case "inductor":
       return pick(d.inductor, "inductor, common practice");
     case "zener":
@@ -89,7 +101,9 @@ export function toleranceBands(
   if (nominal === undefined) {
     const s = solveVariant(rec, supply, opts.budget);
     if (!s.ok) {
-      notes.push(`bands at ${supply.vrms} V / ${supply.hz} Hz: the nominal solve failed (${s.error.code}: ${s.error.message})`);
+      notes.push(
+        `bands at ${supply.vrms} V / ${supply.hz} Hz: the nominal solve failed (${s.error.code}: ${s.error.message})`,
+      );
       return { figures: figures.map(() => null), samplesUsed: 0, nominalSolve: null, notes };
     }
     nominal = s.value;
@@ -106,7 +120,9 @@ export function toleranceBands(
   let used = 0;
   for (let k = 0; k < opts.samples && varied.length > 0; k++) {
     if (budgetSpent(opts.budget)) {
-      notes.push(`bands at ${supply.vrms} V: the time budget ended the Monte Carlo after ${used} of ${opts.samples} samples`);
+      notes.push(
+        `bands at ${supply.vrms} V: the time budget ended the Monte Carlo after ${used} of ${opts.samples} samples`,
+      );
       break;
     }
     const values = new Map<string, number>();
@@ -114,11 +130,17 @@ export function toleranceBands(
       const t = Math.min(x.tol!.tolerance * widen, 0.99);
       values.set(x.p.ref, x.v!.value * uniformBetween(random, 1 - t, 1 + t));
     }
-    const s = solveVariant(withPartValues(rec, values), supply, opts.budget, nominal.steady.startMem, {
-      toleranceScale: SAMPLE_TOLERANCE_SCALE,
-      maxCycles: SAMPLE_MAX_CYCLES,
-      periodHint: nominal.steady.periodCycles,
-    });
+    const s = solveVariant(
+      withPartValues(rec, values),
+      supply,
+      opts.budget,
+      nominal.steady.startMem,
+      {
+        toleranceScale: SAMPLE_TOLERANCE_SCALE,
+        maxCycles: SAMPLE_MAX_CYCLES,
+        periodHint: nominal.steady.periodCycles,
+      },
+    );
     if (!s.ok) {
       notes.push(`bands: sample ${k} did not solve (${s.error.code}); left out`);
       continue;
@@ -132,7 +154,9 @@ export function toleranceBands(
     });
   }
   return {
-    figures: nominalValues.map((v, i) => (v === null ? null : { nominal: v, low: low[i]!, high: high[i]! })),
+    figures: nominalValues.map((v, i) =>
+      v === null ? null : { nominal: v, low: low[i]!, high: high[i]! },
+    ),
     samplesUsed: used,
     nominalSolve: nominal,
     notes,

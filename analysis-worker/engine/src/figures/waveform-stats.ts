@@ -8,19 +8,24 @@ export function periodMean(t: ArrayLike<number>, y: ArrayLike<number>): number {
   let s = 0;
   for (let k = 1; k < t.length; k++) s += 0.5 * (t[k]! - t[k - 1]!) * (y[k]! + y[k - 1]!);
   const span = t[t.length - 1]! - t[0]!;
-  return span > 0 ? s / span : y[0] ?? 0;
+  return span > 0 ? s / span : (y[0] ?? 0);
 }
 
 /** RMS over [t0, tN] (trapezoidal rule on y²). */
 export function periodRms(t: ArrayLike<number>, y: ArrayLike<number>): number {
   let s = 0;
-  for (let k = 1; k < t.length; k++) s += 0.5 * (t[k]! - t[k - 1]!) * (y[k]! * y[k]! + y[k - 1]! * y[k - 1]!);
+  for (let k = 1; k < t.length; k++)
+    s += 0.5 * (t[k]! - t[k - 1]!) * (y[k]! * y[k]! + y[k - 1]! * y[k - 1]!);
   const span = t[t.length - 1]! - t[0]!;
   return span > 0 ? Math.sqrt(s / span) : Math.abs(y[0] ?? 0);
 }
 
 /** Mean of the product of two series (real power from v and i). */
-export function periodMeanProduct(t: ArrayLike<number>, a: ArrayLike<number>, b: ArrayLike<number>): number {
+export function periodMeanProduct(
+  t: ArrayLike<number>,
+  a: ArrayLike<number>,
+  b: ArrayLike<number>,
+): number {
   const p = Float64Array.from({ length: t.length }, (_, k) => a[k]! * b[k]!);
   return periodMean(t, p);
 }
@@ -33,7 +38,11 @@ export function peakMagnitude(y: ArrayLike<number>): number {
 }
 
 /** n uniform samples at t0 + k·span/n (k = 0..n-1) by linear interpolation; t must be ascending. */
-export function resampleUniform(t: ArrayLike<number>, y: ArrayLike<number>, n: number): Float64Array {
+export function resampleUniform(
+  t: ArrayLike<number>,
+  y: ArrayLike<number>,
+  n: number,
+): Float64Array {
   const out = new Float64Array(n);
   const t0 = t[0]!;
   const span = t[t.length - 1]! - t0;

@@ -29,7 +29,9 @@ export function accessibleMainsFlags(ctx: RiskContext): Flag[] {
       nets: path.nets,
       message:
         `${name} can be touched and conducts to ${path.nets[path.nets.length - 1]} through ${path.parts.join(", ")}` +
-        (peak !== null ? `; the solver finds ${sig3(peak)} V peak on it against the reference` : "") +
+        (peak !== null
+          ? `; the solver finds ${sig3(peak)} V peak on it against the reference`
+          : "") +
         ". Neutral is no protection: plugs reverse and neutrals break.",
       evidence: {
         path: path.steps,
@@ -40,7 +42,8 @@ export function accessibleMainsFlags(ctx: RiskContext): Flag[] {
         supply_peak_v: ctx.analysis.supply.vrms * Math.SQRT2,
       },
       source: SOURCE,
-      caution: "Treat the net as live at full mains voltage until a qualified person has checked the enclosure and the insulation.",
+      caution:
+        "Treat the net as live at full mains voltage until a qualified person has checked the enclosure and the insulation.",
     });
   }
   return flags;

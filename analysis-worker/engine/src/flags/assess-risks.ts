@@ -35,12 +35,18 @@ export function compareFlags(a: Flag, b: Flag): number {
 }
 
 /** All risk flags and measurement comparisons of a record, given the solver's analysis at the analysed supply. */
-export function assessRisks(record: TeardownRecord, analysis: CircuitAnalysis, opts: RiskOptions = {}): RiskAssessment {
+export function assessRisks(
+  record: TeardownRecord,
+  analysis: CircuitAnalysis,
+  opts: RiskOptions = {},
+): RiskAssessment {
   const budget = riskBudget(opts.now, opts.budgetMs);
   const solvedOutcome = solveVariant(record, analysis.supply, budget);
   const ctx = riskContext(record, analysis, solvedOutcome.ok ? solvedOutcome.value : null, budget);
   if (!solvedOutcome.ok)
-    ctx.notes.push(`the steady cycle could not be re-solved (${solvedOutcome.error.code}: ${solvedOutcome.error.message}); discharge, surge and measurement checks were skipped`);
+    ctx.notes.push(
+      `the steady cycle could not be re-solved (${solvedOutcome.error.code}: ${solvedOutcome.error.message}); discharge, surge and measurement checks were skipped`,
+    );
   const flags: Flag[] = [
     ...accessibleMainsFlags(ctx),
     ...fuseFlags(ctx),
@@ -60,5 +66,9 @@ export function assessRisks(record: TeardownRecord, analysis: CircuitAnalysis, o
   });
   ctx.notes.push(...compared.notes);
   flags.push(...measurementFlags(record, compared.checks, budget));
-  return { flags: flags.sort(compareFlags), comparisons: compared.checks.map((c) => c.comparison), notes: [...new Set(ctx.notes)] };
+  return {
+    flags: flags.sort(compareFlags),
+    comparisons: compared.checks.map((c) => c.comparison),
+    notes: [...new Set(ctx.notes)],
+  };
 }

@@ -38,14 +38,18 @@ export function pinCapacitance(analysis: CircuitAnalysis): number {
 
 /** Capacitors on the supply side: in series in a supply chain or straight across the mains nets. */
 function supplyCapacitors(ctx: RiskContext): string[] {
-  const inChains = ctx.paths.chains.flatMap((c) => c.steps.flatMap((s) => s.parts.filter((p) => p.kind === "capacitor").map((p) => p.ref)));
+  const inChains = ctx.paths.chains.flatMap((c) =>
+    c.steps.flatMap((s) => s.parts.filter((p) => p.kind === "capacitor").map((p) => p.ref)),
+  );
   const across = ctx.record.parts
     .filter((p) => p.kind === "capacitor")
     .filter((p) => {
       const [a, b] = Object.values(p.pins);
       const l = ctx.paths.mainsLine;
       const nn = ctx.paths.mainsNeutral;
-      return a !== undefined && b !== undefined && ((l.has(a) && nn.has(b)) || (l.has(b) && nn.has(a)));
+      return (
+        a !== undefined && b !== undefined && ((l.has(a) && nn.has(b)) || (l.has(b) && nn.has(a)))
+      );
     })
     .map((p) => p.ref);
   return [...new Set([...inChains, ...across])].sort();
@@ -53,15 +57,20 @@ function supplyCapacitors(ctx: RiskContext): string[] {
 
 /** The discharge flags of a plug-connected circuit. */
 export function bleederFlags(ctx: RiskContext): Flag[] {
-  if (ctx.solved === null || ctx.paths.lineNets.length === 0 || ctx.paths.neutralNets.length === 0) return [];
+  if (ctx.solved === null || ctx.paths.lineNets.length === 0 || ctx.paths.neutralNets.length === 0)
+    return [];
   const cPins = pinCapacitance(ctx.analysis);
   if (cPins <= DISCHARGE_CAPACITANCE_THRESHOLD_F) {
-    ctx.notes.push(`discharge: the pins present ${sig3(cPins * 1e6)} µF, not above 0.1 µF, so the pin-voltage rules do not apply`);
+    ctx.notes.push(
+      `discharge: the pins present ${sig3(cPins * 1e6)} µF, not above 0.1 µF, so the pin-voltage rules do not apply`,
+    );
     return [];
   }
   const sim = simulateUnplug(ctx.solved, PIN_VOLTAGE_DELAY_S, ctx.budget);
   if (!sim.ok) {
-    ctx.notes.push(`discharge: the unplugging run failed (${sim.error.code}: ${sim.error.message}); no discharge flag was computed`);
+    ctx.notes.push(
+      `discharge: the unplugging run failed (${sim.error.code}: ${sim.error.message}); no discharge flag was computed`,
+    );
     return [];
   }
   const worst = sim.value.reduce((a, b) => (Math.abs(b.v_after_v) > Math.abs(a.v_after_v) ? b : a));
@@ -89,13 +98,20 @@ export function bleederFlags(ctx: RiskContext): Flag[] {
         limit_v: PIN_VOLTAGE_LIMIT_V,
         tau_s: Number.isFinite(worst.tau_s) ? worst.tau_s : null,
         tau_limit_s: TYPE_A_MAX_TIME_CONSTANT_S,
-        tau_max_for_limit_v_s: maxTimeConstantFor(Math.abs(worst.v0_v), PIN_VOLTAGE_LIMIT_V, PIN_VOLTAGE_DELAY_S),
-        bleeder_max_ohms: maxTimeConstantFor(Math.abs(worst.v0_v), PIN_VOLTAGE_LIMIT_V, PIN_VOLTAGE_DELAY_S) / cPins,
+        tau_max_for_limit_v_s: maxTimeConstantFor(
+          Math.abs(worst.v0_v),
+          PIN_VOLTAGE_LIMIT_V,
+          PIN_VOLTAGE_DELAY_S,
+        ),
+        bleeder_max_ohms:
+          maxTimeConstantFor(Math.abs(worst.v0_v), PIN_VOLTAGE_LIMIT_V, PIN_VOLTAGE_DELAY_S) /
+          cPins,
         exceeds_pin_limit: verdict.exceeds_pin_limit,
         exceeds_tau_limit: verdict.exceeds_type_a_tau,
       },
       source: SOURCE,
-      caution: "Capacitors stay charged: treat the pins and the board as live after unplugging until they are measured discharged.",
+      caution:
+        "Capacitors stay charged: treat the pins and the board as live after unplugging until they are measured discharged.",
     },
   ];
 }

@@ -14,7 +14,8 @@ const X_OR_Y = new Set(["X1", "X2", "X3", "Y1", "Y2"]);
 const Y_CLASSES = new Set(["Y1", "Y2", "Y3", "Y4"]);
 const SOURCE_X =
   "IEC 60384-14 subclasses X1/X2/X3 (FOUND, reference-values.md §7); a dropper in series with the mains: common practice is a series-rated THB X2 part (Würth Elektronik, FOUND)";
-const SOURCE_Y = "IEC 60384-14 subclasses Y1-Y4 (FOUND, reference-values.md §7): Y capacitors bridge basic or reinforced insulation";
+const SOURCE_Y =
+  "IEC 60384-14 subclasses Y1-Y4 (FOUND, reference-values.md §7): Y capacitors bridge basic or reinforced insulation";
 
 /** The safety class of a capacitor (upper case), from its rating or its marking, with where it was read. */
 export function safetyClassOf(p: Part): { cls: string; from: "rating" | "marking" } | null {
@@ -32,7 +33,11 @@ function pinPair(p: Part): [string, string] | null {
 /** The capacitor-class flags of a record. */
 export function capacitorClassFlags(ctx: RiskContext): Flag[] {
   const flags: Flag[] = [];
-  const series = new Set(ctx.paths.chains.flatMap((c) => c.steps.flatMap((s) => s.parts.filter((p) => p.kind === "capacitor").map((p) => p.ref))));
+  const series = new Set(
+    ctx.paths.chains.flatMap((c) =>
+      c.steps.flatMap((s) => s.parts.filter((p) => p.kind === "capacitor").map((p) => p.ref)),
+    ),
+  );
   for (const p of ctx.record.parts) {
     if (p.kind !== "capacitor") continue;
     const pins = pinPair(p);
@@ -42,7 +47,11 @@ export function capacitorClassFlags(ctx: RiskContext): Flag[] {
     const l = ctx.paths.mainsLine;
     const n = ctx.paths.mainsNeutral;
     const across = (l.has(a) && n.has(b)) || (l.has(b) && n.has(a));
-    const role = series.has(p.ref) ? "in series with the supply (a dropper)" : across ? "straight across the supply" : null;
+    const role = series.has(p.ref)
+      ? "in series with the supply (a dropper)"
+      : across
+        ? "straight across the supply"
+        : null;
     if (role !== null && (cls === null || !X_OR_Y.has(cls.cls))) {
       flags.push({
         code: "capacitor-class",
@@ -50,13 +59,20 @@ export function capacitorClassFlags(ctx: RiskContext): Flag[] {
         parts: [p.ref],
         nets: [a, b],
         message: `${p.ref} sits ${role} with ${cls ? `class ${cls.cls}` : "no safety class"}; it needs an X rating (a Y1/Y2 part may stand in).`,
-        evidence: { position: role, class_found: cls?.cls ?? null, class_read_from: cls?.from ?? null, classes_accepted: [...X_OR_Y], capacitance_f: p.value },
+        evidence: {
+          position: role,
+          class_found: cls?.cls ?? null,
+          class_read_from: cls?.from ?? null,
+          classes_accepted: [...X_OR_Y],
+          capacitance_f: p.value,
+        },
         source: SOURCE_X,
         caution: MAINS_CAUTION,
       });
     }
     // One side conducts to the mains, the other to something a person can touch.
-    const bridges = (ctx.mainsConnected.has(a) && ctx.touchable.has(b) && !ctx.mainsConnected.has(b)) ||
+    const bridges =
+      (ctx.mainsConnected.has(a) && ctx.touchable.has(b) && !ctx.mainsConnected.has(b)) ||
       (ctx.mainsConnected.has(b) && ctx.touchable.has(a) && !ctx.mainsConnected.has(a));
     if (bridges && (cls === null || !Y_CLASSES.has(cls.cls))) {
       flags.push({
@@ -65,9 +81,16 @@ export function capacitorClassFlags(ctx: RiskContext): Flag[] {
         parts: [p.ref],
         nets: [a, b],
         message: `${p.ref} bridges from the mains to a touchable net with ${cls ? `class ${cls.cls}` : "no safety class"}; a capacitor there needs a Y rating.`,
-        evidence: { position: "bridging to a touchable net", class_found: cls?.cls ?? null, class_read_from: cls?.from ?? null, classes_accepted: [...Y_CLASSES], capacitance_f: p.value },
+        evidence: {
+          position: "bridging to a touchable net",
+          class_found: cls?.cls ?? null,
+          class_read_from: cls?.from ?? null,
+          classes_accepted: [...Y_CLASSES],
+          capacitance_f: p.value,
+        },
         source: SOURCE_Y,
-        caution: "A failed bridging capacitor puts mains on the touchable side: treat it as live until a qualified person has checked it.",
+        caution:
+          "A failed bridging capacitor puts mains on the touchable side: treat it as live until a qualified person has checked it.",
       });
     }
   }

@@ -27,7 +27,9 @@ export interface UnplugDischarge {
 
 /** The compiled circuit with its supply source removed: the pins (line and reference) are open. */
 export function unpluggedCircuit(c: Circuit, delayS: number): Circuit {
-  const supply = c.devices.find((d): d is Extract<CircuitDevice, { type: "supply" }> => d.type === "supply");
+  const supply = c.devices.find(
+    (d): d is Extract<CircuitDevice, { type: "supply" }> => d.type === "supply",
+  );
   if (supply === undefined) return c;
   const gone = supply.branch;
   const shift = (b: number) => (b > gone ? b - 1 : b);
@@ -40,7 +42,13 @@ export function unpluggedCircuit(c: Circuit, delayS: number): Circuit {
     });
   const unknownOwner = c.unknownOwner.filter((_, i) => i !== gone);
   // The period of the one simulated "cycle" is the delay; the voltage scale stays the supply's.
-  return { ...c, devices, size: c.size - 1, unknownOwner, supply: { vrms: c.supply.vrms, hz: 1 / delayS } };
+  return {
+    ...c,
+    devices,
+    size: c.size - 1,
+    unknownOwner,
+    supply: { vrms: c.supply.vrms, hz: 1 / delayS },
+  };
 }
 
 /** The recorded steady sample nearest to time t. */
@@ -51,23 +59,41 @@ function sampleAt(solved: SolvedCircuit, t: number) {
 }
 
 /** Simulates unplugging at the positive and the negative supply peak. */
-export function simulateUnplug(solved: SolvedCircuit, delayS: number, budget: Budget): SolverOutcome<UnplugDischarge[]> {
+export function simulateUnplug(
+  solved: SolvedCircuit,
+  delayS: number,
+  budget: Budget,
+): SolverOutcome<UnplugDischarge[]> {
   const c = solved.circuit;
   const lineNode = c.nodeNames.indexOf(c.line);
   if (lineNode < 0) return solverFailure("no-supply", "the line net is not a node of the circuit");
-  const supply = c.devices.find((d): d is Extract<CircuitDevice, { type: "supply" }> => d.type === "supply")!;
+  const supply = c.devices.find(
+    (d): d is Extract<CircuitDevice, { type: "supply" }> => d.type === "supply",
+  )!;
   const open = unpluggedCircuit(c, delayS);
-  const solver = new TransientSolver(open, { lu: "sparse", maxNewtonIterations: MAX_NEWTON_ITERATIONS });
+  const solver = new TransientSolver(open, {
+    lu: "sparse",
+    maxNewtonIterations: MAX_NEWTON_ITERATIONS,
+  });
   const period = 1 / c.supply.hz;
   const out: UnplugDischarge[] = [];
-  for (const [instant, t] of [["positive peak", period / 4], ["negative peak", (3 * period) / 4]] as const) {
+  for (const [instant, t] of [
+    ["positive peak", period / 4],
+    ["negative peak", (3 * period) / 4],
+  ] as const) {
     const s = sampleAt(solved, t);
     const x0 = s.x.filter((_, i) => i !== supply.branch);
     const run = solver.runCycle(s.mem, x0, false, budget);
     if (!run.ok) return run;
     const v0 = s.x[lineNode]!;
     const vAfter = run.run.endX[lineNode]!;
-    out.push({ instant, v0_v: v0, v_after_v: vAfter, delay_s: delayS, tau_s: equivalentTimeConstant(v0, vAfter, delayS) });
+    out.push({
+      instant,
+      v0_v: v0,
+      v_after_v: vAfter,
+      delay_s: delayS,
+      tau_s: equivalentTimeConstant(v0, vAfter, delayS),
+    });
   }
   return { ok: true, value: out };
 }

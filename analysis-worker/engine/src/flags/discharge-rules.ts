@@ -46,6 +46,12 @@ export function equivalentTimeConstant(v0: number, vt: number, t: number): numbe
 }
 
 /** The verdicts of both rules on one discharge. */
-export function dischargeVerdicts(vAfter: number, tau: number): { exceeds_pin_limit: boolean; exceeds_type_a_tau: boolean } {
-  return { exceeds_pin_limit: Math.abs(vAfter) > PIN_VOLTAGE_LIMIT_V, exceeds_type_a_tau: tau > TYPE_A_MAX_TIME_CONSTANT_S };
+export function dischargeVerdicts(
+  vAfter: number,
+  tau: number,
+): { exceeds_pin_limit: boolean; exceeds_type_a_tau: boolean } {
+  return {
+    exceeds_pin_limit: Math.abs(vAfter) > PIN_VOLTAGE_LIMIT_V,
+    exceeds_type_a_tau: tau > TYPE_A_MAX_TIME_CONSTANT_S,
+  };
 }

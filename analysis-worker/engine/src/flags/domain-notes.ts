@@ -17,7 +17,11 @@ export const OZONE_LIMITS: ReadonlyArray<{ limit: string; ppm: number; source: s
   { limit: "OSHA PEL, 8-h TWA (29 CFR 1910.1000 Table Z-1)", ppm: 0.1, source: "FOUND" },
   { limit: "NIOSH REL, ceiling", ppm: 0.1, source: "FOUND" },
   { limit: "FDA 21 CFR 801.415, devices that generate ozone", ppm: 0.05, source: "FOUND" },
-  { limit: "California CARB indoor air cleaners (17 CCR 94800 ff.), UL 867 test", ppm: 0.05, source: "FOUND" },
+  {
+    limit: "California CARB indoor air cleaners (17 CCR 94800 ff.), UL 867 test",
+    ppm: 0.05,
+    source: "FOUND",
+  },
   { limit: "ACGIH TLV, heavy work", ppm: 0.05, source: "FOUND" },
   { limit: "IEC 60335-2-65, clause 32", ppm: 0.05, source: "MEMORY" },
 ];
@@ -40,12 +44,17 @@ export function domainNotes(ctx: RiskContext): Flag[] {
       message: `${net}${isOutput ? " (an output)" : ""} reaches ${sig3(peak)} V peak.`,
       evidence: { peak_v: peak, threshold_v: HIGH_VOLTAGE_PEAK_V, output: isOutput },
       source: "common practice",
-      caution: "High voltage can arc across gaps and through skin; discharge it before touching and keep clear while powered.",
+      caution:
+        "High voltage can arc across gaps and through skin; discharge it before touching and keep clear while powered.",
     });
   }
   const words = [ctx.record.device.category ?? "", ...ctx.record.device.tags].join(" ");
   const discharge = ctx.record.parts.filter(
-    (p) => p.kind === "load" && p.model.c !== undefined && p.model.r === undefined && Object.values(p.pins).some((n) => hv.includes(n)),
+    (p) =>
+      p.kind === "load" &&
+      p.model.c !== undefined &&
+      p.model.r === undefined &&
+      Object.values(p.pins).some((n) => hv.includes(n)),
   );
   const byWords = OZONE_WORDS.test(words);
   if (byWords || discharge.length > 0) {
@@ -53,9 +62,13 @@ export function domainNotes(ctx: RiskContext): Flag[] {
       code: "ozone",
       severity: "info",
       parts: discharge.map((p) => p.ref),
-      nets: [...new Set(discharge.flatMap((p) => Object.values(p.pins)).filter((n) => hv.includes(n)))],
+      nets: [
+        ...new Set(discharge.flatMap((p) => Object.values(p.pins)).filter((n) => hv.includes(n))),
+      ],
       message:
-        (byWords ? "The device is described as an ionizer, ozone or air-cleaning device" : "A high-voltage output drives a discharge load") +
+        (byWords
+          ? "The device is described as an ionizer, ozone or air-cleaning device"
+          : "A high-voltage output drives a discharge load") +
         "; corona makes ozone. Commonly cited limits: " +
         OZONE_LIMITS.map((l) => `${l.limit} ${l.ppm} ppm`).join("; ") +
         ".",
@@ -64,8 +77,10 @@ export function domainNotes(ctx: RiskContext): Flag[] {
         discharge_loads: discharge.map((p) => p.ref),
         limits: OZONE_LIMITS.map((l) => ({ limit: l.limit, ppm: l.ppm, mark: l.source })),
       },
-      source: "reference-values.md §9: OSHA PEL and NIOSH REL 0.1 ppm (FOUND), FDA 21 CFR 801.415 0.05 ppm (FOUND), CARB 0.050 ppm (FOUND), IEC 60335-2-65 (MEMORY)",
-      caution: "Ozone irritates lungs at low concentrations: run the device only in a ventilated space and measure, do not estimate, the concentration.",
+      source:
+        "reference-values.md §9: OSHA PEL and NIOSH REL 0.1 ppm (FOUND), FDA 21 CFR 801.415 0.05 ppm (FOUND), CARB 0.050 ppm (FOUND), IEC 60335-2-65 (MEMORY)",
+      caution:
+        "Ozone irritates lungs at low concentrations: run the device only in a ventilated space and measure, do not estimate, the concentration.",
     });
   }
   return flags;

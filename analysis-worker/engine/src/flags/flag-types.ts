@@ -26,7 +26,14 @@ export type FlagCode = (typeof FLAG_CODES)[number];
 export type FlagSeverity = "danger" | "warning" | "info";
 
 /** Evidence values: plain SI numbers (the unit is in the key name), words, lists, or null when unknown. */
-export type EvidenceValue = number | string | boolean | null | string[] | number[] | Array<Record<string, number | string | null>>;
+export type EvidenceValue =
+  | number
+  | string
+  | boolean
+  | null
+  | string[]
+  | number[]
+  | Array<Record<string, number | string | null>>;
 
 /** One risk flag. Flags never claim compliance: they say what to look at. */
 export interface Flag {

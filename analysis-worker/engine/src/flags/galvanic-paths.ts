@@ -47,7 +47,9 @@ function partEdges(p: Part): GalvanicEdge[] {
     case "switch":
       return p.closed ? edge(ends[0], ends[1], 0) : [];
     case "load":
-      return p.model.r === undefined && p.model.c !== undefined ? [] : edge(ends[0], ends[1], p.model.r ?? 0);
+      return p.model.r === undefined && p.model.c !== undefined
+        ? []
+        : edge(ends[0], ends[1], p.model.r ?? 0);
     case "diode":
     case "zener":
     case "led":
@@ -56,7 +58,10 @@ function partEdges(p: Part): GalvanicEdge[] {
     case "triac":
       return pairs(ends).flatMap(([a, b]) => edge(a, b, 0));
     case "transformer":
-      return [...edge(pin("p1"), pin("p2"), p.model.rp ?? 0), ...edge(pin("s1"), pin("s2"), p.model.rs ?? 0)];
+      return [
+        ...edge(pin("p1"), pin("p2"), p.model.rp ?? 0),
+        ...edge(pin("s1"), pin("s2"), p.model.rs ?? 0),
+      ];
     case "capacitor":
     case "varistor":
       return [];
@@ -74,7 +79,10 @@ export function galvanicEdges(rec: TeardownRecord): GalvanicEdge[] {
 }
 
 /** Nets reached from the start nets through conducting parts only. */
-export function galvanicReach(edges: readonly GalvanicEdge[], start: Iterable<string>): Set<string> {
+export function galvanicReach(
+  edges: readonly GalvanicEdge[],
+  start: Iterable<string>,
+): Set<string> {
   const seen = new Set(start);
   const queue = [...seen];
   while (queue.length > 0) {
@@ -91,7 +99,11 @@ export function galvanicReach(edges: readonly GalvanicEdge[], start: Iterable<st
 }
 
 /** Lowest-resistance conducting path (Dijkstra; ties broken by fewer steps) from `from` to any target net, or null. */
-export function galvanicPath(edges: readonly GalvanicEdge[], from: string, targets: ReadonlySet<string>): GalvanicPath | null {
+export function galvanicPath(
+  edges: readonly GalvanicEdge[],
+  from: string,
+  targets: ReadonlySet<string>,
+): GalvanicPath | null {
   const dist = new Map<string, { ohms: number; hops: number }>([[from, { ohms: 0, hops: 0 }]]);
   const prev = new Map<string, { net: string; ref: string }>();
   const done = new Set<string>();
@@ -100,12 +112,14 @@ export function galvanicPath(edges: readonly GalvanicEdge[], from: string, targe
     for (const [n, d] of dist) {
       if (done.has(n)) continue;
       const best = cur === null ? null : dist.get(cur)!;
-      if (best === null || d.ohms < best.ohms || (d.ohms === best.ohms && d.hops < best.hops)) cur = n;
+      if (best === null || d.ohms < best.ohms || (d.ohms === best.ohms && d.hops < best.hops))
+        cur = n;
     }
     if (cur === null) return null;
     if (targets.has(cur)) {
       const steps = [cur];
-      for (let n = cur; prev.has(n); n = prev.get(n)!.net) steps.unshift(prev.get(n)!.net, prev.get(n)!.ref);
+      for (let n = cur; prev.has(n); n = prev.get(n)!.net)
+        steps.unshift(prev.get(n)!.net, prev.get(n)!.ref);
       return {
         steps,
         nets: steps.filter((_, i) => i % 2 === 0),
@@ -120,7 +134,11 @@ export function galvanicPath(edges: readonly GalvanicEdge[], from: string, targe
       if (far === null || done.has(far)) continue;
       const cand = { ohms: here.ohms + e.ohms, hops: here.hops + 1 };
       const old = dist.get(far);
-      if (old === undefined || cand.ohms < old.ohms || (cand.ohms === old.ohms && cand.hops < old.hops)) {
+      if (
+        old === undefined ||
+        cand.ohms < old.ohms ||
+        (cand.ohms === old.ohms && cand.hops < old.hops)
+      ) {
         dist.set(far, cand);
         prev.set(far, { net: cur, ref: e.ref });
       }

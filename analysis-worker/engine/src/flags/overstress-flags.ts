@@ -45,15 +45,41 @@ function voltageLimit(p: Part, peak: number): VoltageLimit | null {
   if (p.kind === "capacitor") {
     if (p.rating.volts === undefined) return null;
     return isAcRating(p)
-      ? { stress_v: peak / Math.SQRT2, limit_v: p.rating.volts, basis: "AC RMS rating against peak/√2", rating_source: "the record", warnAt: 1 / (1 + MAINS_HIGH_TOLERANCE) }
-      : { stress_v: peak, limit_v: p.rating.volts, basis: "DC rating against peak", rating_source: "the record", warnAt: VOLTAGE_WARNING_FRACTION };
+      ? {
+          stress_v: peak / Math.SQRT2,
+          limit_v: p.rating.volts,
+          basis: "AC RMS rating against peak/√2",
+          rating_source: "the record",
+          warnAt: 1 / (1 + MAINS_HIGH_TOLERANCE),
+        }
+      : {
+          stress_v: peak,
+          limit_v: p.rating.volts,
+          basis: "DC rating against peak",
+          rating_source: "the record",
+          warnAt: VOLTAGE_WARNING_FRACTION,
+        };
   }
   if (p.kind === "resistor") {
     const r = resistorVoltageRating(p);
-    return r === null ? null : { stress_v: peak, limit_v: r.volts, basis: "limiting element voltage against peak", rating_source: r.source, warnAt: VOLTAGE_WARNING_FRACTION };
+    return r === null
+      ? null
+      : {
+          stress_v: peak,
+          limit_v: r.volts,
+          basis: "limiting element voltage against peak",
+          rating_source: r.source,
+          warnAt: VOLTAGE_WARNING_FRACTION,
+        };
   }
   if (p.rating.volts === undefined) return null;
-  return { stress_v: peak, limit_v: p.rating.volts, basis: "rated voltage against peak (a diode's reverse rating)", rating_source: "the record", warnAt: VOLTAGE_WARNING_FRACTION };
+  return {
+    stress_v: peak,
+    limit_v: p.rating.volts,
+    basis: "rated voltage against peak (a diode's reverse rating)",
+    rating_source: "the record",
+    warnAt: VOLTAGE_WARNING_FRACTION,
+  };
 }
 
 function severityFor(ratio: number, warnAt: number): "danger" | "warning" | null {
@@ -77,8 +103,19 @@ export function overstressFlags(ctx: RiskContext): Flag[] {
           parts: [p.ref],
           nets: Object.values(p.pins),
           message: `${p.ref} sees ${sig3(lim.stress_v)} V against its ${sig3(lim.limit_v)} V rating (${sig3(100 * ratio)} %; ${lim.basis}).`,
-          evidence: { peak_v: fig.voltage_peak, stress_v: lim.stress_v, limit_v: lim.limit_v, ratio, warning_fraction: lim.warnAt, basis: lim.basis, rating_source: lim.rating_source },
-          source: p.kind === "resistor" && lim.rating_source !== "the record" ? "resistor limiting element voltage, reference-values.md §8 (FOUND)" : "the part's rating; derating thresholds: common practice",
+          evidence: {
+            peak_v: fig.voltage_peak,
+            stress_v: lim.stress_v,
+            limit_v: lim.limit_v,
+            ratio,
+            warning_fraction: lim.warnAt,
+            basis: lim.basis,
+            rating_source: lim.rating_source,
+          },
+          source:
+            p.kind === "resistor" && lim.rating_source !== "the record"
+              ? "resistor limiting element voltage, reference-values.md §8 (FOUND)"
+              : "the part's rating; derating thresholds: common practice",
           caution: MAINS_CAUTION,
         });
     }
@@ -93,9 +130,16 @@ export function overstressFlags(ctx: RiskContext): Flag[] {
           parts: [p.ref],
           nets: Object.values(p.pins),
           message: `${p.ref} dissipates ${sig3(Math.abs(fig.power))} W against its ${sig3(pr.watts)} W rating (${sig3(100 * ratio)} %).`,
-          evidence: { power_w: Math.abs(fig.power), limit_w: pr.watts, ratio, warning_fraction: POWER_WARNING_FRACTION, rating_source: pr.source },
+          evidence: {
+            power_w: Math.abs(fig.power),
+            limit_w: pr.watts,
+            ratio,
+            warning_fraction: POWER_WARNING_FRACTION,
+            rating_source: pr.source,
+          },
           source: "the part's rating; 50 % derating for a warning: common practice",
-          caution: "A hot part ages and can fail short or open; check the real temperature before relying on the estimate.",
+          caution:
+            "A hot part ages and can fail short or open; check the real temperature before relying on the estimate.",
         });
     }
   }

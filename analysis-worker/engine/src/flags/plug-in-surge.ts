@@ -31,9 +31,16 @@ export interface SurgeRun {
 }
 
 /** Simulates the crest switch-on for a quarter period and returns the watched parts' peak currents. */
-export function simulateCrestSwitchOn(solved: SolvedCircuit, watch: ReadonlySet<string>, budget: Budget): SolverOutcome<SurgeRun> {
+export function simulateCrestSwitchOn(
+  solved: SolvedCircuit,
+  watch: ReadonlySet<string>,
+  budget: Budget,
+): SolverOutcome<SurgeRun> {
   const c = solved.circuit;
-  const solver = new TransientSolver(c, { lu: "sparse", maxNewtonIterations: MAX_NEWTON_ITERATIONS });
+  const solver = new TransientSolver(c, {
+    lu: "sparse",
+    maxNewtonIterations: MAX_NEWTON_ITERATIONS,
+  });
   const period = 1 / c.supply.hz;
   const window = period / 4;
   const hMax = period * SURGE_MAX_STEP_PER_PERIOD;
@@ -49,14 +56,23 @@ export function simulateCrestSwitchOn(solved: SolvedCircuit, watch: ReadonlySet<
   let t = 0;
   let h = SURGE_FIRST_STEP_S;
   while (t < window * (1 - 1e-12)) {
-    if (budget.stepsLeft-- <= 0) return solverFailure("step-limit", "the step limit was reached in the plug-in run", { time_s: t });
-    if (budget.now && budget.now() > budget.deadlineMs) return solverFailure("time-budget", "the plug-in run ran out of time", { time_s: t });
+    if (budget.stepsLeft-- <= 0)
+      return solverFailure("step-limit", "the step limit was reached in the plug-in run", {
+        time_s: t,
+      });
+    if (budget.now && budget.now() > budget.deadlineMs)
+      return solverFailure("time-budget", "the plug-in run ran out of time", { time_s: t });
     const hTry = Math.min(h, window - t);
     // The supply's clock runs a quarter period ahead: at t = 0 it stands at its crest.
     const out = solver.step(period / 4 + t + hTry, hTry, false, x, mem);
     if (!out.ok) {
       h = hTry / 4;
-      if (h < SURGE_MIN_STEP_S) return solverFailure("no-convergence", "Newton-Raphson did not converge in the plug-in run", { time_s: t });
+      if (h < SURGE_MIN_STEP_S)
+        return solverFailure(
+          "no-convergence",
+          "Newton-Raphson did not converge in the plug-in run",
+          { time_s: t },
+        );
       continue;
     }
     t += hTry;

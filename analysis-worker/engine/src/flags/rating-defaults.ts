@@ -61,32 +61,58 @@ export const RECTIFIER_SURGE_DEFAULT_A = 30;
 function packageKey(p: Part): string | null {
   const raw = p.rating.package?.trim().toUpperCase().replace(/\s+/g, "") ?? null;
   if (raw === null) return null;
-  const key = Object.keys(RESISTOR_VOLTS_BY_PACKAGE).find((k) => k.toUpperCase() === raw || k.replace("-", "").toUpperCase() === raw.replace("-", ""));
+  const key = Object.keys(RESISTOR_VOLTS_BY_PACKAGE).find(
+    (k) => k.toUpperCase() === raw || k.replace("-", "").toUpperCase() === raw.replace("-", ""),
+  );
   return key ?? null;
 }
 
 /** A resistor's voltage limit: the record's, else by package, else by power class; null when unknown. */
-export function resistorVoltageRating(p: Part): { volts: number; source: string; assumed: boolean } | null {
-  if (p.rating.volts !== undefined) return { volts: p.rating.volts, source: "the record", assumed: false };
+export function resistorVoltageRating(
+  p: Part,
+): { volts: number; source: string; assumed: boolean } | null {
+  if (p.rating.volts !== undefined)
+    return { volts: p.rating.volts, source: "the record", assumed: false };
   const key = packageKey(p);
-  if (key !== null) return { volts: RESISTOR_VOLTS_BY_PACKAGE[key]!.value, source: `default for ${key}: ${RESISTOR_VOLTS_BY_PACKAGE[key]!.source}`, assumed: true };
+  if (key !== null)
+    return {
+      volts: RESISTOR_VOLTS_BY_PACKAGE[key]!.value,
+      source: `default for ${key}: ${RESISTOR_VOLTS_BY_PACKAGE[key]!.source}`,
+      assumed: true,
+    };
   const w = p.rating.watts;
-  const byWatts = w === undefined ? undefined : RESISTOR_VOLTS_BY_WATTS.find((r) => Math.abs(r.watts - w) < 1e-9);
-  if (byWatts !== undefined) return { volts: byWatts.rating.value, source: `default: ${byWatts.rating.source}`, assumed: true };
+  const byWatts =
+    w === undefined ? undefined : RESISTOR_VOLTS_BY_WATTS.find((r) => Math.abs(r.watts - w) < 1e-9);
+  if (byWatts !== undefined)
+    return {
+      volts: byWatts.rating.value,
+      source: `default: ${byWatts.rating.source}`,
+      assumed: true,
+    };
   return null;
 }
 
 /** A part's power rating: the record's, else (resistors) by package; null when unknown. */
 export function powerRating(p: Part): { watts: number; source: string; assumed: boolean } | null {
-  if (p.rating.watts !== undefined) return { watts: p.rating.watts, source: "the record", assumed: false };
+  if (p.rating.watts !== undefined)
+    return { watts: p.rating.watts, source: "the record", assumed: false };
   if (p.kind !== "resistor") return null;
   const key = packageKey(p);
   if (key === null) return null;
-  return { watts: RESISTOR_WATTS_BY_PACKAGE[key]!.value, source: `default for ${key}: ${RESISTOR_WATTS_BY_PACKAGE[key]!.source}`, assumed: true };
+  return {
+    watts: RESISTOR_WATTS_BY_PACKAGE[key]!.value,
+    source: `default for ${key}: ${RESISTOR_WATTS_BY_PACKAGE[key]!.source}`,
+    assumed: true,
+  };
 }
 
 /** A diode's surge rating: the record's, else the 1 A silicon rectifier's 30 A. */
 export function diodeSurgeRating(p: Part): { amps: number; source: string; assumed: boolean } {
-  if (p.rating.surge_amps !== undefined) return { amps: p.rating.surge_amps, source: "the record", assumed: false };
-  return { amps: RECTIFIER_SURGE_DEFAULT_A, source: "default: 1N400x I_FSM 30 A (FOUND, reference-values.md §8)", assumed: true };
+  if (p.rating.surge_amps !== undefined)
+    return { amps: p.rating.surge_amps, source: "the record", assumed: false };
+  return {
+    amps: RECTIFIER_SURGE_DEFAULT_A,
+    source: "default: 1N400x I_FSM 30 A (FOUND, reference-values.md §8)",
+    assumed: true,
+  };
 }

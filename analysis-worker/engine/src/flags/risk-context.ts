@@ -30,10 +30,17 @@ export interface RiskContext {
 }
 
 /** Builds the context; `solved` comes from the caller, which owns the re-solve. */
-export function riskContext(record: TeardownRecord, analysis: CircuitAnalysis, solved: SolvedCircuit | null, budget: Budget): RiskContext {
+export function riskContext(
+  record: TeardownRecord,
+  analysis: CircuitAnalysis,
+  solved: SolvedCircuit | null,
+  budget: Budget,
+): RiskContext {
   const edges = galvanicEdges(record);
   const names = Object.keys(record.nets);
-  const supplyNets = new Set(names.filter((n) => record.nets[n]!.role === "line" || record.nets[n]!.role === "neutral"));
+  const supplyNets = new Set(
+    names.filter((n) => record.nets[n]!.role === "line" || record.nets[n]!.role === "neutral"),
+  );
   const accessible = names.filter((n) => record.nets[n]!.accessible);
   return {
     record,
@@ -54,12 +61,17 @@ export function netWave(ctx: RiskContext, net: string): number[] | null {
   const series = ctx.analysis.waveforms.series[`net.${net}`];
   if (series !== undefined) return series;
   const ref = ctx.analysis.nets[net];
-  if (ref !== undefined && ref.peak === 0 && ref.rms === 0) return ctx.analysis.waveforms.t.map(() => 0);
+  if (ref !== undefined && ref.peak === 0 && ref.rms === 0)
+    return ctx.analysis.waveforms.t.map(() => 0);
   return null;
 }
 
 /** RMS and peak of V(a) - V(b) over the steady cycle, or null when a net is not solved. */
-export function voltageBetween(ctx: RiskContext, a: string, b: string): { rms_v: number; peak_v: number } | null {
+export function voltageBetween(
+  ctx: RiskContext,
+  a: string,
+  b: string,
+): { rms_v: number; peak_v: number } | null {
   const va = netWave(ctx, a);
   const vb = netWave(ctx, b);
   if (va === null || vb === null || va.length === 0) return null;

@@ -18,7 +18,12 @@ import type { Flag } from "./flag-types.js";
 import { MAINS_CAUTION } from "./flag-types.js";
 import type { RiskContext } from "./risk-context.js";
 import { sig3, voltageBetween } from "./risk-context.js";
-import { clearanceRequired, creepageRequired, nextImpulseStep, ratedImpulseOvcII } from "./spacing-tables.js";
+import {
+  clearanceRequired,
+  creepageRequired,
+  nextImpulseStep,
+  ratedImpulseOvcII,
+} from "./spacing-tables.js";
 
 /** Factor on basic creepage for reinforced insulation (MEMORY for 60664-1; FOUND as a general rule). */
 export const REINFORCED_CREEPAGE_FACTOR = 2;
@@ -27,13 +32,17 @@ const SOURCE =
   "IEC 60664-1 Ed. 2: Table F.4 creepage (FOUND), Table F.1 impulse for OVC II (FOUND), Table F.2 Case A clearance (FOUND 1.5-8 kV); reinforced ×2 creepage (MEMORY) and one impulse step up (FOUND), per reference-values.md §2";
 
 /** The required distances for one spacing, with the numbers behind them. */
-export function spacingRequirement(ctx: RiskContext, s: Spacing): Record<string, number | string | boolean | null> | null {
+export function spacingRequirement(
+  ctx: RiskContext,
+  s: Spacing,
+): Record<string, number | string | boolean | null> | null {
   const [a, b] = s.between;
   const v = voltageBetween(ctx, a, b);
   if (v === null) return null;
   const mc = ctx.mainsConnected;
   const tc = ctx.touchable;
-  const reinforced = (mc.has(a) && tc.has(b) && !mc.has(b)) || (mc.has(b) && tc.has(a) && !mc.has(a));
+  const reinforced =
+    (mc.has(a) && tc.has(b) && !mc.has(b)) || (mc.has(b) && tc.has(a) && !mc.has(a));
   const creep = creepageRequired(v.rms_v, s.material_group, s.pollution_degree);
   const creepMm = creep.mm * (reinforced ? REINFORCED_CREEPAGE_FACTOR : 1);
   const mains = mc.has(a) || mc.has(b);
@@ -47,7 +56,12 @@ export function spacingRequirement(ctx: RiskContext, s: Spacing): Record<string,
     clearMm = c.mm;
     clearRow = c.row_impulse_v;
   }
-  const effectiveCreep = s.creepage_mm === null ? null : s.slot && s.clearance_mm !== null ? Math.max(s.creepage_mm, s.clearance_mm) : s.creepage_mm;
+  const effectiveCreep =
+    s.creepage_mm === null
+      ? null
+      : s.slot && s.clearance_mm !== null
+        ? Math.max(s.creepage_mm, s.clearance_mm)
+        : s.creepage_mm;
   return {
     working_vrms_v: v.rms_v,
     working_peak_v: v.peak_v,
@@ -74,7 +88,9 @@ export function spacingFlags(ctx: RiskContext): Flag[] {
   for (const s of ctx.record.board.spacings) {
     const req = spacingRequirement(ctx, s);
     if (req === null) {
-      ctx.notes.push(`spacing ${s.between.join("-")}: a net is not in the solved circuit, so the spacing was not checked`);
+      ctx.notes.push(
+        `spacing ${s.between.join("-")}: a net is not in the solved circuit, so the spacing was not checked`,
+      );
       continue;
     }
     const creep = req.creepage_effective_mm as number | null;
@@ -88,7 +104,9 @@ export function spacingFlags(ctx: RiskContext): Flag[] {
       shortCreep ? `creepage ${sig3(creep!)} mm < ${sig3(creepReq)} mm` : null,
       shortClear ? `clearance ${sig3(clear!)} mm < ${sig3(clearReq!)} mm` : null,
     ].filter((x) => x !== null);
-    const slotNote = s.slot ? " A routed slot is counted as air: the creepage across it is taken as at least the clearance." : "";
+    const slotNote = s.slot
+      ? " A routed slot is counted as air: the creepage across it is taken as at least the clearance."
+      : "";
     flags.push({
       code: "spacing-short",
       severity: req.insulation === "reinforced" ? "danger" : "warning",

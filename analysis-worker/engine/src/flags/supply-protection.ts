@@ -17,12 +17,15 @@ import { sig3 } from "./risk-context.js";
 /** A surge limited by less than this (supply peak over peak current) counts as unlimited (common practice). */
 export const MIN_SURGE_LIMIT_OHMS = 10;
 const SURGE_KINDS = new Set(["diode", "led", "zener", "capacitor"]);
-const SURGE_CAUTION = "The simulated peak ignores wiring inductance and capacitor ESR; the real first peak depends on them and on the mains impedance.";
+const SURGE_CAUTION =
+  "The simulated peak ignores wiring inductance and capacitor ESR; the real first peak depends on them and on the mains impedance.";
 
 /** The no-fuse flag when a mains circuit has no fuse in its supply path. */
 export function fuseFlags(ctx: RiskContext): Flag[] {
   if (ctx.paths.lineNets.length === 0 || ctx.paths.neutralNets.length === 0) return [];
-  const inPath = ctx.paths.chains.some((c) => c.steps.some((s) => s.parts.some((p) => p.kind === "fuse")));
+  const inPath = ctx.paths.chains.some((c) =>
+    c.steps.some((s) => s.parts.some((p) => p.kind === "fuse")),
+  );
   if (inPath) return [];
   const elsewhere = ctx.record.parts.filter((p) => p.kind === "fuse").map((p) => p.ref);
   return [
@@ -35,7 +38,11 @@ export function fuseFlags(ctx: RiskContext): Flag[] {
         elsewhere.length > 0
           ? `There is a fuse (${elsewhere.join(", ")}) but not in series with the supply.`
           : "No fuse in the supply path: a shorted part draws whatever the mains circuit breaker allows.",
-      evidence: { fuses_in_supply_path: 0, fuses_elsewhere: elsewhere.length, supply_chains: ctx.paths.chains.length },
+      evidence: {
+        fuses_in_supply_path: 0,
+        fuses_elsewhere: elsewhere.length,
+        supply_chains: ctx.paths.chains.length,
+      },
       source: "common practice",
       caution: MAINS_CAUTION,
     },
@@ -52,7 +59,8 @@ function surgeParts(ctx: RiskContext): Set<string> {
       .filter((p) => {
         if (p.kind !== "capacitor") return true;
         const [a, b] = Object.values(p.pins);
-        const across = a !== undefined && b !== undefined && ((l.has(a) && n.has(b)) || (l.has(b) && n.has(a)));
+        const across =
+          a !== undefined && b !== undefined && ((l.has(a) && n.has(b)) || (l.has(b) && n.has(a)));
         return !(across && safetyClassOf(p) !== null);
       })
       .map((p) => p.ref),
@@ -66,7 +74,9 @@ export function surgeFlags(ctx: RiskContext): Flag[] {
   if (watch.size === 0) return [];
   const run = simulateCrestSwitchOn(ctx.solved, watch, ctx.budget);
   if (!run.ok) {
-    ctx.notes.push(`plug-in surge: the run failed (${run.error.code}: ${run.error.message}); no surge flag was computed`);
+    ctx.notes.push(
+      `plug-in surge: the run failed (${run.error.code}: ${run.error.message}); no surge flag was computed`,
+    );
     return [];
   }
   const { peak_a, at_s, window_s } = run.value;
@@ -81,8 +91,15 @@ export function surgeFlags(ctx: RiskContext): Flag[] {
       parts: [p.ref],
       nets: Object.values(p.pins),
       message: `Plugged in at the crest, ${p.ref} takes ${sig3(peak_a[p.ref]!)} A, above its ${sig3(rating.amps)} A surge rating.`,
-      evidence: { peak_a: peak_a[p.ref]!, limit_a: rating.amps, rating_source: rating.source, peak_after_s: at_s[p.ref]!, window_s },
-      source: "diode surge rating I_FSM (1N400x 30 A, FOUND per reference-values.md §8); crest switch-on: common practice",
+      evidence: {
+        peak_a: peak_a[p.ref]!,
+        limit_a: rating.amps,
+        rating_source: rating.source,
+        peak_after_s: at_s[p.ref]!,
+        window_s,
+      },
+      source:
+        "diode surge rating I_FSM (1N400x 30 A, FOUND per reference-values.md §8); crest switch-on: common practice",
       caution: SURGE_CAUTION,
     });
   }
@@ -94,15 +111,28 @@ export function surgeFlags(ctx: RiskContext): Flag[] {
   const worst = mainsSide.reduce((a, b) => (peak_a[b]! > peak_a[a]! ? b : a));
   const vpk = ctx.analysis.supply.vrms * Math.SQRT2;
   const limitOhms = peak_a[worst]! > 0 ? vpk / peak_a[worst]! : Infinity;
-  const seriesResistor = ctx.paths.chains.some((c) => c.steps.some((s) => s.parts.every((q) => q.kind === "resistor")));
-  if (!seriesResistor && limitOhms < MIN_SURGE_LIMIT_OHMS && !flags.some((f) => f.parts.includes(worst))) {
+  const seriesResistor = ctx.paths.chains.some((c) =>
+    c.steps.some((s) => s.parts.every((q) => q.kind === "resistor")),
+  );
+  if (
+    !seriesResistor &&
+    limitOhms < MIN_SURGE_LIMIT_OHMS &&
+    !flags.some((f) => f.parts.includes(worst))
+  ) {
     flags.push({
       code: "no-surge-limit",
       severity: "warning",
       parts: [worst],
       nets: [...ctx.paths.lineNets],
       message: `No series resistance limits the plug-in surge: switched on at the crest, ${worst} takes ${sig3(peak_a[worst]!)} A (limited by ${sig3(limitOhms)} Ω of parasitics).`,
-      evidence: { peak_a: peak_a[worst]!, supply_peak_v: vpk, limiting_ohms: limitOhms, min_limiting_ohms: MIN_SURGE_LIMIT_OHMS, series_resistors: 0, window_s },
+      evidence: {
+        peak_a: peak_a[worst]!,
+        supply_peak_v: vpk,
+        limiting_ohms: limitOhms,
+        min_limiting_ohms: MIN_SURGE_LIMIT_OHMS,
+        series_resistors: 0,
+        window_s,
+      },
       source: "common practice",
       caution: SURGE_CAUTION,
     });

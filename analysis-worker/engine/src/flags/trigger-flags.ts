@@ -12,7 +12,8 @@ import { sig3 } from "./risk-context.js";
 export const TRIGGER_SUPPLY_MARGIN_FRACTION = 0.1;
 /** A firing angle within this many degrees of 90° is marginal. */
 export const TRIGGER_ANGLE_MARGIN_DEG = 10;
-const CAUTION = "The gate figures rest on the traced values and on datasheet-class gate parameters; real parts spread widely.";
+const CAUTION =
+  "The gate figures rest on the traced values and on datasheet-class gate parameters; real parts spread widely.";
 
 /** The trigger flags of every thyristor and triac. */
 export function triggerFlags(ctx: RiskContext): Flag[] {
@@ -34,13 +35,19 @@ export function triggerFlags(ctx: RiskContext): Flag[] {
       });
       continue;
     }
-    const lowSupply = t.min_supply_vrms !== null && t.min_supply_vrms >= supply * (1 - TRIGGER_SUPPLY_MARGIN_FRACTION);
+    const lowSupply =
+      t.min_supply_vrms !== null &&
+      t.min_supply_vrms >= supply * (1 - TRIGGER_SUPPLY_MARGIN_FRACTION);
     const angles = [t.angle_deg, t.angle_negative_deg].filter((a): a is number => a !== null);
     const nearCrest = angles.find((a) => Math.abs(a - 90) < TRIGGER_ANGLE_MARGIN_DEG) ?? null;
     if (!lowSupply && nearCrest === null) continue;
     const why = [
-      lowSupply ? `it stops firing below ${sig3(t.min_supply_vrms!)} V, within ${100 * TRIGGER_SUPPLY_MARGIN_FRACTION} % of ${sig3(supply)} V` : null,
-      nearCrest !== null ? `it fires at ${sig3(nearCrest)}°, within ${TRIGGER_ANGLE_MARGIN_DEG}° of the crest` : null,
+      lowSupply
+        ? `it stops firing below ${sig3(t.min_supply_vrms!)} V, within ${100 * TRIGGER_SUPPLY_MARGIN_FRACTION} % of ${sig3(supply)} V`
+        : null,
+      nearCrest !== null
+        ? `it fires at ${sig3(nearCrest)}°, within ${TRIGGER_ANGLE_MARGIN_DEG}° of the crest`
+        : null,
     ].filter((x) => x !== null);
     flags.push({
       code: "trigger-marginal",

@@ -27,7 +27,11 @@ export function partValueOf(p: Part): { slot: ValueSlot; value: number } | null 
     if (p.model.c !== undefined) return { slot: "model.c", value: p.model.c };
     return null;
   }
-  if (["resistor", "capacitor", "inductor", "zener", "varistor"].includes(p.kind) && p.value !== null && p.value > 0)
+  if (
+    ["resistor", "capacitor", "inductor", "zener", "varistor"].includes(p.kind) &&
+    p.value !== null &&
+    p.value > 0
+  )
     return { slot: "value", value: p.value };
   return null;
 }
@@ -41,14 +45,24 @@ export function withPartValue(p: Part, value: number): Part {
 }
 
 /** The record with the given parts' values replaced (ref -> new value). */
-export function withPartValues(rec: TeardownRecord, values: ReadonlyMap<string, number>): TeardownRecord {
-  return { ...rec, parts: rec.parts.map((p) => (values.has(p.ref) ? withPartValue(p, values.get(p.ref)!) : p)) };
+export function withPartValues(
+  rec: TeardownRecord,
+  values: ReadonlyMap<string, number>,
+): TeardownRecord {
+  return {
+    ...rec,
+    parts: rec.parts.map((p) => (values.has(p.ref) ? withPartValue(p, values.get(p.ref)!) : p)),
+  };
 }
 
 /** A shared budget for every solve of one assessment. */
 export function riskBudget(now: (() => number) | undefined, budgetMs: number | undefined): Budget {
   const clock = now ?? null;
-  return { now: clock, deadlineMs: clock ? clock() + (budgetMs ?? DEFAULT_RISK_BUDGET_MS) : Infinity, stepsLeft: 20 * MAX_STEPS_PER_ANALYSIS };
+  return {
+    now: clock,
+    deadlineMs: clock ? clock() + (budgetMs ?? DEFAULT_RISK_BUDGET_MS) : Infinity,
+    stepsLeft: 20 * MAX_STEPS_PER_ANALYSIS,
+  };
 }
 
 /** True when the budget's clock has passed its deadline or its steps are spent. */
@@ -78,9 +92,24 @@ export function solveVariant(
   const compiled = compileCircuit(rec, supply);
   if (!compiled.ok) return compiled;
   const circuit = compiled.value;
-  const solver = new TransientSolver(circuit, { lu: "sparse", maxNewtonIterations: MAX_NEWTON_ITERATIONS });
+  const solver = new TransientSolver(circuit, {
+    lu: "sparse",
+    maxNewtonIterations: MAX_NEWTON_ITERATIONS,
+  });
   const start = warm !== undefined && warm.length === circuit.memSize ? warm : undefined;
-  const steady = periodicSteadyState(solver, budget, start, { toleranceScale: opts.toleranceScale, maxCycles: opts.maxCycles, periodHint: opts.periodHint });
+  const steady = periodicSteadyState(solver, budget, start, {
+    toleranceScale: opts.toleranceScale,
+    maxCycles: opts.maxCycles,
+    periodHint: opts.periodHint,
+  });
   if (!steady.ok) return steady;
-  return { ok: true, value: { circuit, steady: steady.value, figures: cycleFigures(circuit, steady.value), steps: solver.totalSteps } };
+  return {
+    ok: true,
+    value: {
+      circuit,
+      steady: steady.value,
+      figures: cycleFigures(circuit, steady.value),
+      steps: solver.totalSteps,
+    },
+  };
 }

@@ -11,7 +11,8 @@ export interface CsvRow {
 }
 
 /** The rows of a CSV text, or where its quoting breaks. */
-export type CsvSplit = { ok: true; rows: CsvRow[] } | { ok: false; line: number; column: number; message: string };
+export type CsvSplit =
+  { ok: true; rows: CsvRow[] } | { ok: false; line: number; column: number; message: string };
 
 /** Splits CSV text into rows; blank lines give no row. */
 export function splitCsv(text: string): CsvSplit {
@@ -74,7 +75,13 @@ export function splitCsv(text: string): CsvSplit {
     i++;
     column++;
   }
-  if (quoted) return { ok: false, line: quoteLine, column: quoteColumn, message: "a quoted field is not closed" };
+  if (quoted)
+    return {
+      ok: false,
+      line: quoteLine,
+      column: quoteColumn,
+      message: "a quoted field is not closed",
+    };
   endRow();
   return { ok: true, rows };
 }

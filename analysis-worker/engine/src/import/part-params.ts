@@ -12,7 +12,12 @@ import type { ValueNotation } from "../values/notation-tables.js";
 import type { RawRecordBuilder, SourceToken } from "./raw-record-builder.js";
 
 /** Rating keys and their units. */
-const RATING_KEYS: Readonly<Record<string, string>> = { volts: "V", amps: "A", watts: "W", surge_amps: "A" };
+const RATING_KEYS: Readonly<Record<string, string>> = {
+  volts: "V",
+  amps: "A",
+  watts: "W",
+  surge_amps: "A",
+};
 /** Rating keys that hold text. */
 const RATING_TEXT_KEYS: readonly string[] = ["class", "package"];
 /** Part fields that hold text. */
@@ -31,7 +36,13 @@ export function valueUnitOf(kind: string): string {
  * a value that cannot be read is passed on unchanged, so that the record validation reports it
  * (unit-less kinds keep a part number as text).
  */
-export function valueToRecordText(text: string, kind: string, notation: ValueNotation, at: SourceToken, builder: RawRecordBuilder): string | null {
+export function valueToRecordText(
+  text: string,
+  kind: string,
+  notation: ValueNotation,
+  at: SourceToken,
+  builder: RawRecordBuilder,
+): string | null {
   const read = parseValue(text, { unit: valueUnitOf(kind), notation });
   if (read.ok) return exactValueText(read.value, "record");
   const info = kindInfo(kind);
@@ -95,7 +106,11 @@ export function applyParams(
       else builder.errorAt(token, read.code, `${key}: ${read.message}`);
       at(["model", key]);
     } else {
-      builder.errorAt(token, "bad-parameter", `"${key}" is not a parameter name (letters, digits and _)`);
+      builder.errorAt(
+        token,
+        "bad-parameter",
+        `"${key}" is not a parameter name (letters, digits and _)`,
+      );
     }
   }
 }

@@ -4,7 +4,13 @@
  * both to the record validation, so that every reader's errors look alike and point at the
  * line in the file the person uploaded.
  */
-import { formatPath, ProblemList, type LineColumn, type PathSegment, type SourceLocator } from "../record/input-errors.js";
+import {
+  formatPath,
+  ProblemList,
+  type LineColumn,
+  type PathSegment,
+  type SourceLocator,
+} from "../record/input-errors.js";
 import { validateRawRecord } from "../record/validate-record.js";
 import type { NetRole, ParseResult } from "../record/types.js";
 
@@ -98,7 +104,12 @@ export class RawRecordBuilder {
   finish(): ParseResult {
     const result = validateRawRecord(this.raw(), this.locator(), this.problems);
     if (result.ok) return result;
-    return { ok: false, errors: result.errors.filter((e) => !(e.code === "missing-field" && this.reported.has(e.path))) };
+    return {
+      ok: false,
+      errors: result.errors.filter(
+        (e) => !(e.code === "missing-field" && this.reported.has(e.path)),
+      ),
+    };
   }
 
   private locator(): SourceLocator {
@@ -119,7 +130,11 @@ export class RawRecordBuilder {
  * Splits a line into words, keeping "double quoted" runs together (with backslash escapes
  * inside the quotes); places are 1-based.
  */
-export function tokenizeLine(text: string, line: number, firstColumn = 1): { tokens: SourceToken[]; unclosedQuoteAt: number | null } {
+export function tokenizeLine(
+  text: string,
+  line: number,
+  firstColumn = 1,
+): { tokens: SourceToken[]; unclosedQuoteAt: number | null } {
   const tokens: SourceToken[] = [];
   let i = 0;
   while (i < text.length) {

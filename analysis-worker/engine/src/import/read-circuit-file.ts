@@ -29,10 +29,22 @@ export function circuitFileFormatOf(text: string, filename?: string): CircuitFil
   const body = typeof text === "string" ? text.replace(/^\uFEFF/, "") : "";
   const first = body.trimStart().charAt(0);
   if (first === "{" || first === "[" || /^record\s*:/m.test(body)) return "record";
-  const lines = body.split(/\r?\n/).map((l) => l.trim()).filter((l) => l !== "" && !l.startsWith("#"));
-  if (lines[0] !== undefined && /^"?ref"?\s*,/i.test(lines[0]) && /(^|,)\s*"?kind"?\s*(,|$)/i.test(lines[0])) return "csv";
+  const lines = body
+    .split(/\r?\n/)
+    .map((l) => l.trim())
+    .filter((l) => l !== "" && !l.startsWith("#"));
+  if (
+    lines[0] !== undefined &&
+    /^"?ref"?\s*,/i.test(lines[0]) &&
+    /(^|,)\s*"?kind"?\s*(,|$)/i.test(lines[0])
+  )
+    return "csv";
   const elementLines = lines.slice(1).filter((l) => /^([RCLDX][A-Za-z0-9_]*\s|\*|\+|\.)/i.test(l));
-  if (lines.some((l) => /^\.end\b/i.test(l)) || (lines.length > 1 && elementLines.length === lines.length - 1)) return "deck";
+  if (
+    lines.some((l) => /^\.end\b/i.test(l)) ||
+    (lines.length > 1 && elementLines.length === lines.length - 1)
+  )
+    return "deck";
   return "record";
 }
 

@@ -26,7 +26,12 @@ import { applyParams, splitParam, valueToRecordText } from "./part-params.js";
 import { RawRecordBuilder, tokenizeLine, type SourceToken } from "./raw-record-builder.js";
 
 /** Element letters and the kinds they stand for. */
-export const DECK_ELEMENT_KINDS: Readonly<Record<string, string>> = { R: "resistor", C: "capacitor", L: "inductor", D: "diode" };
+export const DECK_ELEMENT_KINDS: Readonly<Record<string, string>> = {
+  R: "resistor",
+  C: "capacitor",
+  L: "inductor",
+  D: "diode",
+};
 
 interface LogicalLine {
   tokens: SourceToken[];
@@ -41,17 +46,28 @@ function logicalLines(lines: readonly string[], builder: RawRecordBuilder): Logi
     const trimmed = text.trim();
     if (trimmed === "" || trimmed.startsWith("*")) continue;
     if (/^\.end\b/i.test(trimmed)) {
-      if (lines.slice(i + 1).some((l) => l.trim() !== "")) builder.warnAt({ line: lineNo, column: 1 }, "after-end", "lines after .end are ignored");
+      if (lines.slice(i + 1).some((l) => l.trim() !== ""))
+        builder.warnAt({ line: lineNo, column: 1 }, "after-end", "lines after .end are ignored");
       break;
     }
     const isContinuation = trimmed.startsWith("+");
     const offset = text.indexOf(trimmed) + (isContinuation ? 1 : 0);
     const body = isContinuation ? trimmed.slice(1) : trimmed;
     const { tokens, unclosedQuoteAt } = tokenizeLine(body, lineNo, offset + 1);
-    if (unclosedQuoteAt !== null) builder.errorAt({ line: lineNo, column: unclosedQuoteAt }, "unclosed-quote", "a quote is opened but not closed on this line");
+    if (unclosedQuoteAt !== null)
+      builder.errorAt(
+        { line: lineNo, column: unclosedQuoteAt },
+        "unclosed-quote",
+        "a quote is opened but not closed on this line",
+      );
     if (isContinuation) {
       const last = out[out.length - 1];
-      if (last === undefined) builder.errorAt({ line: lineNo, column: offset }, "orphan-continuation", "a + line continues nothing");
+      if (last === undefined)
+        builder.errorAt(
+          { line: lineNo, column: offset },
+          "orphan-continuation",
+          "a + line continues nothing",
+        );
       else last.tokens.push(...tokens);
       continue;
     }
@@ -65,10 +81,16 @@ function readDirective(tokens: readonly SourceToken[], builder: RawRecordBuilder
   const name = head.text.slice(1).toLowerCase();
   const args = tokens.slice(1);
   if (name === "supply") {
-    const vrms = args[0] === undefined ? null : parseValue(args[0].text, { unit: "V", notation: "deck" });
-    const hz = args[1] === undefined ? null : parseValue(args[1].text, { unit: "Hz", notation: "deck" });
+    const vrms =
+      args[0] === undefined ? null : parseValue(args[0].text, { unit: "V", notation: "deck" });
+    const hz =
+      args[1] === undefined ? null : parseValue(args[1].text, { unit: "Hz", notation: "deck" });
     if (vrms === null || hz === null || args.length !== 2) {
-      builder.errorAt(head, "bad-directive", ".supply takes two numbers: RMS volts and hertz (.supply 230 50)");
+      builder.errorAt(
+        head,
+        "bad-directive",
+        ".supply takes two numbers: RMS volts and hertz (.supply 230 50)",
+      );
     } else if (!vrms.ok) builder.errorAt(args[0]!, vrms.code, vrms.message);
     else if (!hz.ok) builder.errorAt(args[1]!, hz.code, hz.message);
     else {
@@ -84,12 +106,21 @@ function readDirective(tokens: readonly SourceToken[], builder: RawRecordBuilder
     return;
   }
   if (!builder.applyRoleDirective(name, args)) {
-    builder.errorAt(head, "unknown-directive", `unknown directive "${head.text}"; known: .supply .line .neutral .earth .output .accessible .end`);
+    builder.errorAt(
+      head,
+      "unknown-directive",
+      `unknown directive "${head.text}"; known: .supply .line .neutral .earth .output .accessible .end`,
+    );
   }
 }
 
 /** Places the pins: list form in the kind's order, each net at its word. */
-function addPins(rawPart: Record<string, unknown>, index: number, nets: readonly SourceToken[], builder: RawRecordBuilder): void {
+function addPins(
+  rawPart: Record<string, unknown>,
+  index: number,
+  nets: readonly SourceToken[],
+  builder: RawRecordBuilder,
+): void {
   rawPart.pins = nets.map((n) => n.text);
   if (nets[0] !== undefined) builder.place(["parts", index, "pins"], nets[0]);
   const roles = pinRolesFor(String(rawPart.kind), rawPart.polarised === true);
@@ -125,12 +156,20 @@ function readElement(tokens: readonly SourceToken[], builder: RawRecordBuilder):
   }
   const kind = DECK_ELEMENT_KINDS[letter];
   if (kind === undefined) {
-    builder.errorAt(head, "unknown-element", `"${head.text}": an element line starts with R, C, L, D or X (or . for a directive, * for a comment)`);
+    builder.errorAt(
+      head,
+      "unknown-element",
+      `"${head.text}": an element line starts with R, C, L, D or X (or . for a directive, * for a comment)`,
+    );
     return;
   }
   const nets = bare.slice(0, 2);
   if (nets.length < 2) {
-    builder.errorAt(head, "bad-element", `a ${kind} line names two nets: ${head.text} NET NET${kind === "diode" ? "" : " VALUE"}`);
+    builder.errorAt(
+      head,
+      "bad-element",
+      `a ${kind} line names two nets: ${head.text} NET NET${kind === "diode" ? "" : " VALUE"}`,
+    );
     return;
   }
   const rawPart: Record<string, unknown> = { ref: head.text, kind };
@@ -145,18 +184,34 @@ function readElement(tokens: readonly SourceToken[], builder: RawRecordBuilder):
       builder.place(["parts", index, "marking"], extra[0]);
     }
   } else if (extra[0] === undefined) {
-    builder.errorAt(head, "missing-value", `a ${kind} line ends its nets with a value: ${head.text} NET NET VALUE`);
+    builder.errorAt(
+      head,
+      "missing-value",
+      `a ${kind} line ends its nets with a value: ${head.text} NET NET VALUE`,
+    );
   } else {
     const text = valueToRecordText(extra[0].text, kind, "deck", extra[0], builder);
     if (text !== null) rawPart.value = text;
     builder.place(["parts", index, "value"], extra[0]);
   }
-  for (const t of extra.slice(1)) builder.errorAt(t, "extra-word", `unexpected "${t.text}" on a ${kind} line`);
+  for (const t of extra.slice(1))
+    builder.errorAt(t, "extra-word", `unexpected "${t.text}" on a ${kind} line`);
 }
 
 function readDeckUnguarded(text: string): ParseResult {
   if (text.length > MAX_RECORD_TEXT_CHARS) {
-    return { ok: false, errors: [{ path: "", code: "too-large", message: `a deck is at most ${MAX_RECORD_TEXT_CHARS} characters`, line: null, column: null }] };
+    return {
+      ok: false,
+      errors: [
+        {
+          path: "",
+          code: "too-large",
+          message: `a deck is at most ${MAX_RECORD_TEXT_CHARS} characters`,
+          line: null,
+          column: null,
+        },
+      ],
+    };
   }
   const lines = text.replace(/^\uFEFF/, "").split(/\r?\n/);
   const builder = new RawRecordBuilder();

@@ -21,7 +21,19 @@ import { applyParams, splitParam } from "./part-params.js";
 import { RawRecordBuilder, tokenizeLine, type SourceToken } from "./raw-record-builder.js";
 
 /** Columns a parts list may have. */
-export const CSV_COLUMNS = ["ref", "kind", "value", "tolerance", "pins", "rating", "marking", "model", "note", "polarised", "closed"] as const;
+export const CSV_COLUMNS = [
+  "ref",
+  "kind",
+  "value",
+  "tolerance",
+  "pins",
+  "rating",
+  "marking",
+  "model",
+  "note",
+  "polarised",
+  "closed",
+] as const;
 const REQUIRED_COLUMNS = ["ref", "kind", "pins"] as const;
 const SAFETY_CLASS = /^[XY][1-4]$/i;
 
@@ -50,18 +62,29 @@ function readHeaderDirective(text: string, line: number, builder: RawRecordBuild
     const [v, f] = value.split(/[\s/]+/);
     const vrms = parseValue(v ?? "", { unit: "V" });
     const hz = parseValue(f ?? "", { unit: "Hz" });
-    if (!vrms.ok || !hz.ok) builder.errorAt(at, "bad-directive", "# supply: takes RMS volts and hertz, e.g. # supply: 230 50");
+    if (!vrms.ok || !hz.ok)
+      builder.errorAt(
+        at,
+        "bad-directive",
+        "# supply: takes RMS volts and hertz, e.g. # supply: 230 50",
+      );
     else {
       builder.supply = { vrms: vrms.value, hz: hz.value };
       builder.place(["device", "rated_supply"], at);
     }
   } else {
     const nets = tokenizeLine(value, line, at.column).tokens;
-    if (!builder.applyRoleDirective(name, nets)) builder.warnAt(at, "unknown-directive", `"# ${name}:" is not a directive; read as a comment`);
+    if (!builder.applyRoleDirective(name, nets))
+      builder.warnAt(at, "unknown-directive", `"# ${name}:" is not a directive; read as a comment`);
   }
 }
 
-function readRating(rawPart: Record<string, unknown>, index: number, field: SourceToken, builder: RawRecordBuilder): void {
+function readRating(
+  rawPart: Record<string, unknown>,
+  index: number,
+  field: SourceToken,
+  builder: RawRecordBuilder,
+): void {
   const keyed: SourceToken[] = [];
   for (const w of words(field)) {
     if (splitParam(w) !== null) {
@@ -75,15 +98,27 @@ function readRating(rawPart: Record<string, unknown>, index: number, field: Sour
       continue;
     }
     const read = parseValue(w.text);
-    const key = read.ok ? ({ V: "volts", A: "amps", W: "watts" } as Record<string, string>)[read.unit ?? ""] : undefined;
+    const key = read.ok
+      ? ({ V: "volts", A: "amps", W: "watts" } as Record<string, string>)[read.unit ?? ""]
+      : undefined;
     if (read.ok && key !== undefined) rating[key] = read.value;
-    else if (read.ok) builder.errorAt(w, "bad-rating", `"${w.text}": give a unit (310V, 1A, 0.25W) or a key (volts=310)`);
+    else if (read.ok)
+      builder.errorAt(
+        w,
+        "bad-rating",
+        `"${w.text}": give a unit (310V, 1A, 0.25W) or a key (volts=310)`,
+      );
     else rating.package = w.text;
   }
   applyParams(rawPart, index, keyed, "record", builder);
 }
 
-function readPins(rawPart: Record<string, unknown>, index: number, field: SourceToken, builder: RawRecordBuilder): void {
+function readPins(
+  rawPart: Record<string, unknown>,
+  index: number,
+  field: SourceToken,
+  builder: RawRecordBuilder,
+): void {
   const ws = words(field);
   builder.place(["parts", index, "pins"], field);
   const keyed = ws.filter((w) => splitParam(w) !== null);
@@ -106,18 +141,34 @@ function readPins(rawPart: Record<string, unknown>, index: number, field: Source
 
 function readCsvUnguarded(text: string, opts: ReadCsvOptions): ParseResult {
   if (text.length > MAX_RECORD_TEXT_CHARS) {
-    return { ok: false, errors: [{ path: "", code: "too-large", message: `a parts list is at most ${MAX_RECORD_TEXT_CHARS} characters`, line: null, column: null }] };
+    return {
+      ok: false,
+      errors: [
+        {
+          path: "",
+          code: "too-large",
+          message: `a parts list is at most ${MAX_RECORD_TEXT_CHARS} characters`,
+          line: null,
+          column: null,
+        },
+      ],
+    };
   }
   const builder = new RawRecordBuilder();
   const lines = text.replace(/^\uFEFF/, "").split(/\r?\n/);
   // leading comment and directive lines are blanked out, so the CSV keeps its line numbers
   let first = 0;
-  while (first < lines.length && (lines[first]!.trim() === "" || lines[first]!.trim().startsWith("#"))) {
+  while (
+    first < lines.length &&
+    (lines[first]!.trim() === "" || lines[first]!.trim().startsWith("#"))
+  ) {
     readHeaderDirective(lines[first]!, first + 1, builder);
     lines[first] = "";
     first++;
   }
-  if (builder.title === null) builder.title = opts.filename?.replace(/^.*[\\/]/, "").replace(/\.[^.]*$/, "") || "Imported parts list";
+  if (builder.title === null)
+    builder.title =
+      opts.filename?.replace(/^.*[\\/]/, "").replace(/\.[^.]*$/, "") || "Imported parts list";
   const split = splitCsv(lines.join("\n"));
   if (!split.ok) {
     builder.errorAt(split, "csv-syntax", split.message);
@@ -125,21 +176,34 @@ function readCsvUnguarded(text: string, opts: ReadCsvOptions): ParseResult {
   }
   const [header, ...rows] = split.rows;
   if (header === undefined) {
-    builder.errorAt({ line: 1, column: 1 }, "csv-no-header", `a parts list starts with a header row: ${CSV_COLUMNS.join(",")}`);
+    builder.errorAt(
+      { line: 1, column: 1 },
+      "csv-no-header",
+      `a parts list starts with a header row: ${CSV_COLUMNS.join(",")}`,
+    );
     return builder.finish();
   }
   const columns = header.fields.map((f) => f.text.toLowerCase());
   header.fields.forEach((f, i) => {
-    if (!(CSV_COLUMNS as readonly string[]).includes(columns[i]!)) builder.warnAt(f, "unknown-column", `column "${f.text}" is ignored`);
+    if (!(CSV_COLUMNS as readonly string[]).includes(columns[i]!))
+      builder.warnAt(f, "unknown-column", `column "${f.text}" is ignored`);
   });
   const missing = REQUIRED_COLUMNS.filter((c) => !columns.includes(c));
   if (missing.length > 0) {
-    builder.errorAt({ line: header.line, column: 1 }, "csv-missing-column", `the header lacks ${missing.join(", ")}`);
+    builder.errorAt(
+      { line: header.line, column: 1 },
+      "csv-missing-column",
+      `the header lacks ${missing.join(", ")}`,
+    );
     return builder.finish();
   }
   for (const row of rows) {
     if (row.fields.length !== columns.length) {
-      builder.errorAt({ line: row.line, column: 1 }, "csv-field-count", `this row has ${row.fields.length} fields; the header has ${columns.length}`);
+      builder.errorAt(
+        { line: row.line, column: 1 },
+        "csv-field-count",
+        `this row has ${row.fields.length} fields; the header has ${columns.length}`,
+      );
       continue;
     }
     const get = (name: string): SourceToken | undefined => {

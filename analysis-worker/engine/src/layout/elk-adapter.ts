@@ -6,7 +6,14 @@
  * conversion.
  */
 import ELK from "elkjs/lib/elk.bundled.js";
-import type { ELK as ElkInstance, ElkExtendedEdge, ElkLabel, ElkNode, ElkPort, LayoutOptions } from "elkjs/lib/elk-api.js";
+import type {
+  ELK as ElkInstance,
+  ElkExtendedEdge,
+  ElkLabel,
+  ElkNode,
+  ElkPort,
+  LayoutOptions,
+} from "elkjs/lib/elk-api.js";
 import type { Box, Point, Side, WireSection } from "./layout-types.js";
 import type { GraphNode, LayoutGraph } from "./layout-graph.js";
 
@@ -37,7 +44,9 @@ export interface PlacedGraph {
 }
 
 /** ELK's placement, or its refusal as a value. */
-export type ElkRunResult = { ok: true; placed: PlacedGraph } | { ok: false; code: "layout-engine-failed"; message: string; where: string | null };
+export type ElkRunResult =
+  | { ok: true; placed: PlacedGraph }
+  | { ok: false; code: "layout-engine-failed"; message: string; where: string | null };
 
 const OPT = {
   algorithm: "org.eclipse.elk.algorithm",
@@ -111,12 +120,20 @@ function toElkNode(node: GraphNode): ElkNode {
     width: node.width,
     height: node.height,
     layoutOptions,
-    ports: node.ports.map(
-      (p): ElkPort => ({ id: p.id, x: p.x, y: p.y, width: 0, height: 0, layoutOptions: { [OPT.portSide]: p.side } }),
-    ),
-    labels: node.labels.map(
-      (l): ElkLabel => ({ text: l.text, width: l.width, height: l.height, layoutOptions: { [OPT.labelPlacement]: placement } }),
-    ),
+    ports: node.ports.map((p): ElkPort => ({
+      id: p.id,
+      x: p.x,
+      y: p.y,
+      width: 0,
+      height: 0,
+      layoutOptions: { [OPT.portSide]: p.side },
+    })),
+    labels: node.labels.map((l): ElkLabel => ({
+      text: l.text,
+      width: l.width,
+      height: l.height,
+      layoutOptions: { [OPT.labelPlacement]: placement },
+    })),
   };
 }
 
@@ -126,7 +143,11 @@ export function toElkGraph(graph: LayoutGraph, settings: LayeredSettings): ElkNo
     id: "root",
     layoutOptions: elkRootOptions(settings),
     children: graph.nodes.map(toElkNode),
-    edges: graph.edges.map((e): ElkExtendedEdge => ({ id: e.id, sources: [e.source], targets: [e.target] })),
+    edges: graph.edges.map((e): ElkExtendedEdge => ({
+      id: e.id,
+      sources: [e.source],
+      targets: [e.target],
+    })),
   };
 }
 
@@ -139,19 +160,30 @@ export function fromElkGraph(laid: ElkNode): PlacedGraph {
     const x = num(child.x);
     const y = num(child.y);
     const ports = new Map<string, Point>();
-    for (const port of child.ports ?? []) ports.set(port.id, { x: x + num(port.x), y: y + num(port.y) });
-    const labels = (child.labels ?? []).map((l): Box => ({ x: x + num(l.x), y: y + num(l.y), width: num(l.width), height: num(l.height) }));
-    nodes.set(child.id, { x, y, width: num(child.width), height: num(child.height), ports, labels });
+    for (const port of child.ports ?? [])
+      ports.set(port.id, { x: x + num(port.x), y: y + num(port.y) });
+    const labels = (child.labels ?? []).map((l): Box => ({
+      x: x + num(l.x),
+      y: y + num(l.y),
+      width: num(l.width),
+      height: num(l.height),
+    }));
+    nodes.set(child.id, {
+      x,
+      y,
+      width: num(child.width),
+      height: num(child.height),
+      ports,
+      labels,
+    });
   }
   const edges = new Map<string, WireSection[]>();
   for (const edge of laid.edges ?? []) {
-    const sections = ((edge as ElkExtendedEdge).sections ?? []).map(
-      (s): WireSection => ({
-        start: { x: s.startPoint.x, y: s.startPoint.y },
-        end: { x: s.endPoint.x, y: s.endPoint.y },
-        bends: (s.bendPoints ?? []).map((b) => ({ x: b.x, y: b.y })),
-      }),
-    );
+    const sections = ((edge as ElkExtendedEdge).sections ?? []).map((s): WireSection => ({
+      start: { x: s.startPoint.x, y: s.startPoint.y },
+      end: { x: s.endPoint.x, y: s.endPoint.y },
+      bends: (s.bendPoints ?? []).map((b) => ({ x: b.x, y: b.y })),
+    }));
     edges.set(edge.id, sections);
   }
   return { width: num(laid.width), height: num(laid.height), nodes, edges };
@@ -172,12 +204,20 @@ function elkMessage(error: unknown): string {
 }
 
 /** Lays the graph out with ELK's layered algorithm; ELK's refusals come back as a value. */
-export async function runElkLayered(graph: LayoutGraph, settings: LayeredSettings): Promise<ElkRunResult> {
+export async function runElkLayered(
+  graph: LayoutGraph,
+  settings: LayeredSettings,
+): Promise<ElkRunResult> {
   let laid: ElkNode;
   try {
     laid = await elk().layout(toElkGraph(graph, settings));
   } catch (error) {
-    return { ok: false, code: "layout-engine-failed", message: `ELK could not lay out the schematic: ${elkMessage(error)}`, where: null };
+    return {
+      ok: false,
+      code: "layout-engine-failed",
+      message: `ELK could not lay out the schematic: ${elkMessage(error)}`,
+      where: null,
+    };
   }
   return { ok: true, placed: fromElkGraph(laid) };
 }

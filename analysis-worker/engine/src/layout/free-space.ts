@@ -31,7 +31,12 @@ export function sectionBoxes(section: WireSection): Box[] {
     const b = points[i]!;
     const x = Math.min(a.x, b.x);
     const y = Math.min(a.y, b.y);
-    boxes.push({ x: x - 0.5, y: y - 0.5, width: Math.abs(a.x - b.x) + 1, height: Math.abs(a.y - b.y) + 1 });
+    boxes.push({
+      x: x - 0.5,
+      y: y - 0.5,
+      width: Math.abs(a.x - b.x) + 1,
+      height: Math.abs(a.y - b.y) + 1,
+    });
   }
   return boxes;
 }
@@ -91,13 +96,17 @@ export class FreeSpace {
         if (this.isClear(at(c), avoidWires)) return this.take(at(c));
       }
     }
-    const reach = this.extent === null ? 0 : Math.max(this.extent.width, this.extent.height) + width + height;
+    const reach =
+      this.extent === null ? 0 : Math.max(this.extent.width, this.extent.height) + width + height;
     const rings = Math.ceil(reach / SEARCH_STEP_PX) + 2;
     for (let ring = 1; ring <= rings; ring++) {
       const r = ring * SEARCH_STEP_PX;
       for (let k = 0; k < SEARCH_DIRECTIONS; k++) {
         const angle = (2 * Math.PI * k) / SEARCH_DIRECTIONS;
-        const box = at({ x: Math.round(anchor.x + r * Math.cos(angle) - width / 2), y: Math.round(anchor.y - r * Math.sin(angle) - height / 2) });
+        const box = at({
+          x: Math.round(anchor.x + r * Math.cos(angle) - width / 2),
+          y: Math.round(anchor.y - r * Math.sin(angle) - height / 2),
+        });
         if (this.isClear(box, false)) return this.take(box);
       }
     }

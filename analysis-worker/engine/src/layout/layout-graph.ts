@@ -89,23 +89,46 @@ function freeLabelSide(ports: readonly GraphPort[]): Side {
   return (["NORTH", "EAST", "WEST", "SOUTH"] as const).find((s) => !used.has(s)) ?? "NORTH";
 }
 
-function terminalNode(id: string, kind: "supply" | "output", nets: readonly [string, NetRole][], caption: string): GraphNode {
+function terminalNode(
+  id: string,
+  kind: "supply" | "output",
+  nets: readonly [string, NetRole][],
+  caption: string,
+): GraphNode {
   const east = kind === "supply" ? nets.filter(([, r]) => r !== "neutral") : [];
   const south = kind === "supply" ? nets.filter(([, r]) => r === "neutral") : [];
   const west = kind === "output" ? nets : [];
   const longest = Math.max(0, ...nets.map(([n]) => labelSize(n).width));
-  const width = Math.max(TERMINAL_MIN_WIDTH_PX, Math.ceil((longest + 10) / 10) * 10, south.length * TERMINAL_PORT_PITCH_PX);
+  const width = Math.max(
+    TERMINAL_MIN_WIDTH_PX,
+    Math.ceil((longest + 10) / 10) * 10,
+    south.length * TERMINAL_PORT_PITCH_PX,
+  );
   const rows = Math.max(1, east.length, west.length) + (south.length > 0 ? 1 : 0);
   const height = rows * TERMINAL_PORT_PITCH_PX;
   const ports: GraphPort[] = [];
   const column = (list: readonly [string, NetRole][], side: Side, x: number): void =>
     list.forEach(([net, role], i) =>
-      ports.push({ id: `${id}.${ports.length}`, net, role, side, x, y: TERMINAL_PORT_PITCH_PX / 2 + i * TERMINAL_PORT_PITCH_PX }),
+      ports.push({
+        id: `${id}.${ports.length}`,
+        net,
+        role,
+        side,
+        x,
+        y: TERMINAL_PORT_PITCH_PX / 2 + i * TERMINAL_PORT_PITCH_PX,
+      }),
     );
   column(east, "EAST", width);
   column(west, "WEST", 0);
   south.forEach(([net, role], i) =>
-    ports.push({ id: `${id}.${ports.length}`, net, role, side: "SOUTH", x: ((i + 1) * width) / (south.length + 1), y: height }),
+    ports.push({
+      id: `${id}.${ports.length}`,
+      net,
+      role,
+      side: "SOUTH",
+      x: ((i + 1) * width) / (south.length + 1),
+      y: height,
+    }),
   );
   const text = labelSize(caption);
   return {
@@ -124,9 +147,17 @@ function partNode(id: string, part: Part, neutralNets: ReadonlySet<string>): Gra
   const base = symbolFor(part);
   const rotation = rotationFor(part, base, neutralNets);
   const geometry = rotateSymbol(base, rotation);
-  const ports = geometry.pins.map((p, i): GraphPort => ({ id: `${id}.${i}`, net: part.pins[p.role]!, role: p.role, side: p.side, x: p.x, y: p.y }));
+  const ports = geometry.pins.map((p, i): GraphPort => ({
+    id: `${id}.${i}`,
+    net: part.pins[p.role]!,
+    role: p.role,
+    side: p.side,
+    x: p.x,
+    y: p.y,
+  }));
   const labels: GraphLabel[] = [{ text: part.ref, ...labelSize(part.ref), of: "ref" }];
-  if (part.value_text !== null && part.value_text !== "") labels.push({ text: part.value_text, ...labelSize(part.value_text), of: "value" });
+  if (part.value_text !== null && part.value_text !== "")
+    labels.push({ text: part.value_text, ...labelSize(part.value_text), of: "value" });
   return {
     id,
     width: geometry.width,
@@ -144,7 +175,10 @@ function partNode(id: string, part: Part, neutralNets: ReadonlySet<string>): Gra
  * together (ELK refuses an edge leaving a last-layer node): a load chained to the output or
  * to an earlier load by a two-ended net, or shorted by its own pins, is left free.
  */
-function pinLoadsLast(nodes: readonly GraphNode[], endpointsByNet: ReadonlyMap<string, Endpoint[]>): void {
+function pinLoadsLast(
+  nodes: readonly GraphNode[],
+  endpointsByNet: ReadonlyMap<string, Endpoint[]>,
+): void {
   for (const node of nodes) {
     if (node.origin.type !== "part" || node.origin.part.kind !== "load") continue;
     const nets = node.ports.map((p) => p.net);
@@ -179,10 +213,13 @@ function feedsOther(a: Endpoint, b: Endpoint): boolean {
 export function buildLayoutGraph(record: TeardownRecord): LayoutGraph {
   const parts = [...record.parts].sort((a, b) => byCodePoint(a.ref, b.ref));
   const netRoles = new Map<string, NetRole | null>();
-  for (const part of parts) for (const net of Object.values(part.pins)) netRoles.set(net, record.nets[net]?.role ?? null);
+  for (const part of parts)
+    for (const net of Object.values(part.pins)) netRoles.set(net, record.nets[net]?.role ?? null);
   const netNames = [...netRoles.keys()].sort(byCodePoint);
   const withRole = (roles: readonly NetRole[]): [string, NetRole][] =>
-    netNames.filter((n) => roles.includes(netRoles.get(n) as NetRole)).map((n) => [n, netRoles.get(n) as NetRole]);
+    netNames
+      .filter((n) => roles.includes(netRoles.get(n) as NetRole))
+      .map((n) => [n, netRoles.get(n) as NetRole]);
   const neutralNets = new Set(withRole(["neutral"]).map(([n]) => n));
 
   const nodes: GraphNode[] = [];
@@ -196,7 +233,9 @@ export function buildLayoutGraph(record: TeardownRecord): LayoutGraph {
   parts.forEach((part, i) => nodes.push(partNode(`p${i}`, part, neutralNets)));
 
   const endpointsByNet = new Map<string, Endpoint[]>(netNames.map((n) => [n, []]));
-  for (const node of nodes) for (const port of node.ports) endpointsByNet.get(port.net)!.push({ port, node, source: false });
+  for (const node of nodes)
+    for (const port of node.ports)
+      endpointsByNet.get(port.net)!.push({ port, node, source: false });
   pinLoadsLast(nodes, endpointsByNet);
 
   const edges: GraphEdge[] = [];
@@ -216,7 +255,14 @@ export function buildLayoutGraph(record: TeardownRecord): LayoutGraph {
       const id = `j${netIndex}`;
       const half = JUNCTION_SIZE_PX / 2;
       const inPort: GraphPort = { id: `${id}.in`, net, role: "in", side: "WEST", x: 0, y: half };
-      const outPort: GraphPort = { id: `${id}.out`, net, role: "out", side: "EAST", x: JUNCTION_SIZE_PX, y: half };
+      const outPort: GraphPort = {
+        id: `${id}.out`,
+        net,
+        role: "out",
+        side: "EAST",
+        x: JUNCTION_SIZE_PX,
+        y: half,
+      };
       nodes.push({
         id,
         width: JUNCTION_SIZE_PX,

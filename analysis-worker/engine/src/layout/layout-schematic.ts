@@ -4,7 +4,12 @@
  * is rebuilt as plain JSON with labels moved wherever ELK left them on top of something.
  */
 import type { TeardownRecord } from "../record/types.js";
-import { runElkLayered, type LayeredSettings, type PlacedGraph, type PlacedNode } from "./elk-adapter.js";
+import {
+  runElkLayered,
+  type LayeredSettings,
+  type PlacedGraph,
+  type PlacedNode,
+} from "./elk-adapter.js";
 import { boundsOf, FreeSpace, sectionBoxes } from "./free-space.js";
 import { buildLayoutGraph, type GraphNode, type LayoutGraph } from "./layout-graph.js";
 import type {
@@ -39,10 +44,18 @@ const MAX_SPACING_PX = 1000;
 type Invalid = Extract<LayoutResult, { ok: false }>;
 
 function settingsFrom(opts: SchematicLayoutOptions): LayeredSettings | Invalid {
-  const pick = (name: "nodeSpacingPx" | "layerSpacingPx" | "paddingPx", fallback: number): number | Invalid => {
+  const pick = (
+    name: "nodeSpacingPx" | "layerSpacingPx" | "paddingPx",
+    fallback: number,
+  ): number | Invalid => {
     const v = opts[name] ?? fallback;
     if (!Number.isFinite(v) || v < 0 || v > MAX_SPACING_PX) {
-      return { ok: false, code: "invalid-layout-option", message: `${name} must be a number from 0 to ${MAX_SPACING_PX}, got ${v}`, where: name };
+      return {
+        ok: false,
+        code: "invalid-layout-option",
+        message: `${name} must be a number from 0 to ${MAX_SPACING_PX}, got ${v}`,
+        where: name,
+      };
     }
     return v;
   };
@@ -73,27 +86,56 @@ function pinsOf(node: GraphNode, placed: PlacedNode): PlacedPin[] {
 const boxOf = (b: Box): Box => ({ x: b.x, y: b.y, width: b.width, height: b.height });
 
 /** Label positions to try around a box, nearest first, starting on the preferred side. */
-function candidatesAround(box: Box, width: number, height: number, first: GraphNode["labelSide"]): Point[] {
+function candidatesAround(
+  box: Box,
+  width: number,
+  height: number,
+  first: GraphNode["labelSide"],
+): Point[] {
   const cx = box.x + box.width / 2;
   const cy = box.y + box.height / 2;
   const g = LABEL_GAP_PX;
-  const bySide: Record<GraphNode["labelSide"], Point[]> = { NORTH: [], SOUTH: [], EAST: [], WEST: [] };
+  const bySide: Record<GraphNode["labelSide"], Point[]> = {
+    NORTH: [],
+    SOUTH: [],
+    EAST: [],
+    WEST: [],
+  };
   for (let k = 0; k < 3; k++) {
     const dy = k * (height + 1);
     bySide.NORTH.push({ x: cx - width / 2, y: box.y - g - height - dy });
     bySide.SOUTH.push({ x: cx - width / 2, y: box.y + box.height + g + dy });
-    bySide.EAST.push({ x: box.x + box.width + g, y: cy - height / 2 - dy }, { x: box.x + box.width + g, y: cy - height / 2 + dy });
-    bySide.WEST.push({ x: box.x - g - width, y: cy - height / 2 - dy }, { x: box.x - g - width, y: cy - height / 2 + dy });
+    bySide.EAST.push(
+      { x: box.x + box.width + g, y: cy - height / 2 - dy },
+      { x: box.x + box.width + g, y: cy - height / 2 + dy },
+    );
+    bySide.WEST.push(
+      { x: box.x - g - width, y: cy - height / 2 - dy },
+      { x: box.x - g - width, y: cy - height / 2 + dy },
+    );
   }
-  const order = [first, ...(["NORTH", "SOUTH", "EAST", "WEST"] as const).filter((s) => s !== first)];
+  const order = [
+    first,
+    ...(["NORTH", "SOUTH", "EAST", "WEST"] as const).filter((s) => s !== first),
+  ];
   return order.flatMap((s) => bySide[s]);
 }
 
 /** Where a net's name may go: beside its junction, then above or below its longest runs. */
-function netLabelCandidates(sections: readonly WireSection[], junctions: readonly PlacedJunction[], width: number, height: number): Point[] {
+function netLabelCandidates(
+  sections: readonly WireSection[],
+  junctions: readonly PlacedJunction[],
+  width: number,
+  height: number,
+): Point[] {
   const out: Point[] = [];
   for (const j of junctions) {
-    out.push({ x: j.x + 4, y: j.y - 4 - height }, { x: j.x - 4 - width, y: j.y - 4 - height }, { x: j.x + 4, y: j.y + 4 }, { x: j.x - 4 - width, y: j.y + 4 });
+    out.push(
+      { x: j.x + 4, y: j.y - 4 - height },
+      { x: j.x - 4 - width, y: j.y - 4 - height },
+      { x: j.x + 4, y: j.y + 4 },
+      { x: j.x - 4 - width, y: j.y + 4 },
+    );
   }
   const runs: { x0: number; x1: number; y: number }[] = [];
   for (const s of sections) {
@@ -101,18 +143,28 @@ function netLabelCandidates(sections: readonly WireSection[], junctions: readonl
     for (let i = 1; i < pts.length; i++) {
       const a = pts[i - 1]!;
       const b = pts[i]!;
-      if (a.y === b.y && a.x !== b.x) runs.push({ x0: Math.min(a.x, b.x), x1: Math.max(a.x, b.x), y: a.y });
+      if (a.y === b.y && a.x !== b.x)
+        runs.push({ x0: Math.min(a.x, b.x), x1: Math.max(a.x, b.x), y: a.y });
     }
   }
   runs.sort((a, b) => b.x1 - b.x0 - (a.x1 - a.x0) || a.y - b.y || a.x0 - b.x0);
   for (const r of runs) {
     const mid = (r.x0 + r.x1) / 2 - width / 2;
-    out.push({ x: mid, y: r.y - 2 - height }, { x: mid, y: r.y + 2 }, { x: r.x0 + 3, y: r.y - 2 - height }, { x: r.x1 - 3 - width, y: r.y - 2 - height });
+    out.push(
+      { x: mid, y: r.y - 2 - height },
+      { x: mid, y: r.y + 2 },
+      { x: r.x0 + 3, y: r.y - 2 - height },
+      { x: r.x1 - 3 - width, y: r.y - 2 - height },
+    );
   }
   return out;
 }
 
-function assemble(graph: LayoutGraph, placed: PlacedGraph, labelNets: boolean): Omit<SchematicLayout, "width" | "height"> {
+function assemble(
+  graph: LayoutGraph,
+  placed: PlacedGraph,
+  labelNets: boolean,
+): Omit<SchematicLayout, "width" | "height"> {
   const space = new FreeSpace();
   const parts: PlacedPart[] = [];
   const terminals: PlacedTerminal[] = [];
@@ -128,7 +180,11 @@ function assemble(graph: LayoutGraph, placed: PlacedGraph, labelNets: boolean): 
       const jy = at.y + at.height / 2;
       junctions.push({ net: node.origin.net, x: jx, y: jy });
       // The wires enter on the left and leave on the right: join them through the dot.
-      const stub: WireSection = { start: at.ports.get(node.ports[0]!.id)!, end: at.ports.get(node.ports[1]!.id)!, bends: [] };
+      const stub: WireSection = {
+        start: at.ports.get(node.ports[0]!.id)!,
+        end: at.ports.get(node.ports[1]!.id)!,
+        bends: [],
+      };
       const list = sectionsByNet.get(node.origin.net) ?? [];
       list.push(stub);
       sectionsByNet.set(node.origin.net, list);
@@ -147,8 +203,18 @@ function assemble(graph: LayoutGraph, placed: PlacedGraph, labelNets: boolean): 
       node.ports.forEach((p) => terminalNets.add(p.net));
       const label = node.labels[0]!;
       const elkBox = at.labels[0]!;
-      const caption = space.place(label.width, label.height, [elkBox, ...candidatesAround(at, label.width, label.height, "NORTH")], elkBox);
-      terminals.push({ ...boxOf(at), kind: node.origin.kind, pins: pinsOf(node, at), caption: { ...caption, text: label.text } });
+      const caption = space.place(
+        label.width,
+        label.height,
+        [elkBox, ...candidatesAround(at, label.width, label.height, "NORTH")],
+        elkBox,
+      );
+      terminals.push({
+        ...boxOf(at),
+        kind: node.origin.kind,
+        pins: pinsOf(node, at),
+        caption: { ...caption, text: label.text },
+      });
     }
   }
   for (const node of graph.nodes) {
@@ -156,29 +222,56 @@ function assemble(graph: LayoutGraph, placed: PlacedGraph, labelNets: boolean): 
     const at = placed.nodes.get(node.id)!;
     const labels: PlacedLabel[] = node.labels.map((l, i) => {
       const elkBox = at.labels[i]!;
-      const box = space.place(l.width, l.height, [elkBox, ...candidatesAround(at, l.width, l.height, node.labelSide)], elkBox);
+      const box = space.place(
+        l.width,
+        l.height,
+        [elkBox, ...candidatesAround(at, l.width, l.height, node.labelSide)],
+        elkBox,
+      );
       return { ...box, text: l.text, of: l.of === "value" ? "value" : "ref" };
     });
     const { part, symbol, rotation } = node.origin;
-    parts.push({ ref: part.ref, kind: part.kind, symbol, rotation, ...boxOf(at), pins: pinsOf(node, at), labels });
+    parts.push({
+      ref: part.ref,
+      kind: part.kind,
+      symbol,
+      rotation,
+      ...boxOf(at),
+      pins: pinsOf(node, at),
+      labels,
+    });
   }
 
   const wires: PlacedWire[] = [...graph.netRoles.keys()]
     .filter((net) => sectionsByNet.has(net))
-    .map((net) => ({ net, role: graph.netRoles.get(net) ?? null, sections: sectionsByNet.get(net)! }));
+    .map((net) => ({
+      net,
+      role: graph.netRoles.get(net) ?? null,
+      sections: sectionsByNet.get(net)!,
+    }));
 
   const netLabels: PlacedNetLabel[] = [];
   if (labelNets) {
     const pinsByNet = new Map<string, PlacedPin[]>();
-    for (const p of parts) for (const pin of p.pins) pinsByNet.set(pin.net, [...(pinsByNet.get(pin.net) ?? []), pin]);
+    for (const p of parts)
+      for (const pin of p.pins) pinsByNet.set(pin.net, [...(pinsByNet.get(pin.net) ?? []), pin]);
     for (const net of [...graph.netRoles.keys()].sort()) {
       if (terminalNets.has(net)) continue;
       const { width, height } = labelSize(net);
       const sections = sectionsByNet.get(net) ?? [];
       const pin = pinsByNet.get(net)![0]!;
-      const candidates = netLabelCandidates(sections, junctions.filter((j) => j.net === net), width, height);
+      const candidates = netLabelCandidates(
+        sections,
+        junctions.filter((j) => j.net === net),
+        width,
+        height,
+      );
       // A net with one pin has no wire: its name goes just off the pin.
-      candidates.push({ x: pin.x + 3, y: pin.y - 3 - height }, { x: pin.x - 3 - width, y: pin.y - 3 - height }, { x: pin.x + 3, y: pin.y + 3 });
+      candidates.push(
+        { x: pin.x + 3, y: pin.y - 3 - height },
+        { x: pin.x - 3 - width, y: pin.y - 3 - height },
+        { x: pin.x + 3, y: pin.y + 3 },
+      );
       const box = space.place(width, height, candidates, pin);
       netLabels.push({ ...box, net, text: net });
     }
@@ -191,7 +284,10 @@ function shiftPoint(p: Point, dx: number, dy: number): Point {
 }
 
 /** Moves everything so the whole drawing, labels included, sits `padding` from the top-left. */
-function normalise(body: Omit<SchematicLayout, "width" | "height">, padding: number): SchematicLayout {
+function normalise(
+  body: Omit<SchematicLayout, "width" | "height">,
+  padding: number,
+): SchematicLayout {
   const boxes: Box[] = [
     ...body.parts.flatMap((p) => [p, ...p.labels]),
     ...body.terminals.flatMap((t) => [t, t.caption]),
@@ -206,13 +302,25 @@ function normalise(body: Omit<SchematicLayout, "width" | "height">, padding: num
   return {
     width: bounds.width + 2 * padding,
     height: bounds.height + 2 * padding,
-    parts: body.parts.map((p) => ({ ...move(p), pins: p.pins.map(move), labels: p.labels.map(move) })),
-    terminals: body.terminals.map((t) => ({ ...move(t), pins: t.pins.map(move), caption: move(t.caption) })),
+    parts: body.parts.map((p) => ({
+      ...move(p),
+      pins: p.pins.map(move),
+      labels: p.labels.map(move),
+    })),
+    terminals: body.terminals.map((t) => ({
+      ...move(t),
+      pins: t.pins.map(move),
+      caption: move(t.caption),
+    })),
     junctions: body.junctions.map(move),
     netLabels: body.netLabels.map(move),
     wires: body.wires.map((w) => ({
       ...w,
-      sections: w.sections.map((s) => ({ start: shiftPoint(s.start, dx, dy), end: shiftPoint(s.end, dx, dy), bends: s.bends.map((b) => shiftPoint(b, dx, dy)) })),
+      sections: w.sections.map((s) => ({
+        start: shiftPoint(s.start, dx, dy),
+        end: shiftPoint(s.end, dx, dy),
+        bends: s.bends.map((b) => shiftPoint(b, dx, dy)),
+      })),
     })),
   };
 }
@@ -221,7 +329,10 @@ function normalise(body: Omit<SchematicLayout, "width" | "height">, padding: num
  * Lays out a record as a schematic: supply entry on the left, outputs and loads on the right,
  * neutral pins at the bottom, orthogonal wires, junction dots, labels clear of everything.
  */
-export async function layoutSchematic(record: TeardownRecord, opts: SchematicLayoutOptions = {}): Promise<LayoutResult> {
+export async function layoutSchematic(
+  record: TeardownRecord,
+  opts: SchematicLayoutOptions = {},
+): Promise<LayoutResult> {
   const settings = settingsFrom(opts);
   if ("ok" in settings) return settings;
   const graph = buildLayoutGraph(record);

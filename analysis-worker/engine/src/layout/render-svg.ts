@@ -26,7 +26,14 @@ export function netColour(role: NetRole | null): string {
   return WIRE_COLOUR;
 }
 
-function text(x: number, y: number, height: number, content: string, fill: string, extra = ""): string {
+function text(
+  x: number,
+  y: number,
+  height: number,
+  content: string,
+  fill: string,
+  extra = "",
+): string {
   const baseline = y + height - BASELINE_LIFT_PX;
   return `<text x="${fmt(x + LABEL_PADDING_PX)}" y="${fmt(baseline)}" fill="${fill}"${extra}>${escapeXml(content)}</text>`;
 }
@@ -54,7 +61,10 @@ function terminalSvg(t: PlacedTerminal): string {
         return `<text x="${fmt(pin.x)}" y="${fmt(pin.y - 5)}" text-anchor="middle" fill="${colour}">${content}</text>`;
     }
   });
-  const pins = t.pins.map((pin) => `<circle cx="${fmt(pin.x)}" cy="${fmt(pin.y)}" r="2.5" fill="${BACKGROUND}" stroke="${SYMBOL_STROKE}"/>`);
+  const pins = t.pins.map(
+    (pin) =>
+      `<circle cx="${fmt(pin.x)}" cy="${fmt(pin.y)}" r="2.5" fill="${BACKGROUND}" stroke="${SYMBOL_STROKE}"/>`,
+  );
   const caption = text(t.caption.x, t.caption.y, t.caption.height, t.caption.text, SYMBOL_STROKE);
   return `<g data-terminal="${t.kind}">${box}${names.join("")}${pins.join("")}${caption}</g>`;
 }
@@ -71,7 +81,8 @@ export function renderSchematicSvg(layout: SchematicLayout): string {
   out.push(...layout.wires.map(wireSvg));
   out.push(
     ...layout.junctions.map(
-      (j) => `<circle data-net="${escapeXml(j.net)}" cx="${fmt(j.x)}" cy="${fmt(j.y)}" r="${JUNCTION_RADIUS_PX}" fill="${netColour(roles.get(j.net) ?? null)}"/>`,
+      (j) =>
+        `<circle data-net="${escapeXml(j.net)}" cx="${fmt(j.x)}" cy="${fmt(j.y)}" r="${JUNCTION_RADIUS_PX}" fill="${netColour(roles.get(j.net) ?? null)}"/>`,
     ),
   );
   out.push(...layout.terminals.map(terminalSvg));
@@ -79,7 +90,10 @@ export function renderSchematicSvg(layout: SchematicLayout): string {
     out.push(partSymbolSvg(p));
     for (const l of p.labels) out.push(text(l.x, l.y, l.height, l.text, SYMBOL_STROKE));
   }
-  for (const l of layout.netLabels) out.push(text(l.x, l.y, l.height, l.text, netColour(roles.get(l.net) ?? null), ` font-style="italic"`));
+  for (const l of layout.netLabels)
+    out.push(
+      text(l.x, l.y, l.height, l.text, netColour(roles.get(l.net) ?? null), ` font-style="italic"`),
+    );
   out.push("</svg>");
   return out.join("\n");
 }

@@ -16,7 +16,12 @@ export function fmt(n: number): string {
 
 /** Text made safe for SVG content and attribute values. */
 export function escapeXml(text: string): string {
-  return text.replace(/&/g, "&amp;").replace(/</g, "&lt;").replace(/>/g, "&gt;").replace(/"/g, "&quot;").replace(/'/g, "&apos;");
+  return text
+    .replace(/&/g, "&amp;")
+    .replace(/</g, "&lt;")
+    .replace(/>/g, "&gt;")
+    .replace(/"/g, "&quot;")
+    .replace(/'/g, "&apos;");
 }
 
 const line = (x1: number, y1: number, x2: number, y2: number): string =>
@@ -34,14 +39,30 @@ function leads(half: number, inner: number): string {
 
 /** A right-pointing diode body between x = -8 and x = 8 (triangle and cathode bar). */
 function diodeBody(bar: string): string {
-  return poly([[-8, -8], [-8, 8], [8, 0]]) + bar;
+  return (
+    poly([
+      [-8, -8],
+      [-8, 8],
+      [8, 0],
+    ]) + bar
+  );
 }
 
 /** A small arrow from (x, y) by (dx, dy), the way light leaves an LED. */
 function arrow(x: number, y: number, dx: number, dy: number): string {
   const ex = x + dx;
   const ey = y + dy;
-  return line(x, y, ex, ey) + poly([[ex, ey], [ex - 4, ey + 1], [ex - 1, ey + 4]], SYMBOL_STROKE);
+  return (
+    line(x, y, ex, ey) +
+    poly(
+      [
+        [ex, ey],
+        [ex - 4, ey + 1],
+        [ex - 1, ey + 4],
+      ],
+      SYMBOL_STROKE,
+    )
+  );
 }
 
 /** A row of four half-turns from (x, -20) to (x, 20), bulging to the side `bulge` (±1). */
@@ -53,7 +74,11 @@ function coil(x: number, bulge: 1 | -1): string {
 }
 
 /** The body of a fixed symbol, centred at the origin, horizontal, in a box `width` wide. */
-function fixedSymbol(symbol: Exclude<SymbolName, "connector" | "testpoint" | "generic">, width: number, rotation: number): string {
+function fixedSymbol(
+  symbol: Exclude<SymbolName, "connector" | "testpoint" | "generic">,
+  width: number,
+  rotation: number,
+): string {
   const half = width / 2;
   switch (symbol) {
     case "resistor":
@@ -65,15 +90,25 @@ function fixedSymbol(symbol: Exclude<SymbolName, "connector" | "testpoint" | "ge
     case "capacitor":
       return leads(half, 4) + line(-4, -11, -4, 11) + line(4, -11, 4, 11);
     case "polarised-capacitor":
-      return leads(half, 4) + rect(-6, -11, 3, 22) + line(4, -11, 4, 11) + path("M -13 -12 L -9 -12 M -11 -14 L -11 -10");
+      return (
+        leads(half, 4) +
+        rect(-6, -11, 3, 22) +
+        line(4, -11, 4, 11) +
+        path("M -13 -12 L -9 -12 M -11 -14 L -11 -10")
+      );
     case "inductor":
-      return leads(half, 16) + path("M -16 0 a 4 4 0 0 1 8 0 a 4 4 0 0 1 8 0 a 4 4 0 0 1 8 0 a 4 4 0 0 1 8 0");
+      return (
+        leads(half, 16) +
+        path("M -16 0 a 4 4 0 0 1 8 0 a 4 4 0 0 1 8 0 a 4 4 0 0 1 8 0 a 4 4 0 0 1 8 0")
+      );
     case "diode":
       return leads(half, 8) + diodeBody(line(8, -8, 8, 8));
     case "zener":
       return leads(half, 8) + diodeBody(path("M 4 -10 L 8 -8 L 8 8 L 12 10"));
     case "led":
-      return leads(half, 8) + diodeBody(line(8, -8, 8, 8)) + arrow(1, -9, 6, -6) + arrow(6, -7, 6, -6);
+      return (
+        leads(half, 8) + diodeBody(line(8, -8, 8, 8)) + arrow(1, -9, 6, -6) + arrow(6, -7, 6, -6)
+      );
     case "thyristor":
       // Gate pin at (15, 20) in the centred frame: the box is 50 x 40 with the gate at (40, 40).
       return leads(half, 8) + diodeBody(line(8, -8, 8, 8)) + path("M 8 6 L 15 12 L 15 20");
@@ -82,8 +117,16 @@ function fixedSymbol(symbol: Exclude<SymbolName, "connector" | "testpoint" | "ge
         leads(half, 8) +
         line(-8, -12, -8, 12) +
         line(8, -12, 8, 12) +
-        poly([[-8, -12], [-8, 0], [8, -6]]) +
-        poly([[8, 0], [8, 12], [-8, 6]]) +
+        poly([
+          [-8, -12],
+          [-8, 0],
+          [8, -6],
+        ]) +
+        poly([
+          [8, 0],
+          [8, 12],
+          [-8, 6],
+        ]) +
         path("M 8 10 L 15 14 L 15 20")
       );
     case "transformer":
@@ -102,7 +145,11 @@ function fixedSymbol(symbol: Exclude<SymbolName, "connector" | "testpoint" | "ge
         `<text x="0" y="3.5" font-size="9" text-anchor="middle" stroke="none" fill="${SYMBOL_STROKE}" transform="rotate(${-rotation})">load</text>`
       );
     case "switch":
-      return leads(half, 12) + line(-12, 0, 10, -9) + `<circle cx="-12" cy="0" r="1.8"/><circle cx="12" cy="0" r="1.8"/>`;
+      return (
+        leads(half, 12) +
+        line(-12, 0, 10, -9) +
+        `<circle cx="-12" cy="0" r="1.8"/><circle cx="12" cy="0" r="1.8"/>`
+      );
   }
 }
 
@@ -112,9 +159,21 @@ function uprightSymbol(p: PlacedPart): string {
   const cy = p.y + p.height / 2;
   switch (p.symbol) {
     case "connector":
-      return rect(p.x + 2, p.y, p.width - 14, p.height) + p.pins.map((pin) => `<circle cx="${fmt(pin.x - 9)}" cy="${fmt(pin.y)}" r="3"/>` + line(pin.x - 6, pin.y, pin.x, pin.y)).join("");
+      return (
+        rect(p.x + 2, p.y, p.width - 14, p.height) +
+        p.pins
+          .map(
+            (pin) =>
+              `<circle cx="${fmt(pin.x - 9)}" cy="${fmt(pin.y)}" r="3"/>` +
+              line(pin.x - 6, pin.y, pin.x, pin.y),
+          )
+          .join("")
+      );
     case "testpoint":
-      return `<circle cx="${fmt(cx)}" cy="${fmt(cy)}" r="5"/>` + p.pins.map((pin) => line(pin.x, pin.y, cx - 5, cy)).join("");
+      return (
+        `<circle cx="${fmt(cx)}" cy="${fmt(cy)}" r="5"/>` +
+        p.pins.map((pin) => line(pin.x, pin.y, cx - 5, cy)).join("")
+      );
     default:
       return (
         rect(p.x, p.y, p.width, p.height) +
@@ -126,7 +185,8 @@ function uprightSymbol(p: PlacedPart): string {
 /** One part's symbol as an SVG group, turned by the part's rotation about its box centre. */
 export function partSymbolSvg(p: PlacedPart): string {
   const attrs = `data-ref="${escapeXml(p.ref)}" stroke="${SYMBOL_STROKE}" stroke-width="1.4" fill="none"`;
-  if (p.symbol === "connector" || p.symbol === "testpoint" || p.symbol === "generic") return `<g ${attrs}>${uprightSymbol(p)}</g>`;
+  if (p.symbol === "connector" || p.symbol === "testpoint" || p.symbol === "generic")
+    return `<g ${attrs}>${uprightSymbol(p)}</g>`;
   const quarter = p.rotation === 90 || p.rotation === 270;
   const drawnWidth = quarter ? p.height : p.width;
   const cx = fmt(p.x + p.width / 2);

@@ -35,7 +35,12 @@ export interface SymbolGeometry {
 type FixedSymbol = Exclude<SymbolName, "connector" | "testpoint" | "generic">;
 
 /** Two pins level with the middle of the box: the first on the left, the second on the right. */
-function inline(symbol: FixedSymbol, width: number, height: number, roles: [string, string]): SymbolGeometry {
+function inline(
+  symbol: FixedSymbol,
+  width: number,
+  height: number,
+  roles: [string, string],
+): SymbolGeometry {
   const y = height / 2;
   return {
     symbol,
@@ -103,14 +108,24 @@ function roundUpToGrid(px: number): number {
 /** A column of pins on the right: a connector's contacts. */
 function connector(roles: readonly string[]): SymbolGeometry {
   const height = Math.max(1, roles.length) * PIN_PITCH_PX;
-  const pins = roles.map((role, i): SymbolPin => ({ role, side: "EAST", x: 30, y: PIN_PITCH_PX / 2 + i * PIN_PITCH_PX }));
+  const pins = roles.map((role, i): SymbolPin => ({
+    role,
+    side: "EAST",
+    x: 30,
+    y: PIN_PITCH_PX / 2 + i * PIN_PITCH_PX,
+  }));
   return { symbol: "connector", width: 30, height, pins };
 }
 
 /** A test point: a ring with its pins entering from the left. */
 function testpoint(roles: readonly string[]): SymbolGeometry {
   const height = Math.max(1, roles.length) * PIN_PITCH_PX;
-  const pins = roles.map((role, i): SymbolPin => ({ role, side: "WEST", x: 0, y: PIN_PITCH_PX / 2 + i * PIN_PITCH_PX }));
+  const pins = roles.map((role, i): SymbolPin => ({
+    role,
+    side: "WEST",
+    x: 0,
+    y: PIN_PITCH_PX / 2 + i * PIN_PITCH_PX,
+  }));
   return { symbol: "testpoint", width: 20, height, pins };
 }
 
@@ -123,7 +138,12 @@ function generic(kind: string, roles: readonly string[]): SymbolGeometry {
   const pins = roles.map((role, i): SymbolPin => {
     const left = i < leftCount;
     const row = left ? i : i - leftCount;
-    return { role, side: left ? "WEST" : "EAST", x: left ? 0 : width, y: PIN_PITCH_PX / 2 + row * PIN_PITCH_PX };
+    return {
+      role,
+      side: left ? "WEST" : "EAST",
+      x: left ? 0 : width,
+      y: PIN_PITCH_PX / 2 + row * PIN_PITCH_PX,
+    };
   });
   return { symbol: "generic", width, height, pins };
 }
@@ -134,9 +154,15 @@ export function symbolFor(part: Part): SymbolGeometry {
   const info = kindInfo(part.kind);
   if (info?.variadic) return part.kind === "connector" ? connector(roles) : testpoint(roles);
   const expected = pinRolesFor(part.kind, part.polarised);
-  const fits = expected !== null && roles.length === expected.length && roles.every((r) => expected.includes(r));
+  const fits =
+    expected !== null &&
+    roles.length === expected.length &&
+    roles.every((r) => expected.includes(r));
   if (!fits || info === null) return generic(part.kind, roles);
-  const name: FixedSymbol = part.kind === "capacitor" && part.polarised ? "polarised-capacitor" : (part.kind as FixedSymbol);
+  const name: FixedSymbol =
+    part.kind === "capacitor" && part.polarised
+      ? "polarised-capacitor"
+      : (part.kind as FixedSymbol);
   return FIXED_SYMBOLS[name];
 }
 
@@ -183,13 +209,25 @@ const ROTATION_PREFERENCE: readonly Rotation[] = [0, 90, 270, 180];
  * two neutral pins share a side). Only fixed symbols turn: connectors and plain boxes keep
  * their text upright.
  */
-export function rotationFor(part: Part, geometry: SymbolGeometry, neutralNets: ReadonlySet<string>): Rotation {
-  if (geometry.symbol === "connector" || geometry.symbol === "testpoint" || geometry.symbol === "generic") return 0;
-  const neutralRoles = geometry.pins.filter((p) => neutralNets.has(part.pins[p.role]!)).map((p) => p.role);
+export function rotationFor(
+  part: Part,
+  geometry: SymbolGeometry,
+  neutralNets: ReadonlySet<string>,
+): Rotation {
+  if (
+    geometry.symbol === "connector" ||
+    geometry.symbol === "testpoint" ||
+    geometry.symbol === "generic"
+  )
+    return 0;
+  const neutralRoles = geometry.pins
+    .filter((p) => neutralNets.has(part.pins[p.role]!))
+    .map((p) => p.role);
   if (neutralRoles.length === 0) return 0;
   for (const rotation of ROTATION_PREFERENCE) {
     const turned = rotateSymbol(geometry, rotation);
-    if (turned.pins.every((p) => !neutralRoles.includes(p.role) || p.side === "SOUTH")) return rotation;
+    if (turned.pins.every((p) => !neutralRoles.includes(p.role) || p.side === "SOUTH"))
+      return rotation;
   }
   return 0;
 }

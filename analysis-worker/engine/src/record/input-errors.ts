@@ -83,7 +83,8 @@ export class ProblemList {
 
 /** Orders problems by place in the file (unplaced last), keeping the found order otherwise. */
 export function sortByPlace(problems: InputError[]): InputError[] {
-  const key = (p: InputError): number => (p.line ?? Number.MAX_SAFE_INTEGER) * 1e6 + (p.column ?? 0);
+  const key = (p: InputError): number =>
+    (p.line ?? Number.MAX_SAFE_INTEGER) * 1e6 + (p.column ?? 0);
   return problems
     .map((p, i) => ({ p, i }))
     .sort((a, b) => key(a.p) - key(b.p) || a.i - b.i)

@@ -12,15 +12,33 @@ import type { RawPart } from "./record-schema.js";
 
 /** Units of the model parameters the record format names; others may carry any unit. */
 export const MODEL_PARAMETER_UNITS: Readonly<Record<string, string>> = {
-  vgt: "V", igt: "A", ih: "A", von: "V",
-  is: "A", n: "1", rs: "Ω", bv: "V",
-  rz: "Ω", vf: "V", if: "A",
-  lp: "H", ratio: "1", k: "1", rp: "Ω",
-  r: "Ω", c: "F",
+  vgt: "V",
+  igt: "A",
+  ih: "A",
+  von: "V",
+  is: "A",
+  n: "1",
+  rs: "Ω",
+  bv: "V",
+  rz: "Ω",
+  vf: "V",
+  if: "A",
+  lp: "H",
+  ratio: "1",
+  k: "1",
+  rp: "Ω",
+  r: "Ω",
+  c: "F",
 };
 
 /** Kinds whose value must be above zero (a zero-ohm resistor is a jumper and allowed). */
-const POSITIVE_VALUE_KINDS: readonly string[] = ["capacitor", "inductor", "fuse", "varistor", "zener"];
+const POSITIVE_VALUE_KINDS: readonly string[] = [
+  "capacitor",
+  "inductor",
+  "fuse",
+  "varistor",
+  "zener",
+];
 
 const RATING_UNITS: ReadonlyArray<readonly [keyof Rating, string]> = [
   ["volts", "V"],
@@ -49,7 +67,12 @@ export function readNumber(
   return read.value;
 }
 
-function normalisePins(raw: RawPart, polarised: boolean, base: readonly PathSegment[], problems: ProblemList): Record<string, string> | null {
+function normalisePins(
+  raw: RawPart,
+  polarised: boolean,
+  base: readonly PathSegment[],
+  problems: ProblemList,
+): Record<string, string> | null {
   const info = kindInfo(raw.kind);
   const roles = pinRolesFor(raw.kind, polarised);
   const path = [...base, "pins"];
@@ -58,7 +81,11 @@ function normalisePins(raw: RawPart, polarised: boolean, base: readonly PathSegm
     if (info === null) return Object.fromEntries(nets.map((net, i) => [`p${i + 1}`, net]));
     if (info.variadic) return Object.fromEntries(nets.map((net, i) => [`p${i + 1}`, net]));
     if (nets.length !== roles!.length) {
-      problems.error(path, "pin-count", `a ${raw.kind} has ${roles!.length} pins (${roles!.join(", ")}), but ${nets.length} ${nets.length === 1 ? "is" : "are"} given`);
+      problems.error(
+        path,
+        "pin-count",
+        `a ${raw.kind} has ${roles!.length} pins (${roles!.join(", ")}), but ${nets.length} ${nets.length === 1 ? "is" : "are"} given`,
+      );
       return null;
     }
     return Object.fromEntries(nets.map((net, i) => [roles![i]!, net]));
@@ -69,7 +96,11 @@ function normalisePins(raw: RawPart, polarised: boolean, base: readonly PathSegm
   if (info.variadic) {
     for (const [role] of entries) {
       if (!/^p[1-9][0-9]*$/.test(role)) {
-        problems.error([...path, role], "unknown-pin", `a ${raw.kind}'s pins are named p1, p2, ...; "${role}" is not one`);
+        problems.error(
+          [...path, role],
+          "unknown-pin",
+          `a ${raw.kind}'s pins are named p1, p2, ...; "${role}" is not one`,
+        );
         ok = false;
       }
     }
@@ -81,14 +112,27 @@ function normalisePins(raw: RawPart, polarised: boolean, base: readonly PathSegm
   }
   for (const [role] of entries) {
     if (!roles!.includes(role)) {
-      const extra = raw.kind === "capacitor" ? (polarised ? " (a polarised capacitor)" : " (set polarised: true for plus/minus)") : "";
-      problems.error([...path, role], "unknown-pin", `a ${raw.kind}${extra} has pins ${roles!.join(", ")}; "${role}" is not one of them`);
+      const extra =
+        raw.kind === "capacitor"
+          ? polarised
+            ? " (a polarised capacitor)"
+            : " (set polarised: true for plus/minus)"
+          : "";
+      problems.error(
+        [...path, role],
+        "unknown-pin",
+        `a ${raw.kind}${extra} has pins ${roles!.join(", ")}; "${role}" is not one of them`,
+      );
       ok = false;
     }
   }
   for (const role of roles!) {
     if (!entries.some(([r]) => r === role)) {
-      problems.error(path, "missing-pin", `pin "${role}" of this ${raw.kind} is not connected to a net`);
+      problems.error(
+        path,
+        "missing-pin",
+        `pin "${role}" of this ${raw.kind} is not connected to a net`,
+      );
       ok = false;
     }
   }
@@ -97,21 +141,38 @@ function normalisePins(raw: RawPart, polarised: boolean, base: readonly PathSegm
   return Object.fromEntries(roles!.map((role) => [role, entries.find(([r]) => r === role)![1]]));
 }
 
-function normaliseValue(raw: RawPart, base: readonly PathSegment[], problems: ProblemList): { value: number | null; text: string | null; ok: boolean } {
+function normaliseValue(
+  raw: RawPart,
+  base: readonly PathSegment[],
+  problems: ProblemList,
+): { value: number | null; text: string | null; ok: boolean } {
   if (raw.value === undefined || raw.value === null) return { value: null, text: null, ok: true };
   const path = [...base, "value"];
-  let text = typeof raw.value === "number" ? (problems.numberText(path) ?? String(raw.value)) : raw.value.trim();
+  let text =
+    typeof raw.value === "number"
+      ? (problems.numberText(path) ?? String(raw.value))
+      : raw.value.trim();
   const info = kindInfo(raw.kind);
   const unit = info === null ? "any" : (info.unit ?? "1");
   const read = parseValue(raw.value, { unit });
   // keep the file's spelling of a number only when it reads back to the same number
-  if (typeof raw.value === "number" && !(parseValue(text, { unit }).ok && (parseValue(text, { unit }) as { value: number }).value === raw.value)) {
+  if (
+    typeof raw.value === "number" &&
+    !(
+      parseValue(text, { unit }).ok &&
+      (parseValue(text, { unit }) as { value: number }).value === raw.value
+    )
+  ) {
     text = String(raw.value);
   }
   if (!read.ok) {
     if (info === null || info.unit === null) {
       // a part number in `value` of a diode or an unknown kind is documentation, not a number
-      problems.warn(path, "value-not-numeric", `"${text}" is kept as text; a ${raw.kind} has no numeric value here`);
+      problems.warn(
+        path,
+        "value-not-numeric",
+        `"${text}" is kept as text; a ${raw.kind} has no numeric value here`,
+      );
       return { value: null, text, ok: true };
     }
     const hint = read.code === "wrong-unit" ? "" : ` (a ${raw.kind}'s value is in ${info.unit})`;
@@ -119,21 +180,34 @@ function normaliseValue(raw: RawPart, base: readonly PathSegment[], problems: Pr
     return { value: null, text, ok: false };
   }
   if (read.value < 0 || (read.value === 0 && POSITIVE_VALUE_KINDS.includes(raw.kind))) {
-    problems.error(path, "value-out-of-range", `a ${raw.kind}'s value must be ${read.value < 0 ? "at least 0" : "above 0"}`);
+    problems.error(
+      path,
+      "value-out-of-range",
+      `a ${raw.kind}'s value must be ${read.value < 0 ? "at least 0" : "above 0"}`,
+    );
     return { value: null, text, ok: false };
   }
   return { value: read.value, text, ok: true };
 }
 
 /** Normalises one raw part at `parts[index]`; null when it has errors (they are reported). */
-export function normalisePart(raw: RawPart, index: number, problems: ProblemList, opts: { checkPins?: boolean } = {}): Part | null {
+export function normalisePart(
+  raw: RawPart,
+  index: number,
+  problems: ProblemList,
+  opts: { checkPins?: boolean } = {},
+): Part | null {
   const base: PathSegment[] = ["parts", index];
   const before = problems.errors.length;
   const info = kindInfo(raw.kind);
   if (info === null) {
     const near = Object.keys(KINDS).find((k) => k.toLowerCase() === raw.kind.toLowerCase().trim());
     const hint = near === undefined ? "" : `; did you mean "${near}"?`;
-    problems.warn([...base, "kind"], "unknown-kind", `"${raw.kind}" is not a kind the engine simulates; the part is kept for documentation${hint}`);
+    problems.warn(
+      [...base, "kind"],
+      "unknown-kind",
+      `"${raw.kind}" is not a kind the engine simulates; the part is kept for documentation${hint}`,
+    );
   }
   if (raw.polarised !== undefined && raw.kind !== "capacitor") {
     problems.warn([...base, "polarised"], "field-ignored", "polarised applies to capacitors only");
@@ -154,14 +228,20 @@ export function normalisePart(raw: RawPart, index: number, problems: ProblemList
     const rawRating = raw.rating?.[key];
     if (rawRating === undefined) continue;
     const n = readNumber(rawRating as string | number, unit, [...base, "rating", key], problems);
-    if (n !== null && n < 0) problems.error([...base, "rating", key], "value-out-of-range", `a rating cannot be negative`);
+    if (n !== null && n < 0)
+      problems.error([...base, "rating", key], "value-out-of-range", `a rating cannot be negative`);
     else if (n !== null) (rating as Record<string, number>)[key] = n;
   }
   if (raw.rating?.class !== undefined) rating.class = raw.rating.class;
   if (raw.rating?.package !== undefined) rating.package = raw.rating.package;
   const model: Record<string, number> = {};
   for (const [key, rawParam] of Object.entries(raw.model ?? {})) {
-    const n = readNumber(rawParam, MODEL_PARAMETER_UNITS[key] ?? "any", [...base, "model", key], problems);
+    const n = readNumber(
+      rawParam,
+      MODEL_PARAMETER_UNITS[key] ?? "any",
+      [...base, "model", key],
+      problems,
+    );
     if (n !== null) model[key] = n;
   }
   const pins = opts.checkPins === false ? null : normalisePins(raw, polarised, base, problems);

@@ -22,24 +22,47 @@ export function recordFormatOf(text: string, filename?: string): "yaml" | "json"
   const ext = filename?.toLowerCase().match(/\.([a-z0-9]+)$/)?.[1];
   if (ext === "json") return "json";
   if (ext === "yaml" || ext === "yml") return "yaml";
-  const first = text.replace(/^\uFEFF/, "").trimStart().charAt(0);
+  const first = text
+    .replace(/^\uFEFF/, "")
+    .trimStart()
+    .charAt(0);
   return first === "{" || first === "[" ? "json" : "yaml";
 }
 
 /** A failure of the reader itself, reported rather than thrown. */
 export function internalFailure(e: unknown): ParseResult {
   const message = e instanceof Error ? e.message : String(e);
-  const error: InputError = { path: "", code: "unreadable", message: `the input could not be read: ${message}`, line: null, column: null };
+  const error: InputError = {
+    path: "",
+    code: "unreadable",
+    message: `the input could not be read: ${message}`,
+    line: null,
+    column: null,
+  };
   return { ok: false, errors: [error] };
 }
 
 function parseRecordUnguarded(text: string, opts: ParseRecordOptions): ParseResult {
   if (typeof text !== "string") {
-    return { ok: false, errors: [{ path: "", code: "not-text", message: "a record must be given as text", line: null, column: null }] };
+    return {
+      ok: false,
+      errors: [
+        {
+          path: "",
+          code: "not-text",
+          message: "a record must be given as text",
+          line: null,
+          column: null,
+        },
+      ],
+    };
   }
   if (text.length > MAX_RECORD_TEXT_CHARS) {
     const message = `the file is ${text.length} characters; a record is at most ${MAX_RECORD_TEXT_CHARS}`;
-    return { ok: false, errors: [{ path: "", code: "too-large", message, line: null, column: null }] };
+    return {
+      ok: false,
+      errors: [{ path: "", code: "too-large", message, line: null, column: null }],
+    };
   }
   const source = text.replace(/^\uFEFF/, "");
   const read = readRecordText(source, recordFormatOf(source, opts.filename));

@@ -11,6 +11,9 @@ export const RECORD_JSON_SCHEMA_ID = "record-v1.schema.json";
 
 /** The JSON Schema (draft 2020-12) of a version-1 record file. */
 export function recordJsonSchema(): Record<string, unknown> {
-  const schema = z.toJSONSchema(RecordInput, { target: "draft-2020-12", io: "input" }) as Record<string, unknown>;
+  const schema = z.toJSONSchema(RecordInput, { target: "draft-2020-12", io: "input" }) as Record<
+    string,
+    unknown
+  >;
   return { ...schema, $id: RECORD_JSON_SCHEMA_ID };
 }

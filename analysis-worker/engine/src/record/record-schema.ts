@@ -24,7 +24,10 @@ export const ValueInput = z
   .union([z.string().max(MAX_NAME_CHARS), z.number()], {
     error: "expected a value such as 4.7k, 330n, 2.2e-7 or 4k7 (text or a number)",
   })
-  .meta({ description: "A value: a number, SI prefix (330n), exponent form (2.2e-7) or IEC 60062 code (4k7), optional unit symbol." });
+  .meta({
+    description:
+      "A value: a number, SI prefix (330n), exponent form (2.2e-7) or IEC 60062 code (4k7), optional unit symbol.",
+  });
 
 /** A net name; YAML reads `0` or `1` as a number, which is taken as the name "0" or "1". */
 export const NetNameInput = z
@@ -51,8 +54,12 @@ export const RatingInput = z
     volts: ValueInput.optional(),
     amps: ValueInput.optional(),
     watts: ValueInput.optional(),
-    class: ShortText.optional().meta({ description: "safety class of a capacitor: X1, X2, Y1, Y2, ..." }),
-    package: ShortText.optional().meta({ description: "package or power class, e.g. 0805, CFR-25" }),
+    class: ShortText.optional().meta({
+      description: "safety class of a capacitor: X1, X2, Y1, Y2, ...",
+    }),
+    package: ShortText.optional().meta({
+      description: "package or power class, e.g. 0805, CFR-25",
+    }),
     surge_amps: ValueInput.optional().meta({ description: "non-repetitive surge current, amps" }),
   })
   .meta({ description: "Ratings as printed or taken from a datasheet." });
@@ -62,7 +69,9 @@ export const PinsInput = z
   .union(
     [
       z.array(NetNameInput).min(1).meta({ description: "net names in the kind's pin order" }),
-      z.record(z.string().max(MAX_NAME_CHARS).regex(REF_PATTERN), NetNameInput).meta({ description: "pin role -> net name" }),
+      z
+        .record(z.string().max(MAX_NAME_CHARS).regex(REF_PATTERN), NetNameInput)
+        .meta({ description: "pin role -> net name" }),
     ],
     { error: "pins must be a list of net names or a map of pin role to net name" },
   )
@@ -70,7 +79,10 @@ export const PinsInput = z
 
 /** One part as written. */
 export const PartInput = z.strictObject({
-  ref: z.string().max(MAX_NAME_CHARS).regex(REF_PATTERN, { error: "a ref is a letter, then letters, digits or _" }),
+  ref: z
+    .string()
+    .max(MAX_NAME_CHARS)
+    .regex(REF_PATTERN, { error: "a ref is a letter, then letters, digits or _" }),
   kind: ShortText.min(1).meta({ description: "resistor, capacitor, diode, ... or any other word" }),
   value: ValueInput.nullable().optional(),
   tolerance: ValueInput.nullable().optional().meta({ description: "10%, or a letter F G J K M" }),
@@ -101,7 +113,9 @@ export const MeasurementInput = z.strictObject({
   part: ShortText.optional().meta({ description: "part.* only: the part's ref" }),
   supply: SupplyInput.optional(),
   instrument: ShortText.nullable().optional(),
-  uncertainty: ValueInput.nullable().optional().meta({ description: "relative (2%) or absolute (0.5m)" }),
+  uncertainty: ValueInput.nullable()
+    .optional()
+    .meta({ description: "relative (2%) or absolute (0.5m)" }),
 });
 
 /** One measured creepage/clearance between two nets. */
@@ -125,7 +139,10 @@ export const DeviceInput = z.strictObject({
 export const RecordInput = z
   .strictObject({
     record: z.literal(1, { error: "record must be 1 (this reader knows version 1 of the record)" }),
-    title: z.string().max(MAX_TITLE_CHARS).regex(/\S/, { error: "the title must not be empty or blank" }),
+    title: z
+      .string()
+      .max(MAX_TITLE_CHARS)
+      .regex(/\S/, { error: "the title must not be empty or blank" }),
     summary: LongText.nullable().optional(),
     device: DeviceInput.optional(),
     parts: z.array(PartInput),

@@ -37,12 +37,19 @@ function toPath(path: readonly PropertyKey[]): PathSegment[] {
   return path.map((seg) => (typeof seg === "number" ? seg : String(seg)));
 }
 
-function sizeMessage(issue: z.core.$ZodIssueTooSmall | z.core.$ZodIssueTooBig, small: boolean): string {
-  const bound = Number(small ? (issue as z.core.$ZodIssueTooSmall).minimum : (issue as z.core.$ZodIssueTooBig).maximum);
+function sizeMessage(
+  issue: z.core.$ZodIssueTooSmall | z.core.$ZodIssueTooBig,
+  small: boolean,
+): string {
+  const bound = Number(
+    small ? (issue as z.core.$ZodIssueTooSmall).minimum : (issue as z.core.$ZodIssueTooBig).maximum,
+  );
   const word = small ? "at least" : "at most";
   switch (issue.origin) {
     case "string":
-      return small && bound === 1 ? "must not be empty" : `must be ${word} ${bound} characters long`;
+      return small && bound === 1
+        ? "must not be empty"
+        : `must be ${word} ${bound} characters long`;
     case "array":
       return `must have ${word} ${bound} item${bound === 1 ? "" : "s"}`;
     default:
@@ -51,22 +58,35 @@ function sizeMessage(issue: z.core.$ZodIssueTooSmall | z.core.$ZodIssueTooBig, s
 }
 
 /** Reports zod issues (found under `base`) as errors and warnings. */
-export function reportSchemaIssues(issues: readonly z.core.$ZodIssue[], base: readonly PathSegment[], problems: ProblemList): void {
+export function reportSchemaIssues(
+  issues: readonly z.core.$ZodIssue[],
+  base: readonly PathSegment[],
+  problems: ProblemList,
+): void {
   for (const issue of issues) {
     const path = [...base, ...toPath(issue.path)];
     const input = (issue as { input?: unknown }).input;
     const field = path.length === 0 ? "the record" : String(path[path.length - 1]);
     switch (issue.code) {
       case "unrecognized_keys":
-        for (const key of issue.keys) problems.warn([...path, key], "unknown-field", `unknown field "${key}" is ignored`);
+        for (const key of issue.keys)
+          problems.warn([...path, key], "unknown-field", `unknown field "${key}" is ignored`);
         break;
       case "invalid_type":
         if (path.length === 0) {
-          problems.error(path, "not-a-record", "a record file holds a map of fields (record: 1, title, parts, ...)");
+          problems.error(
+            path,
+            "not-a-record",
+            "a record file holds a map of fields (record: 1, title, parts, ...)",
+          );
         } else if (input === undefined) {
           problems.error(path, "missing-field", `${field} is required`);
         } else {
-          problems.error(path, "wrong-type", `expected ${TYPE_WORDS[issue.expected] ?? issue.expected}, got ${describeInput(input)}`);
+          problems.error(
+            path,
+            "wrong-type",
+            `expected ${TYPE_WORDS[issue.expected] ?? issue.expected}, got ${describeInput(input)}`,
+          );
         }
         break;
       case "invalid_union": {
@@ -75,14 +95,22 @@ export function reportSchemaIssues(issues: readonly z.core.$ZodIssue[], base: re
           break;
         }
         // if exactly one alternative accepted the input's type, its own issues are the useful ones
-        const typed = issue.errors.filter((branch) => !branch.some((i) => i.code === "invalid_type" && i.path.length === 0));
+        const typed = issue.errors.filter(
+          (branch) => !branch.some((i) => i.code === "invalid_type" && i.path.length === 0),
+        );
         if (typed.length === 1) reportSchemaIssues(typed[0]!, path, problems);
         else problems.error(path, "wrong-type", `${issue.message}; got ${describeInput(input)}`);
         break;
       }
       case "invalid_value":
-        if (issue.values.length === 1 && typeof issue.values[0] === "number") problems.error(path, "not-allowed", issue.message);
-        else problems.error(path, "not-allowed", `${describeInput(input)} is not allowed; use one of: ${issue.values.map(String).join(", ")}`);
+        if (issue.values.length === 1 && typeof issue.values[0] === "number")
+          problems.error(path, "not-allowed", issue.message);
+        else
+          problems.error(
+            path,
+            "not-allowed",
+            `${describeInput(input)} is not allowed; use one of: ${issue.values.map(String).join(", ")}`,
+          );
         break;
       case "too_small":
         problems.error(path, "out-of-range", `${field} ${sizeMessage(issue, true)}`);
@@ -91,10 +119,20 @@ export function reportSchemaIssues(issues: readonly z.core.$ZodIssue[], base: re
         problems.error(path, "out-of-range", `${field} ${sizeMessage(issue, false)}`);
         break;
       case "invalid_format":
-        problems.error(path, "bad-format", issue.message.startsWith("Invalid") ? `${describeInput(input)} does not have the required form` : issue.message);
+        problems.error(
+          path,
+          "bad-format",
+          issue.message.startsWith("Invalid")
+            ? `${describeInput(input)} does not have the required form`
+            : issue.message,
+        );
         break;
       case "invalid_key":
-        problems.error(path, "bad-name", `${describeInput(input)} cannot be used as a name here (names are text without spaces)`);
+        problems.error(
+          path,
+          "bad-name",
+          `${describeInput(input)} cannot be used as a name here (names are text without spaces)`,
+        );
         break;
       case "not_multiple_of":
       case "invalid_element":

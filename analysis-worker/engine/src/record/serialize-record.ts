@@ -26,7 +26,12 @@ function pinsField(part: Part): string[] | Record<string, string> {
   const roles = pinRolesFor(part.kind, part.polarised);
   const keys = Object.keys(part.pins);
   // list form when it reads back to the same role map: the kind's roles, all of them, in order
-  if (roles !== null && roles.length > 1 && keys.length === roles.length && keys.every((k, i) => k === roles[i])) {
+  if (
+    roles !== null &&
+    roles.length > 1 &&
+    keys.length === roles.length &&
+    keys.every((k, i) => k === roles[i])
+  ) {
     return keys.map((k) => part.pins[k]!);
   }
   return { ...part.pins };
@@ -66,7 +71,10 @@ function measurementOut(m: Measurement, rated: Supply): Out {
   if (!sameSupply(m.supply, rated)) out.supply = { ...m.supply };
   if (m.instrument !== null) out.instrument = m.instrument;
   if (m.uncertainty !== null) {
-    out.uncertainty = "relative" in m.uncertainty ? (percentText(m.uncertainty.relative) ?? `${m.uncertainty.relative * 100}%`) : m.uncertainty.absolute;
+    out.uncertainty =
+      "relative" in m.uncertainty
+        ? (percentText(m.uncertainty.relative) ?? `${m.uncertainty.relative * 100}%`)
+        : m.uncertainty.absolute;
   }
   return out;
 }
@@ -98,8 +106,12 @@ export function recordToRaw(record: TeardownRecord): Out {
   out.device = device;
   out.parts = record.parts.map(partOut);
   if (Object.keys(nets).length > 0) out.nets = nets;
-  if (record.measurements.length > 0) out.measurements = record.measurements.map((m) => measurementOut(m, record.device.rated_supply));
-  if (record.board.spacings.length > 0) out.board = { spacings: record.board.spacings.map(spacingOut) };
+  if (record.measurements.length > 0)
+    out.measurements = record.measurements.map((m) =>
+      measurementOut(m, record.device.rated_supply),
+    );
+  if (record.board.spacings.length > 0)
+    out.board = { spacings: record.board.spacings.map(spacingOut) };
   return out;
 }
 

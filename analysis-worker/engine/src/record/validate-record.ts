@@ -4,14 +4,37 @@
  * `TeardownRecord` or every problem found out. Each section is checked on its own so that one
  * bad part does not hide the problems of the next.
  */
-import { MeasurementInput, NetInput, PartInput, RecordInput, SpacingInput, SupplyInput, NET_NAME_PATTERN, REF_PATTERN } from "./record-schema.js";
+import {
+  MeasurementInput,
+  NetInput,
+  PartInput,
+  RecordInput,
+  SpacingInput,
+  SupplyInput,
+  NET_NAME_PATTERN,
+  REF_PATTERN,
+} from "./record-schema.js";
 import { ProblemList, sortByPlace, type SourceLocator } from "./input-errors.js";
 import { reportSchemaIssues } from "./schema-issues.js";
 import { netNameText, normalisePart } from "./normalise-part.js";
-import { normaliseMeasurement, normaliseNet, normaliseSpacing, normaliseSupply, type KnownNames } from "./normalise-sections.js";
+import {
+  normaliseMeasurement,
+  normaliseNet,
+  normaliseSpacing,
+  normaliseSupply,
+  type KnownNames,
+} from "./normalise-sections.js";
 import type { z } from "zod";
 import type { RawMeasurement, RawPart } from "./record-schema.js";
-import type { Measurement, NetInfo, ParseResult, Part, Spacing, Supply, TeardownRecord } from "./types.js";
+import type {
+  Measurement,
+  NetInfo,
+  ParseResult,
+  Part,
+  Spacing,
+  Supply,
+  TeardownRecord,
+} from "./types.js";
 
 /** The supply assumed when a record states none (a warning says so). */
 export const DEFAULT_RATED_SUPPLY: Readonly<Supply> = { vrms: 230, hz: 50 };
@@ -37,23 +60,36 @@ function ratedSupply(raw: Loose, problems: ProblemList): Supply {
   const device = raw.device;
   const rawSupply = isMap(device) ? device.rated_supply : undefined;
   if (rawSupply === undefined) {
-    problems.warn(["device", "rated_supply"], "no-rated-supply", `no rated supply given; assuming ${DEFAULT_RATED_SUPPLY.vrms} V / ${DEFAULT_RATED_SUPPLY.hz} Hz`);
+    problems.warn(
+      ["device", "rated_supply"],
+      "no-rated-supply",
+      `no rated supply given; assuming ${DEFAULT_RATED_SUPPLY.vrms} V / ${DEFAULT_RATED_SUPPLY.hz} Hz`,
+    );
     return { ...DEFAULT_RATED_SUPPLY };
   }
   const parsed = SupplyInput.safeParse(rawSupply);
   if (!parsed.success) return { ...DEFAULT_RATED_SUPPLY };
-  return normaliseSupply(parsed.data, ["device", "rated_supply"], problems) ?? { ...DEFAULT_RATED_SUPPLY };
+  return (
+    normaliseSupply(parsed.data, ["device", "rated_supply"], problems) ?? {
+      ...DEFAULT_RATED_SUPPLY,
+    }
+  );
 }
 
 /**
  * The fields of a raw object that each pass their own schema, so that a part with a bad ref
  * still has its value and pins checked. Null when a field the checks need is unusable.
  */
-function salvage(rawItem: unknown, shape: Record<string, { safeParse(x: unknown): { success: boolean } }>, needed: readonly string[]): Loose | null {
+function salvage(
+  rawItem: unknown,
+  shape: Record<string, { safeParse(x: unknown): { success: boolean } }>,
+  needed: readonly string[],
+): Loose | null {
   if (!isMap(rawItem)) return null;
   const kept: Loose = {};
   for (const [key, schema] of Object.entries(shape)) {
-    if (rawItem[key] !== undefined && schema.safeParse(rawItem[key]).success) kept[key] = rawItem[key];
+    if (rawItem[key] !== undefined && schema.safeParse(rawItem[key]).success)
+      kept[key] = rawItem[key];
   }
   return needed.every((k) => kept[k] !== undefined) ? kept : null;
 }
@@ -66,7 +102,12 @@ function readParts(raw: Loose, problems: ProblemList): { parts: Part[]; refs: Se
     const ref = isMap(rawPart) ? rawPart.ref : undefined;
     if (typeof ref === "string" && REF_PATTERN.test(ref)) {
       const first = firstIndexOfRef.get(ref);
-      if (first !== undefined) problems.error(["parts", i, "ref"], "duplicate-ref", `ref "${ref}" is already used by parts[${first}]`);
+      if (first !== undefined)
+        problems.error(
+          ["parts", i, "ref"],
+          "duplicate-ref",
+          `ref "${ref}" is already used by parts[${first}]`,
+        );
       else firstIndexOfRef.set(ref, i);
     }
     const shaped = PartInput.safeParse(rawPart);
@@ -79,13 +120,20 @@ function readParts(raw: Loose, problems: ProblemList): { parts: Part[]; refs: Se
     const kept = salvage(rawPart, PartInput.shape, ["kind"]);
     if (kept === null) return;
     const checkPins = kept.pins !== undefined;
-    const stand_in = { ...kept, ref: typeof kept.ref === "string" ? kept.ref : "unnamed", pins: kept.pins ?? [] } as RawPart;
+    const stand_in = {
+      ...kept,
+      ref: typeof kept.ref === "string" ? kept.ref : "unnamed",
+      pins: kept.pins ?? [],
+    } as RawPart;
     normalisePart(stand_in, i, problems, { checkPins });
   });
   return { parts, refs: new Set(firstIndexOfRef.keys()) };
 }
 
-function readNets(raw: Loose, rawParts: unknown[]): { nets: Record<string, NetInfo>; names: Set<string> } {
+function readNets(
+  raw: Loose,
+  rawParts: unknown[],
+): { nets: Record<string, NetInfo>; names: Set<string> } {
   const nets: Record<string, NetInfo> = {};
   const names = new Set<string>();
   if (isMap(raw.nets)) {
@@ -105,7 +153,12 @@ function readNets(raw: Loose, rawParts: unknown[]): { nets: Record<string, NetIn
   return { nets, names };
 }
 
-function readMeasurements(raw: Loose, rated: Supply, known: KnownNames, problems: ProblemList): Measurement[] {
+function readMeasurements(
+  raw: Loose,
+  rated: Supply,
+  known: KnownNames,
+  problems: ProblemList,
+): Measurement[] {
   const out: Measurement[] = [];
   if (!Array.isArray(raw.measurements)) return out;
   raw.measurements.forEach((rawM, i) => {
@@ -144,21 +197,27 @@ function withoutUnknownFields(raw: unknown, issues: readonly z.core.$ZodIssue[])
   for (const issue of issues) {
     if (issue.code !== "unrecognized_keys") continue;
     let node: unknown = copy;
-    for (const seg of issue.path) node = isMap(node) || Array.isArray(node) ? (node as Loose)[seg as string] : undefined;
+    for (const seg of issue.path)
+      node = isMap(node) || Array.isArray(node) ? (node as Loose)[seg as string] : undefined;
     if (isMap(node)) for (const key of issue.keys) delete node[key];
   }
   return copy;
 }
 
 /** Validates a raw record object and normalises it; all problems are reported at once. */
-export function validateRawRecord(input: unknown, locator: SourceLocator, extra?: ProblemList): ParseResult {
+export function validateRawRecord(
+  input: unknown,
+  locator: SourceLocator,
+  extra?: ProblemList,
+): ParseResult {
   const problems = extra ?? new ProblemList(locator);
   let shape = RecordInput.safeParse(input, { reportInput: true });
   let raw = input;
   if (!shape.success) {
     reportSchemaIssues(shape.error.issues, [], problems);
     raw = withoutUnknownFields(input, shape.error.issues);
-    if (shape.error.issues.every((i) => i.code === "unrecognized_keys")) shape = RecordInput.safeParse(raw);
+    if (shape.error.issues.every((i) => i.code === "unrecognized_keys"))
+      shape = RecordInput.safeParse(raw);
   }
   if (!isMap(raw)) return { ok: false, errors: sortByPlace(problems.errors) };
 

@@ -4,14 +4,34 @@
  * node ranges and a LineCounter. JSON is first checked by JSON.parse, because the YAML reader
  * is more forgiving than JSON (it accepts a trailing comma, for one).
  */
-import { LineCounter, isAlias, isMap, isPair, isScalar, isSeq, parseDocument, visit, type Document, type Node } from "yaml";
+import {
+  LineCounter,
+  isAlias,
+  isMap,
+  isPair,
+  isScalar,
+  isSeq,
+  parseDocument,
+  visit,
+  type Document,
+  type Node,
+} from "yaml";
 import type { LineColumn, PathSegment, SourceLocator } from "./input-errors.js";
 
 /** Most aliases a document may expand (guards against "billion laughs" input). */
 export const MAX_YAML_ALIAS_EXPANSIONS = 100;
 
 /** Fields whose value is text even when YAML reads it as a number (`marking: 104`). */
-const TEXT_FIELDS = new Set(["title", "summary", "category", "marking", "note", "instrument", "class", "package"]);
+const TEXT_FIELDS = new Set([
+  "title",
+  "summary",
+  "category",
+  "marking",
+  "note",
+  "instrument",
+  "class",
+  "package",
+]);
 
 /** A syntax problem at a place in the text. */
 export interface SyntaxProblem extends LineColumn {
@@ -24,7 +44,10 @@ export type ReadTextResult =
   | { ok: true; raw: unknown; locator: SourceLocator; warnings: SyntaxProblem[] }
   | { ok: false; errors: SyntaxProblem[] };
 
-function nodeAt(doc: Document, path: readonly PathSegment[]): { node: Node | null; keyNode: Node | null; depth: number } {
+function nodeAt(
+  doc: Document,
+  path: readonly PathSegment[],
+): { node: Node | null; keyNode: Node | null; depth: number } {
   let node: Node | null = doc.contents as Node | null;
   let keyNode: Node | null = null;
   let depth = 0;
@@ -34,7 +57,9 @@ function nodeAt(doc: Document, path: readonly PathSegment[]): { node: Node | nul
     let next: Node | null = null;
     let nextKey: Node | null = null;
     if (isMap(node)) {
-      const pair = node.items.find((p) => isPair(p) && isScalar(p.key) && String(p.key.value) === String(seg));
+      const pair = node.items.find(
+        (p) => isPair(p) && isScalar(p.key) && String(p.key.value) === String(seg),
+      );
       if (pair !== undefined) {
         nextKey = pair.key as Node;
         next = (pair.value as Node | null) ?? null;
@@ -66,7 +91,13 @@ function makeLocator(doc: Document, lines: LineCounter): SourceLocator {
     },
     numberText(path) {
       const { node, depth } = nodeAt(doc, path);
-      if (depth !== path.length || node === null || !isScalar(node) || typeof node.value !== "number") return null;
+      if (
+        depth !== path.length ||
+        node === null ||
+        !isScalar(node) ||
+        typeof node.value !== "number"
+      )
+        return null;
       return typeof node.source === "string" ? node.source : null;
     },
   };
@@ -93,7 +124,11 @@ function restoreTextFields(doc: Document): void {
       if (!isScalar(pair.key) || !isScalar(pair.value)) return;
       const key = String(pair.key.value);
       const v = pair.value;
-      if (TEXT_FIELDS.has(key) && (typeof v.value === "number" || typeof v.value === "boolean") && typeof v.source === "string") {
+      if (
+        TEXT_FIELDS.has(key) &&
+        (typeof v.value === "number" || typeof v.value === "boolean") &&
+        typeof v.source === "string"
+      ) {
         v.value = v.source;
       }
     },
@@ -101,7 +136,8 @@ function restoreTextFields(doc: Document): void {
       const parent = path[path.length - 1];
       if (!isPair(parent) || !isScalar(parent.key) || parent.key.value !== "tags") return;
       for (const item of seq.items) {
-        if (isScalar(item) && typeof item.value === "number" && typeof item.source === "string") item.value = item.source;
+        if (isScalar(item) && typeof item.value === "number" && typeof item.source === "string")
+          item.value = item.source;
       }
     },
   });
@@ -120,10 +156,25 @@ export function readRecordText(text: string, format: "yaml" | "json"): ReadTextR
       const counter = new LineCounter();
       parseDocument(text, { lineCounter: counter, prettyErrors: false });
       const pos = offset === null ? null : counter.linePos(offset);
-      return { ok: false, errors: [{ code: "json-syntax", message: `not valid JSON: ${message}`, line: pos?.line ?? null, column: pos?.col ?? null }] };
+      return {
+        ok: false,
+        errors: [
+          {
+            code: "json-syntax",
+            message: `not valid JSON: ${message}`,
+            line: pos?.line ?? null,
+            column: pos?.col ?? null,
+          },
+        ],
+      };
     }
   }
-  const doc = parseDocument(text, { lineCounter: lines, prettyErrors: false, uniqueKeys: true, keepSourceTokens: false });
+  const doc = parseDocument(text, {
+    lineCounter: lines,
+    prettyErrors: false,
+    uniqueKeys: true,
+    keepSourceTokens: false,
+  });
   const place = (pos: [number, number] | undefined): LineColumn => {
     if (pos === undefined) return { line: null, column: null };
     const p = lines.linePos(pos[0]);
@@ -131,16 +182,28 @@ export function readRecordText(text: string, format: "yaml" | "json"): ReadTextR
   };
   const code = format === "json" ? "json-syntax" : "yaml-syntax";
   if (doc.errors.length > 0) {
-    return { ok: false, errors: doc.errors.map((e) => ({ code, message: syntaxMessage(e.message), ...place(e.pos) })) };
+    return {
+      ok: false,
+      errors: doc.errors.map((e) => ({ code, message: syntaxMessage(e.message), ...place(e.pos) })),
+    };
   }
-  const warnings = doc.warnings.map((w) => ({ code: "yaml-warning", message: w.message.split("\n")[0]!, ...place(w.pos) }));
+  const warnings = doc.warnings.map((w) => ({
+    code: "yaml-warning",
+    message: w.message.split("\n")[0]!,
+    ...place(w.pos),
+  }));
   restoreTextFields(doc);
   let raw: unknown;
   try {
     raw = doc.toJS({ maxAliasCount: MAX_YAML_ALIAS_EXPANSIONS });
   } catch (e) {
     const message = e instanceof Error ? e.message : String(e);
-    return { ok: false, errors: [{ code, message: `cannot expand the document: ${message}`, line: null, column: null }] };
+    return {
+      ok: false,
+      errors: [
+        { code, message: `cannot expand the document: ${message}`, line: null, column: null },
+      ],
+    };
   }
   return { ok: true, raw, locator: makeLocator(doc, lines), warnings };
 }

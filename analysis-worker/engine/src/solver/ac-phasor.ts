@@ -35,7 +35,12 @@ export interface AcSolution {
 }
 
 function phasor(re: number, im: number): Phasor {
-  return { re, im, rms: Math.hypot(re, im) / Math.SQRT2, phase_deg: (Math.atan2(im, re) * 180) / Math.PI };
+  return {
+    re,
+    im,
+    rms: Math.hypot(re, im) / Math.SQRT2,
+    phase_deg: (Math.atan2(im, re) * 180) / Math.PI,
+  };
 }
 
 const G_OPEN = 1 / OFF_STATE_OHMS;
@@ -124,7 +129,9 @@ export function solveAcCircuit(c: Circuit, lu: LuChoice = "sparse"): SolverOutco
   const status = solver.factor(vals);
   if (!status.ok) {
     const owner = c.unknownOwner[status.singularUnknown % n] ?? "an unknown";
-    return solverFailure("singular-matrix", `the phasor matrix is singular at ${owner}`, { nets: [owner] });
+    return solverFailure("singular-matrix", `the phasor matrix is singular at ${owner}`, {
+      nets: [owner],
+    });
   }
   const x = solver.solve(rhs);
   const v = (node: number): [number, number] => (node < 0 ? [0, 0] : [x[node]!, x[node + n]!]);
@@ -142,7 +149,13 @@ export function solveAcCircuit(c: Circuit, lu: LuChoice = "sparse"): SolverOutco
   return { ok: true, value: { supply: c.supply, input_current: input, nets, parts, linearised } };
 }
 
-function acCurrent(d: CircuitDevice, v: (n: number) => [number, number], x: Float64Array, n: number, w: number): [number, number] {
+function acCurrent(
+  d: CircuitDevice,
+  v: (n: number) => [number, number],
+  x: Float64Array,
+  n: number,
+  w: number,
+): [number, number] {
   const t = d.terminals;
   const across = (a: number, b: number): [number, number] => {
     const [ar, ai] = v(a);
@@ -180,7 +193,10 @@ function acCurrent(d: CircuitDevice, v: (n: number) => [number, number], x: Floa
 }
 
 /** The linear view of a record at a supply (the record's rated supply when none is given). */
-export function solveAcPhasor(rec: TeardownRecord, opts: { supply?: Supply } = {}): SolverOutcome<AcSolution> {
+export function solveAcPhasor(
+  rec: TeardownRecord,
+  opts: { supply?: Supply } = {},
+): SolverOutcome<AcSolution> {
   const compiled = compileCircuit(rec, opts.supply ?? rec.device.rated_supply);
   if (!compiled.ok) return compiled;
   return solveAcCircuit(compiled.value);

@@ -58,7 +58,13 @@ export interface CircuitAnalysis {
   input: CycleFigures["input"];
   parts: CycleFigures["parts"];
   nets: CycleFigures["nets"];
-  triggers: Array<{ part: string; fires: boolean; angle_deg: number | null; angle_negative_deg: number | null; min_supply_vrms: number | null }>;
+  triggers: Array<{
+    part: string;
+    fires: boolean;
+    angle_deg: number | null;
+    angle_negative_deg: number | null;
+    min_supply_vrms: number | null;
+  }>;
   waveforms: CycleFigures["waveforms"];
   linear: AcSolution;
   solver: {
@@ -75,7 +81,11 @@ export interface CircuitAnalysis {
 
 function budgetFrom(opts: SolveOptions): Budget {
   const now = opts.now ?? null;
-  return { now, deadlineMs: now ? now() + (opts.budgetMs ?? DEFAULT_BUDGET_MS) : Infinity, stepsLeft: MAX_STEPS_PER_ANALYSIS };
+  return {
+    now,
+    deadlineMs: now ? now() + (opts.budgetMs ?? DEFAULT_BUDGET_MS) : Infinity,
+    stepsLeft: MAX_STEPS_PER_ANALYSIS,
+  };
 }
 
 function steadyAt(
@@ -90,22 +100,37 @@ function steadyAt(
   const compiled = compileCircuit(rec, supply);
   if (!compiled.ok) return compiled;
   const circuit = compiled.value;
-  const solver = new TransientSolver(circuit, { lu: opts.lu ?? "sparse", maxNewtonIterations: opts.maxNewtonIterations ?? MAX_NEWTON_ITERATIONS });
+  const solver = new TransientSolver(circuit, {
+    lu: opts.lu ?? "sparse",
+    maxNewtonIterations: opts.maxNewtonIterations ?? MAX_NEWTON_ITERATIONS,
+  });
   const start = warm ? warm.mem.map((v) => v * warm.scale) : undefined;
-  if (start) for (const d of circuit.devices) if (d.type === "switching") start[d.mem] = warm!.mem[d.mem]!;
+  if (start)
+    for (const d of circuit.devices) if (d.type === "switching") start[d.mem] = warm!.mem[d.mem]!;
   const steady = periodicSteadyState(solver, budget, start, { toleranceScale, maxCycles });
   if (!steady.ok) return steady;
   return { ok: true as const, value: { circuit, steady: steady.value, steps: solver.totalSteps } };
 }
 
-function solveWith(rec: TeardownRecord, supply: Supply, opts: SolveOptions, budget: Budget): SolverOutcome<SolvedCircuit> {
+function solveWith(
+  rec: TeardownRecord,
+  supply: Supply,
+  opts: SolveOptions,
+  budget: Budget,
+): SolverOutcome<SolvedCircuit> {
   const r = steadyAt(rec, supply, opts, budget);
   if (!r.ok) return r;
-  return { ok: true, value: { ...r.value, figures: cycleFigures(r.value.circuit, r.value.steady) } };
+  return {
+    ok: true,
+    value: { ...r.value, figures: cycleFigures(r.value.circuit, r.value.steady) },
+  };
 }
 
 /** Periodic steady state of a record at a supply (the rated supply by default), with its figures. */
-export function solveCircuit(rec: TeardownRecord, opts: SolveOptions = {}): SolverOutcome<SolvedCircuit> {
+export function solveCircuit(
+  rec: TeardownRecord,
+  opts: SolveOptions = {},
+): SolverOutcome<SolvedCircuit> {
   return solveWith(rec, opts.supply ?? rec.device.rated_supply, opts, budgetFrom(opts));
 }
 
@@ -116,7 +141,10 @@ function coversHalves(f: FiringFigures | undefined, ref: FiringFigures): boolean
 }
 
 /** Full analysis: AC linear view, periodic steady state, figures, triggers with their lowest firing supply. */
-export function analyzeCircuit(rec: TeardownRecord, opts: SolveOptions = {}): SolverOutcome<CircuitAnalysis> {
+export function analyzeCircuit(
+  rec: TeardownRecord,
+  opts: SolveOptions = {},
+): SolverOutcome<CircuitAnalysis> {
   const supply = opts.supply ?? rec.device.rated_supply;
   const budget = budgetFrom(opts);
   const solved = solveWith(rec, supply, opts, budget);
@@ -133,17 +161,40 @@ export function analyzeCircuit(rec: TeardownRecord, opts: SolveOptions = {}): So
       // A bracket on the supply voltage, narrowed by bisection steered by the gate margin: the
       // answer fires in every half it fires in at the rated supply.
       const found = lowestFiringSupply(supply.vrms, MIN_SUPPLY_RESOLUTION_V, (v) => {
-        const r = steadyAt(rec, { vrms: v, hz: supply.hz }, opts, budget, { mem: steady.startMem, scale: v / supply.vrms }, MIN_SUPPLY_TOLERANCE_SCALE, MIN_SUPPLY_MAX_CYCLES);
+        const r = steadyAt(
+          rec,
+          { vrms: v, hz: supply.hz },
+          opts,
+          budget,
+          { mem: steady.startMem, scale: v / supply.vrms },
+          MIN_SUPPLY_TOLERANCE_SCALE,
+          MIN_SUPPLY_MAX_CYCLES,
+        );
         if (!r.ok) return r;
         steps += r.value.steps;
         cycles += r.value.steady.cycles;
-        const fires = coversHalves(firingFigures(r.value.circuit, r.value.steady).find((g) => g.part === f.part), f);
-        return { ok: true, value: { fires, margin: fires ? null : gateMargin(r.value.circuit, r.value.steady, f.part, f.halves) } };
+        const fires = coversHalves(
+          firingFigures(r.value.circuit, r.value.steady).find((g) => g.part === f.part),
+          f,
+        );
+        return {
+          ok: true,
+          value: {
+            fires,
+            margin: fires ? null : gateMargin(r.value.circuit, r.value.steady, f.part, f.halves),
+          },
+        };
       });
       if (!found.ok) return found;
       minSupply = found.value.vrms;
     }
-    triggers.push({ part: f.part, fires: f.fires, angle_deg: f.angle_deg, angle_negative_deg: f.angle_negative_deg, min_supply_vrms: minSupply });
+    triggers.push({
+      part: f.part,
+      fires: f.fires,
+      angle_deg: f.angle_deg,
+      angle_negative_deg: f.angle_negative_deg,
+      min_supply_vrms: minSupply,
+    });
   }
   return {
     ok: true,
@@ -160,7 +211,10 @@ export function analyzeCircuit(rec: TeardownRecord, opts: SolveOptions = {}): So
         method: steady.method,
         cycles,
         steps,
-        assumptions: [...circuit.assumptions, `gmin ${GMIN_SIEMENS} S from every net to ${circuit.reference}`],
+        assumptions: [
+          ...circuit.assumptions,
+          `gmin ${GMIN_SIEMENS} S from every net to ${circuit.reference}`,
+        ],
         notes: circuit.notes,
         kcl_residual_amps: figures.kclResidualAmps,
         periodic_residual: steady.residual,

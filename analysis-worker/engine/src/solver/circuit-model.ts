@@ -88,13 +88,18 @@ export function compileCircuit(rec: TeardownRecord, supply: Supply): SolverOutco
   const assumptions: string[] = [];
   const notes: string[] = [];
   const netNames = Object.keys(rec.nets).sort();
-  for (const p of rec.parts) for (const n of Object.values(p.pins)) if (!netNames.includes(n)) netNames.push(n);
+  for (const p of rec.parts)
+    for (const n of Object.values(p.pins)) if (!netNames.includes(n)) netNames.push(n);
   netNames.sort();
   const line = netNames.find((n) => rec.nets[n]?.role === "line");
-  if (line === undefined) return solverFailure("no-supply", "no net has the role line, so there is no supply to solve");
+  if (line === undefined)
+    return solverFailure("no-supply", "no net has the role line, so there is no supply to solve");
   const reference =
-    netNames.find((n) => rec.nets[n]?.role === "neutral") ?? netNames.find((n) => n !== line) ?? line;
-  if (reference === line) return solverFailure("no-supply", "the line net is the only net", { nets: [line] });
+    netNames.find((n) => rec.nets[n]?.role === "neutral") ??
+    netNames.find((n) => n !== line) ??
+    line;
+  if (reference === line)
+    return solverFailure("no-supply", "the line net is the only net", { nets: [line] });
 
   const nodeNames: string[] = [];
   const nodeOf = new Map<string, number>([[reference, GROUND]]);
@@ -113,7 +118,12 @@ export function compileCircuit(rec: TeardownRecord, supply: Supply): SolverOutco
   let memSize = 0;
   const innerNodes: Array<{ name: string }> = [];
   const usedNets = new Set<string>([line, reference]);
-  const add = (type: CircuitDevice["type"], windings: number, make: (mem: number, b: number) => CircuitDevice, branches: number) => {
+  const add = (
+    type: CircuitDevice["type"],
+    windings: number,
+    make: (mem: number, b: number) => CircuitDevice,
+    branches: number,
+  ) => {
     const mem = memSize;
     memSize += memFor(type, windings);
     const b0 = branchCount;
@@ -121,10 +131,21 @@ export function compileCircuit(rec: TeardownRecord, supply: Supply): SolverOutco
     pending.push({ build: (base) => make(mem, base + b0) });
   };
 
-  add("supply", 0, (mem, b) => ({
-    type: "supply", ref: SUPPLY_REF, terminals: [node(line), GROUND], nets: [line, reference], mem,
-    branch: b, vpk: supply.vrms * Math.SQRT2, hz: supply.hz,
-  }), 1);
+  add(
+    "supply",
+    0,
+    (mem, b) => ({
+      type: "supply",
+      ref: SUPPLY_REF,
+      terminals: [node(line), GROUND],
+      nets: [line, reference],
+      mem,
+      branch: b,
+      vpk: supply.vrms * Math.SQRT2,
+      hz: supply.hz,
+    }),
+    1,
+  );
 
   for (const p of rec.parts) {
     const info = kindInfo(p.kind);
@@ -136,7 +157,10 @@ export function compileCircuit(rec: TeardownRecord, supply: Supply): SolverOutco
       notes.push(`${p.ref}: ${p.kind} is documentation only (left out)`);
       continue;
     }
-    const pinNets = p.kind === "capacitor" && p.polarised ? [p.pins.plus, p.pins.minus] : info.pins.map((r) => p.pins[r]);
+    const pinNets =
+      p.kind === "capacitor" && p.polarised
+        ? [p.pins.plus, p.pins.minus]
+        : info.pins.map((r) => p.pins[r]);
     if (pinNets.some((n) => n === undefined)) {
       notes.push(`${p.ref}: a pin is not connected (left out)`);
       continue;
@@ -145,8 +169,10 @@ export function compileCircuit(rec: TeardownRecord, supply: Supply): SolverOutco
     for (const n of nets) node(n);
     const t = nets.map((n) => nodeOf.get(n)!);
     const base = { ref: p.ref, terminals: t, nets };
-    const two = (g: number) => add("conductance", 0, (mem) => ({ ...base, mem, type: "conductance", g }), 0);
-    const short = () => add("short", 0, (mem, b) => ({ ...base, mem, type: "short", branch: b }), 1);
+    const two = (g: number) =>
+      add("conductance", 0, (mem) => ({ ...base, mem, type: "conductance", g }), 0);
+    const short = () =>
+      add("short", 0, (mem, b) => ({ ...base, mem, type: "short", branch: b }), 1);
     const resistance = (r: number) => (r > 0 ? two(1 / r) : short());
     const junction = (m: { j: JunctionParams; rs: number }) => {
       let inner = t[0]!;
@@ -167,7 +193,8 @@ export function compileCircuit(rec: TeardownRecord, supply: Supply): SolverOutco
         break;
       case "fuse": {
         const r = p.model.r ?? FUSE_DEFAULT_OHMS;
-        if (p.model.r === undefined) assumptions.push(`${p.ref}: cold resistance ${FUSE_DEFAULT_OHMS} Ω`);
+        if (p.model.r === undefined)
+          assumptions.push(`${p.ref}: cold resistance ${FUSE_DEFAULT_OHMS} Ω`);
         resistance(r);
         break;
       }
@@ -180,22 +207,45 @@ export function compileCircuit(rec: TeardownRecord, supply: Supply): SolverOutco
         break;
       case "load":
         if (p.model.r !== undefined) resistance(p.model.r);
-        else if (p.model.c !== undefined) add("capacitor", 0, (mem) => ({ ...base, mem, type: "capacitor", c: p.model.c! }), 0);
+        else if (p.model.c !== undefined)
+          add("capacitor", 0, (mem) => ({ ...base, mem, type: "capacitor", c: p.model.c! }), 0);
         else notes.push(`${p.ref}: load without model.r or model.c (left out)`);
         break;
       case "inductor":
         if (p.value === null) notes.push(`${p.ref}: no value (left out)`);
         else
-          add("coupled", 1, (mem, b) => ({
-            ...base, mem, type: "coupled", branches: [b], r: [p.model.r ?? 0], l: [[p.value!]],
-          }), 1);
+          add(
+            "coupled",
+            1,
+            (mem, b) => ({
+              ...base,
+              mem,
+              type: "coupled",
+              branches: [b],
+              r: [p.model.r ?? 0],
+              l: [[p.value!]],
+            }),
+            1,
+          );
         break;
       case "transformer": {
         const m = transformerModel(p, assumptions);
-        add("coupled", 2, (mem, b) => ({
-          ...base, mem, type: "coupled", branches: [b, b + 1], r: [m.rp, m.rs],
-          l: [[m.lp, m.m], [m.m, m.ls]],
-        }), 2);
+        add(
+          "coupled",
+          2,
+          (mem, b) => ({
+            ...base,
+            mem,
+            type: "coupled",
+            branches: [b, b + 1],
+            r: [m.rp, m.rs],
+            l: [
+              [m.lp, m.m],
+              [m.m, m.ls],
+            ],
+          }),
+          2,
+        );
         break;
       }
       case "diode":
@@ -222,9 +272,20 @@ export function compileCircuit(rec: TeardownRecord, supply: Supply): SolverOutco
         // Record order is mt1, mt2, gate; the model wants mt2 (main+), gate, mt1 (reference).
         const sp = switchingModel(p, true, assumptions);
         const order = [1, 2, 0];
-        add("switching", 0, (mem) => ({
-          ...base, terminals: order.map((i) => t[i]!), nets: order.map((i) => nets[i]!), mem, type: "switching", triac: true, p: sp,
-        }), 0);
+        add(
+          "switching",
+          0,
+          (mem) => ({
+            ...base,
+            terminals: order.map((i) => t[i]!),
+            nets: order.map((i) => nets[i]!),
+            mem,
+            type: "switching",
+            triac: true,
+            p: sp,
+          }),
+          0,
+        );
         break;
       }
       default:
@@ -234,7 +295,8 @@ export function compileCircuit(rec: TeardownRecord, supply: Supply): SolverOutco
   }
   const nodeCount = nodeNames.length;
   const devices = pending.map((d) => d.build(nodeCount));
-  for (const n of netNames) if (!usedNets.has(n)) notes.push(`net ${n}: touches no simulated part (left out)`);
+  for (const n of netNames)
+    if (!usedNets.has(n)) notes.push(`net ${n}: touches no simulated part (left out)`);
 
   const structural = checkStructure(devices, line, reference);
   if (structural !== null) return structural;
@@ -246,14 +308,27 @@ export function compileCircuit(rec: TeardownRecord, supply: Supply): SolverOutco
   return {
     ok: true,
     value: {
-      reference, line, nodeNames, nodeCount, size: nodeCount + branchCount, unknownOwner, devices, memSize,
-      supply, assumptions, notes,
+      reference,
+      line,
+      nodeNames,
+      nodeCount,
+      size: nodeCount + branchCount,
+      unknownOwner,
+      devices,
+      memSize,
+      supply,
+      assumptions,
+      notes,
     },
   };
 }
 
 /** Floating groups of nets (no path of any part to the reference) and loops of voltage sources. */
-function checkStructure(devices: CircuitDevice[], line: string, reference: string): { ok: false; error: import("./solver-error.js").SolverError } | null {
+function checkStructure(
+  devices: CircuitDevice[],
+  line: string,
+  reference: string,
+): { ok: false; error: import("./solver-error.js").SolverError } | null {
   const parent = new Map<string, string>();
   const find = (a: string): string => {
     let r = a;
@@ -281,10 +356,14 @@ function checkStructure(devices: CircuitDevice[], line: string, reference: strin
       const [a, b] = [d.nets[0]!, d.nets[1]!];
       if (sFind(a) === sFind(b)) {
         const path = sourcePath(sourceAdj, a, b);
-        return solverFailure("voltage-source-loop", `a loop of voltage sources (supply and ideal links): ${[...path, d.ref].join(", ")}`, {
-          parts: [...path, d.ref],
-          nets: [a, b],
-        });
+        return solverFailure(
+          "voltage-source-loop",
+          `a loop of voltage sources (supply and ideal links): ${[...path, d.ref].join(", ")}`,
+          {
+            parts: [...path, d.ref],
+            nets: [a, b],
+          },
+        );
       }
       sourceParent.set(sFind(a), sFind(b));
       sourceAdj.set(a, [...(sourceAdj.get(a) ?? []), { to: b, ref: d.ref }]);
@@ -294,15 +373,23 @@ function checkStructure(devices: CircuitDevice[], line: string, reference: strin
   const groundRoot = find(reference);
   const floating = [...parent.keys()].filter((n) => find(n) !== groundRoot).sort();
   if (floating.length > 0) {
-    return solverFailure("floating-net", `no part connects ${floating.join(", ")} to the supply's reference ${reference} (line ${line})`, {
-      nets: floating,
-    });
+    return solverFailure(
+      "floating-net",
+      `no part connects ${floating.join(", ")} to the supply's reference ${reference} (line ${line})`,
+      {
+        nets: floating,
+      },
+    );
   }
   return null;
 }
 
 /** Refs of the source edges on the path from a to b in the source forest. */
-function sourcePath(adj: Map<string, Array<{ to: string; ref: string }>>, a: string, b: string): string[] {
+function sourcePath(
+  adj: Map<string, Array<{ to: string; ref: string }>>,
+  a: string,
+  b: string,
+): string[] {
   const prev = new Map<string, { from: string; ref: string }>();
   const queue = [a];
   const seen = new Set([a]);
@@ -317,6 +404,7 @@ function sourcePath(adj: Map<string, Array<{ to: string; ref: string }>>, a: str
     }
   }
   const refs: string[] = [];
-  for (let cur = b; cur !== a && prev.has(cur); cur = prev.get(cur)!.from) refs.push(prev.get(cur)!.ref);
+  for (let cur = b; cur !== a && prev.has(cur); cur = prev.get(cur)!.from)
+    refs.push(prev.get(cur)!.ref);
   return refs.reverse();
 }

@@ -40,7 +40,13 @@ export interface SwitchingParams {
 }
 
 /** Reads a model value or a default, noting the default as an assumption. */
-function param(p: Part, key: string, fallback: number, unit: string, assumptions: string[]): number {
+function param(
+  p: Part,
+  key: string,
+  fallback: number,
+  unit: string,
+  assumptions: string[],
+): number {
   const v = p.model[key];
   if (v !== undefined && Number.isFinite(v)) return v;
   assumptions.push(`${p.ref}: ${key} = ${fallback} ${unit} (not in the record)`);
@@ -57,7 +63,10 @@ export function diodeModel(p: Part, assumptions: string[]): { j: JunctionParams;
     j: {
       is,
       vt: n * THERMAL_VOLTAGE_V,
-      breakdown: bv !== undefined && bv > 0 ? { bv, ib: BREAKDOWN_KNEE_CURRENT_A, vtb: THERMAL_VOLTAGE_V } : null,
+      breakdown:
+        bv !== undefined && bv > 0
+          ? { bv, ib: BREAKDOWN_KNEE_CURRENT_A, vtb: THERMAL_VOLTAGE_V }
+          : null,
     },
     rs,
   };
@@ -69,7 +78,11 @@ export function zenerModel(p: Part, assumptions: string[]): { j: JunctionParams;
   if (p.value === null) assumptions.push(`${p.ref}: Vz = 5.1 V (no value in the record)`);
   const rz = param(p, "rz", 5, "Ω", assumptions);
   return {
-    j: { is: 1e-12, vt: THERMAL_VOLTAGE_V, breakdown: { bv: vz, ib: ZENER_TEST_CURRENT_A, vtb: THERMAL_VOLTAGE_V } },
+    j: {
+      is: 1e-12,
+      vt: THERMAL_VOLTAGE_V,
+      breakdown: { bv: vz, ib: ZENER_TEST_CURRENT_A, vtb: THERMAL_VOLTAGE_V },
+    },
     rs: rz,
   };
 }
@@ -86,9 +99,13 @@ export function ledModel(p: Part, assumptions: string[]): { j: JunctionParams; r
 }
 
 /** Varistor power law I = 1 mA (V/Vc)^alpha, symmetric. */
-export function varistorModel(p: Part, assumptions: string[]): { vc: number; alpha: number; i0: number } {
+export function varistorModel(
+  p: Part,
+  assumptions: string[],
+): { vc: number; alpha: number; i0: number } {
   const vc = p.value ?? 470;
-  if (p.value === null) assumptions.push(`${p.ref}: clamping voltage 470 V at 1 mA (no value in the record)`);
+  if (p.value === null)
+    assumptions.push(`${p.ref}: clamping voltage 470 V at 1 mA (no value in the record)`);
   const alpha = param(p, "alpha", 30, "", assumptions);
   return { vc, alpha, i0: VARISTOR_REFERENCE_CURRENT_A };
 }
@@ -101,7 +118,11 @@ export function switchingModel(p: Part, triac: boolean, assumptions: string[]): 
   const von = param(p, "von", triac ? 1.2 : 1.0, "V", assumptions);
   const ron = p.model.ron ?? 0.1;
   // The gate junction (n = 1) is fitted so it passes exactly igt at vgt.
-  const gate: JunctionParams = { is: igt / Math.expm1(vgt / THERMAL_VOLTAGE_V), vt: THERMAL_VOLTAGE_V, breakdown: null };
+  const gate: JunctionParams = {
+    is: igt / Math.expm1(vgt / THERMAL_VOLTAGE_V),
+    vt: THERMAL_VOLTAGE_V,
+    breakdown: null,
+  };
   return { vgt, igt, ih, von, ron, gate };
 }
 

@@ -28,8 +28,16 @@ export interface FiringTrial {
  * the half-cycles it must fire in, of (peak off-state gate drive / igt − 1). A thyristor's
  * gate only counts while its anode is positive, as in the latch rule.
  */
-export function gateMargin(c: Circuit, steady: SteadyState, ref: string, halves: FiringFigures["halves"]): number | null {
-  const d = c.devices.find((q): q is Extract<CircuitDevice, { type: "switching" }> => q.type === "switching" && q.ref === ref);
+export function gateMargin(
+  c: Circuit,
+  steady: SteadyState,
+  ref: string,
+  halves: FiringFigures["halves"],
+): number | null {
+  const d = c.devices.find(
+    (q): q is Extract<CircuitDevice, { type: "switching" }> =>
+      q.type === "switching" && q.ref === ref,
+  );
   if (d === undefined) return null;
   const period = 1 / c.supply.hz;
   let posPeak = -Infinity;
@@ -50,7 +58,13 @@ export function gateMargin(c: Circuit, steady: SteadyState, ref: string, halves:
 }
 
 /** The next trial supply inside (lo, hi): the secant's estimate, nudged to close the bracket, or the midpoint. */
-function nextTrial(lo: number, hi: number, misses: Array<{ v: number; m: number }>, resolution: number, secantUseful: boolean): number {
+function nextTrial(
+  lo: number,
+  hi: number,
+  misses: Array<{ v: number; m: number }>,
+  resolution: number,
+  secantUseful: boolean,
+): number {
   const mid = 0.5 * (lo + hi);
   if (!secantUseful || misses.length === 0) return mid;
   const [a, b] = misses.length >= 2 ? misses.slice(-2) : [{ v: 0, m: -1 }, misses[0]!];

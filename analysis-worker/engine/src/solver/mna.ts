@@ -61,7 +61,14 @@ export class MnaPattern {
    * True when A x - b is small in every row below `rows`, against the sizes of the row's own
    * terms (a round-off-aware test: a nearly floating node can move without changing any current).
    */
-  residualSmall(vals: Float64Array, x: Float64Array, rhs: Float64Array, rows: number, rel: number, absAmps: number): boolean {
+  residualSmall(
+    vals: Float64Array,
+    x: Float64Array,
+    rhs: Float64Array,
+    rows: number,
+    rel: number,
+    absAmps: number,
+  ): boolean {
     if (this.res.length < rows) {
       this.res = new Float64Array(rows);
       this.mag = new Float64Array(rows);
@@ -91,18 +98,32 @@ export class MnaPattern {
   solver(choice: LuChoice): LinearSolver {
     const rows = Int32Array.from(this.r);
     const cols = Int32Array.from(this.c);
-    return choice === "dense" ? new DenseLu(this.size, rows, cols) : new SparseLu(this.size, rows, cols);
+    return choice === "dense"
+      ? new DenseLu(this.size, rows, cols)
+      : new SparseLu(this.size, rows, cols);
   }
 }
 
 /** Adds v at (row, col) unless either is ground. */
-export function addAt(p: MnaPattern, vals: Float64Array, row: number, col: number, v: number): void {
+export function addAt(
+  p: MnaPattern,
+  vals: Float64Array,
+  row: number,
+  col: number,
+  v: number,
+): void {
   if (row < 0 || col < 0) return;
   vals[p.slot(row, col)]! += v;
 }
 
 /** Stamps a conductance g between nodes a and b. */
-export function addConductance(p: MnaPattern, vals: Float64Array, a: number, b: number, g: number): void {
+export function addConductance(
+  p: MnaPattern,
+  vals: Float64Array,
+  a: number,
+  b: number,
+  g: number,
+): void {
   addAt(p, vals, a, a, g);
   addAt(p, vals, b, b, g);
   addAt(p, vals, a, b, -g);
@@ -146,7 +167,10 @@ function reserveDevice(p: MnaPattern, d: CircuitDevice): void {
       break;
     case "supply":
     case "short":
-      for (const [n, b] of [[t[0]!, d.branch], [t[1]!, d.branch]] as const) {
+      for (const [n, b] of [
+        [t[0]!, d.branch],
+        [t[1]!, d.branch],
+      ] as const) {
         p.reserve(n, b);
         p.reserve(b, n);
       }

@@ -66,7 +66,8 @@ function layout(devices: CircuitDevice[]): Slot[] {
   const slots: Slot[] = [];
   for (const d of devices) {
     if (d.type === "capacitor") slots.push({ index: d.mem, kind: "volt" });
-    if (d.type === "coupled") d.branches.forEach((_, w) => slots.push({ index: d.mem + 2 * w, kind: "amp" }));
+    if (d.type === "coupled")
+      d.branches.forEach((_, w) => slots.push({ index: d.mem + 2 * w, kind: "amp" }));
     if (d.type === "switching") slots.push({ index: d.mem, kind: "latch" });
   }
   return slots;
@@ -81,7 +82,12 @@ export function periodicSteadyState(
   solver: TransientSolver,
   budget: Budget,
   initialMem?: Float64Array,
-  opts: { shooting?: boolean; maxCycles?: number; toleranceScale?: number; periodHint?: number } = {},
+  opts: {
+    shooting?: boolean;
+    maxCycles?: number;
+    toleranceScale?: number;
+    periodHint?: number;
+  } = {},
 ): { ok: true; value: SteadyState } | { ok: false; error: SolverError } {
   const c = solver.circuit;
   const vpk = c.supply.vrms * Math.SQRT2;
@@ -101,7 +107,9 @@ export function periodicSteadyState(
         if (d > 0.5) return Infinity;
         continue;
       }
-      const tol = PSS_RELTOL * Math.max(Math.abs(a[s.index]!), Math.abs(b[s.index]!)) + (s.kind === "volt" ? PSS_VOLT_ABSTOL_PER_VPK * vpk : PSS_AMP_ABSTOL_A);
+      const tol =
+        PSS_RELTOL * Math.max(Math.abs(a[s.index]!), Math.abs(b[s.index]!)) +
+        (s.kind === "volt" ? PSS_VOLT_ABSTOL_PER_VPK * vpk : PSS_AMP_ABSTOL_A);
       worst = Math.max(worst, d / (tol * scale));
     }
     return worst;
@@ -111,18 +119,20 @@ export function periodicSteadyState(
     return solver.runCycle(start, x, record, budget);
   };
   // k consecutive cycles as one map (the repeat of a subharmonic orbit), x carried along.
-  const cyclesOf = (k: number): CycleFn => (start, record) => {
-    const parts: CycleRun[] = [];
-    let m = start;
-    for (let j = 0; j < k; j++) {
-      const r = cycle(m, record);
-      if (!r.ok) return r;
-      parts.push(r.run);
-      x = r.run.endX;
-      m = r.run.endMem;
-    }
-    return { ok: true, run: joinCycles(parts, 1 / c.supply.hz) };
-  };
+  const cyclesOf =
+    (k: number): CycleFn =>
+    (start, record) => {
+      const parts: CycleRun[] = [];
+      let m = start;
+      for (let j = 0; j < k; j++) {
+        const r = cycle(m, record);
+        if (!r.ok) return r;
+        parts.push(r.run);
+        x = r.run.endX;
+        m = r.run.endMem;
+      }
+      return { ok: true, run: joinCycles(parts, 1 / c.supply.hz) };
+    };
 
   // states[j] is the cycle-start state after j cycles of the present plain run.
   let states: Float64Array[] = [mem];
@@ -151,7 +161,8 @@ export function periodicSteadyState(
     }
     if (d <= 1) break;
     // A repeat after k > 1 cycles, at tolerance: a subharmonic orbit.
-    const back = (k: number) => (states.length > k ? change(states[states.length - 1 - k]!, mem) : Infinity);
+    const back = (k: number) =>
+      states.length > k ? change(states[states.length - 1 - k]!, mem) : Infinity;
     let repeat = 0;
     for (let k = 2; k <= PSS_MAX_SUBHARMONIC && repeat === 0; k++) if (back(k) <= 1) repeat = k;
     if (repeat > 0) {
@@ -171,12 +182,20 @@ export function periodicSteadyState(
       }
       break;
     }
-    if (cycles >= PSS_WARMUP_CYCLES && cont.length > 0 && Number.isFinite(d) && opts.shooting !== false) {
+    if (
+      cycles >= PSS_WARMUP_CYCLES &&
+      cont.length > 0 &&
+      Number.isFinite(d) &&
+      opts.shooting !== false
+    ) {
       let likely = hint > 1 && !tried.has(hint) ? hint : 1;
-      for (let k = 2; k <= PSS_MAX_SUBHARMONIC && likely === 1; k++) if (states.length > k + 1 && back(k) < SUBHARMONIC_EVIDENCE_RATIO * d) likely = k;
+      for (let k = 2; k <= PSS_MAX_SUBHARMONIC && likely === 1; k++)
+        if (states.length > k + 1 && back(k) < SUBHARMONIC_EVIDENCE_RATIO * d) likely = k;
       // Cycles that differ in their switching events point to a subharmonic orbit still taking
       // shape: a one-cycle shot would fail, so wait until the repeat shows.
-      const eventsVary = recent.length >= 2 && recent.some((r) => r.events.length !== recent[recent.length - 1]!.events.length);
+      const eventsVary =
+        recent.length >= 2 &&
+        recent.some((r) => r.events.length !== recent[recent.length - 1]!.events.length);
       if (likely === 1 && eventsVary && cycles < PSS_SUBHARMONIC_WAIT_CYCLES) continue;
       const prev = history[history.length - 2]!;
       const rho = Number.isFinite(prev) && prev > 0 ? d / prev : 1;
@@ -217,10 +236,23 @@ export function periodicSteadyState(
       break;
     }
   }
-  return { ok: true, value: { method, cycles, run, startMem: mem, residual: change(mem, run.endMem), periodCycles: period } };
+  return {
+    ok: true,
+    value: {
+      method,
+      cycles,
+      run,
+      startMem: mem,
+      residual: change(mem, run.endMem),
+      periodCycles: period,
+    },
+  };
 }
 
-type CycleFn = (start: Float64Array, record: boolean) => { ok: true; run: CycleRun } | { ok: false; error: SolverError };
+type CycleFn = (
+  start: Float64Array,
+  record: boolean,
+) => { ok: true; run: CycleRun } | { ok: false; error: SolverError };
 
 /** Newton on F(s) = Phi(s) - s over the continuous states; null mem when it does not succeed. */
 function shoot(
@@ -251,7 +283,9 @@ function shoot(
   // Finite-difference Jacobian of F, once; Broyden rank-one updates afterwards.
   const jac = new Float64Array(m * m);
   for (let k = 0; k < m; k++) {
-    const delta = SHOOTING_FD_RELATIVE * Math.max(Math.abs(s[k]!), cont[k]!.kind === "volt" ? 0.01 * vpk : 1e-3);
+    const delta =
+      SHOOTING_FD_RELATIVE *
+      Math.max(Math.abs(s[k]!), cont[k]!.kind === "volt" ? 0.01 * vpk : 1e-3);
     const sp = s.slice();
     sp[k]! += delta;
     const fp = evalF(sp);
@@ -315,12 +349,20 @@ function joinCycles(parts: CycleRun[], period: number): CycleRun {
   const events: CycleRun["events"] = [];
   let steps = 0;
   parts.forEach((p, j) => {
-    for (const s of p.samples) samples.push(j === 0 ? s : { t: s.t + j * period, x: s.x, mem: s.mem });
+    for (const s of p.samples)
+      samples.push(j === 0 ? s : { t: s.t + j * period, x: s.x, mem: s.mem });
     for (const e of p.events) events.push({ ...e, t: e.t + j * period });
     steps += p.steps;
   });
   const last = parts[parts.length - 1]!;
-  return { endMem: last.endMem, endX: last.endX, samples, events, steps, cycleEnds: parts.map((p) => p.endMem) };
+  return {
+    endMem: last.endMem,
+    endX: last.endX,
+    samples,
+    events,
+    steps,
+    cycleEnds: parts.map((p) => p.endMem),
+  };
 }
 
 /** The end state of each cycle of a joined run. */
@@ -334,6 +376,11 @@ function firstCycles(run: CycleRun, p: number, period: number, endMem: Float64Ar
   const samples = run.samples.filter((s) => s.t <= tEnd);
   const last = samples[samples.length - 1]!;
   return {
-    endMem, endX: last.x, samples, events: run.events.filter((e) => e.t <= tEnd), steps: samples.length, cycleEnds: run.cycleEnds?.slice(0, p),
+    endMem,
+    endX: last.x,
+    samples,
+    events: run.events.filter((e) => e.t <= tEnd),
+    steps: samples.length,
+    cycleEnds: run.cycleEnds?.slice(0, p),
   };
 }

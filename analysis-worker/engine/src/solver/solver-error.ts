@@ -37,5 +37,8 @@ export function solverFailure(
   message: string,
   where: Partial<SolverWhere> = {},
 ): { ok: false; error: SolverError } {
-  return { ok: false, error: { code, message, where: { nets: [], parts: [], time_s: null, ...where } } };
+  return {
+    ok: false,
+    error: { code, message, where: { nets: [], parts: [], time_s: null, ...where } },
+  };
 }

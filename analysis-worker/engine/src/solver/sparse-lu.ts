@@ -89,7 +89,11 @@ function markowitzOrder(
     }
     if (best < 0) {
       let lowest = -1;
-      for (let c = 0; c < n; c++) if (!colDone[c]) { lowest = c; break; }
+      for (let c = 0; c < n; c++)
+        if (!colDone[c]) {
+          lowest = c;
+          break;
+        }
       return { singularUnknown: lowest };
     }
     rowOf[k] = best;
@@ -174,7 +178,8 @@ export class SparseLu implements LinearSolver {
       posOfCol[order.colOf[k]!] = k;
     }
     const pattern: Array<Set<number>> = Array.from({ length: n }, (_, i) => new Set([i]));
-    for (let s = 0; s < this.rows.length; s++) pattern[posOfRow[this.rows[s]!]!]!.add(posOfCol[this.cols[s]!]!);
+    for (let s = 0; s < this.rows.length; s++)
+      pattern[posOfRow[this.rows[s]!]!]!.add(posOfCol[this.cols[s]!]!);
     // Symbolic row elimination: row i takes the U pattern of every row k < i it has an entry in.
     const upper: number[][] = [];
     for (let i = 0; i < n; i++) {
@@ -268,7 +273,9 @@ export class SparseLu implements LinearSolver {
       }
       const d = Math.abs(lu[diagAt[i]!]!);
       const scale = Math.max(uMax, rowMax);
-      const floor = strict ? Math.min(PIVOT_REUSE_MIN_RATIO, PIVOT_REUSE_DECAY * this.refRatio[i]!) * scale : SINGULAR_PIVOT_ABS;
+      const floor = strict
+        ? Math.min(PIVOT_REUSE_MIN_RATIO, PIVOT_REUSE_DECAY * this.refRatio[i]!) * scale
+        : SINGULAR_PIVOT_ABS;
       if (!(d > floor) || !Number.isFinite(d)) return i;
       if (!strict) this.refRatio[i] = scale > 0 ? d / scale : 1;
     }

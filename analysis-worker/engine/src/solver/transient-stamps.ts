@@ -111,7 +111,11 @@ export function gateEval(triac: boolean, j: JunctionParams, v: number): { i: num
 }
 
 /** Main path of a thyristor or triac: off is a high resistance, on is von in series with ron. */
-export function mainEval(d: Extract<CircuitDevice, { type: "switching" }>, on: boolean, v: number): { i: number; g: number } {
+export function mainEval(
+  d: Extract<CircuitDevice, { type: "switching" }>,
+  on: boolean,
+  v: number,
+): { i: number; g: number } {
   let i = G_OFF * v;
   let g = G_OFF;
   if (on) {
@@ -128,7 +132,10 @@ export function mainEval(d: Extract<CircuitDevice, { type: "switching" }>, on: b
 }
 
 /** Varistor power law I = i0 sign(V) (|V|/vc)^alpha. */
-export function varistorEval(d: Extract<CircuitDevice, { type: "varistor" }>, v: number): { i: number; g: number } {
+export function varistorEval(
+  d: Extract<CircuitDevice, { type: "varistor" }>,
+  v: number,
+): { i: number; g: number } {
   const u = Math.abs(v) / d.vc;
   const pow = Math.pow(u, d.alpha - 1);
   return { i: Math.sign(v) * d.i0 * pow * u, g: (d.alpha * d.i0 * pow) / d.vc };
@@ -213,7 +220,13 @@ export function isNonlinear(d: CircuitDevice): boolean {
  * The matrix entries that depend only on the step (h, trap): every linear device, and the series
  * resistance of a junction. Stamped once per step size and copied into each Newton iteration.
  */
-export function stampLinearMatrix(d: CircuitDevice, sl: Int32Array, vals: Float64Array, h: number, trap: boolean): void {
+export function stampLinearMatrix(
+  d: CircuitDevice,
+  sl: Int32Array,
+  vals: Float64Array,
+  h: number,
+  trap: boolean,
+): void {
   switch (d.type) {
     case "conductance":
       blockAdd(vals, sl, 0, d.g);
@@ -259,7 +272,14 @@ export function stampLinearMatrix(d: CircuitDevice, sl: Int32Array, vals: Float6
 }
 
 /** The right-hand side of a linear device at a step: the supply at time t, the companion histories. */
-export function stampLinearRhs(d: CircuitDevice, rhs: Float64Array, mem: Float64Array, h: number, trap: boolean, t: number): void {
+export function stampLinearRhs(
+  d: CircuitDevice,
+  rhs: Float64Array,
+  mem: Float64Array,
+  h: number,
+  trap: boolean,
+  t: number,
+): void {
   switch (d.type) {
     case "supply":
       rhs[d.branch] = d.vpk * Math.sin(2 * Math.PI * d.hz * t);
@@ -400,7 +420,8 @@ export function terminalCurrents(d: CircuitDevice, x: Float64Array, mem: Float64
     case "coupled":
       return d.branches.flatMap((b) => [x[b]!, -x[b]!]);
     case "junction": {
-      const i = d.inner !== t[0] ? (v(0) - nodeV(x, d.inner)) / d.rs : junctionEval(d.j, v(0) - v(1)).i;
+      const i =
+        d.inner !== t[0] ? (v(0) - nodeV(x, d.inner)) / d.rs : junctionEval(d.j, v(0) - v(1)).i;
       return [i, -i];
     }
     case "varistor": {

@@ -11,7 +11,15 @@ import type { LinearSolver } from "./sparse-lu.js";
 import type { SolverError } from "./solver-error.js";
 import { solverFailure } from "./solver-error.js";
 import type { StampContext } from "./transient-stamps.js";
-import { commitDevice, deviceSlots, isNonlinear, latchEvent, stampLinearMatrix, stampLinearRhs, stampNonlinear } from "./transient-stamps.js";
+import {
+  commitDevice,
+  deviceSlots,
+  isNonlinear,
+  latchEvent,
+  stampLinearMatrix,
+  stampLinearRhs,
+  stampNonlinear,
+} from "./transient-stamps.js";
 
 /** Newton iterations per step before the step is cut. */
 export const MAX_NEWTON_ITERATIONS = 60;
@@ -120,11 +128,14 @@ export class TransientSolver {
     this.slots = circuit.devices.map((d) => deviceSlots(this.pattern, d));
     this.nonlinearSlots = this.nonlinear.map((d) => this.slots[circuit.devices.indexOf(d)]!);
     this.baseVals = new Float64Array(this.pattern.count);
-    this.switching = circuit.devices.filter((d): d is Extract<CircuitDevice, { type: "switching" }> => d.type === "switching");
+    this.switching = circuit.devices.filter(
+      (d): d is Extract<CircuitDevice, { type: "switching" }> => d.type === "switching",
+    );
     this.storage = [];
     for (const d of circuit.devices) {
       if (d.type === "capacitor") this.storage.push({ index: d.mem, isVolt: true });
-      if (d.type === "coupled") d.branches.forEach((_, w) => this.storage.push({ index: d.mem + 2 * w, isVolt: false }));
+      if (d.type === "coupled")
+        d.branches.forEach((_, w) => this.storage.push({ index: d.mem + 2 * w, isVolt: false }));
     }
   }
 
@@ -135,7 +146,8 @@ export class TransientSolver {
     b.fill(0);
     for (const s of this.diagSlots) b[s]! += GMIN_SIEMENS;
     const devices = this.circuit.devices;
-    for (let k = 0; k < devices.length; k++) stampLinearMatrix(devices[k]!, this.slots[k]!, b, h, trap);
+    for (let k = 0; k < devices.length; k++)
+      stampLinearMatrix(devices[k]!, this.slots[k]!, b, h, trap);
     this.baseH = h;
     this.baseTrap = trap;
     return b;
@@ -150,7 +162,17 @@ export class TransientSolver {
     let x = new Float64Array(n);
     x.set(xGuess);
     let next = new Float64Array(n);
-    const ctx: StampContext = { p: this.pattern, vals: this.vals, rhs: this.rhs, x, mem, work, h, trap, t };
+    const ctx: StampContext = {
+      p: this.pattern,
+      vals: this.vals,
+      rhs: this.rhs,
+      x,
+      mem,
+      work,
+      h,
+      trap,
+      t,
+    };
     const base = this.baseFor(h, trap);
     // The right-hand side of the linear devices is the same for every Newton iteration.
     const rhsBase = this.rhsBase;
@@ -164,8 +186,20 @@ export class TransientSolver {
       this.rhs.set(rhsBase);
       ctx.x = x;
       let limited = false;
-      for (let k = 0; k < nonlinear.length; k++) if (stampNonlinear(nonlinear[k]!, this.nonlinearSlots[k]!, ctx)) limited = true;
-      if (it > 0 && !limited && this.pattern.residualSmall(this.vals, x, this.rhs, c.nodeCount, NEWTON_RESIDUAL_RELTOL, NEWTON_RESIDUAL_ABSTOL_A)) {
+      for (let k = 0; k < nonlinear.length; k++)
+        if (stampNonlinear(nonlinear[k]!, this.nonlinearSlots[k]!, ctx)) limited = true;
+      if (
+        it > 0 &&
+        !limited &&
+        this.pattern.residualSmall(
+          this.vals,
+          x,
+          this.rhs,
+          c.nodeCount,
+          NEWTON_RESIDUAL_RELTOL,
+          NEWTON_RESIDUAL_ABSTOL_A,
+        )
+      ) {
         for (const d of c.devices) commitDevice(d, ctx);
         return { ok: true, x, work };
       }
@@ -212,7 +246,11 @@ export class TransientSolver {
     return best;
   }
 
-  private lteRatio(hist: Array<{ t: number; s: Float64Array }>, trap: boolean, vpk: number): number {
+  private lteRatio(
+    hist: Array<{ t: number; s: Float64Array }>,
+    trap: boolean,
+    vpk: number,
+  ): number {
     // Divided differences of the storage states over the last points estimate x'' (or x''').
     const need = trap ? 4 : 3;
     if (hist.length < need) return 0;
@@ -227,10 +265,13 @@ export class TransientSolver {
         mag = Math.max(mag, Math.abs(dd[q]!));
       }
       for (let order = 1; order < need; order++) {
-        for (let q = 0; q + order < need; q++) dd[q] = (dd[q + 1]! - dd[q]!) / (hist[base + q + order]!.t - hist[base + q]!.t);
+        for (let q = 0; q + order < need; q++)
+          dd[q] = (dd[q + 1]! - dd[q]!) / (hist[base + q + order]!.t - hist[base + q]!.t);
       }
       const lte = trap ? (h ** 3 / 12) * 6 * Math.abs(dd[0]!) : (h ** 2 / 2) * 2 * Math.abs(dd[0]!);
-      const tol = LTE_RELTOL * mag + (this.storage[k]!.isVolt ? LTE_VOLT_ABSTOL_PER_VPK * vpk : LTE_AMP_ABSTOL_A);
+      const tol =
+        LTE_RELTOL * mag +
+        (this.storage[k]!.isVolt ? LTE_VOLT_ABSTOL_PER_VPK * vpk : LTE_AMP_ABSTOL_A);
       worst = Math.max(worst, lte / tol);
     }
     return worst;
@@ -241,7 +282,12 @@ export class TransientSolver {
   }
 
   /** Simulates one supply cycle [0, T] from a start memory; records samples when asked. */
-  runCycle(startMem: Float64Array, xGuess: Float64Array, record: boolean, budget: Budget): { ok: true; run: CycleRun } | { ok: false; error: SolverError } {
+  runCycle(
+    startMem: Float64Array,
+    xGuess: Float64Array,
+    record: boolean,
+    budget: Budget,
+  ): { ok: true; run: CycleRun } | { ok: false; error: SolverError } {
     const c = this.circuit;
     const period = 1 / c.supply.hz;
     const vpk = c.supply.vrms * Math.SQRT2;
@@ -261,11 +307,17 @@ export class TransientSolver {
     let steps = 0;
     const dwell = (LATCH_MIN_DWELL_DEG / 360) * period;
     const lastFlip = new Map<string, number>();
-    const mayFlip = (d: { ref: string }, at: number) => at - (lastFlip.get(d.ref) ?? -Infinity) >= dwell;
+    const mayFlip = (d: { ref: string }, at: number) =>
+      at - (lastFlip.get(d.ref) ?? -Infinity) >= dwell;
     while (t < period * (1 - 1e-12)) {
-      if (budget.stepsLeft-- <= 0) return solverFailure("step-limit", "the step limit of the analysis was reached", { time_s: t });
+      if (budget.stepsLeft-- <= 0)
+        return solverFailure("step-limit", "the step limit of the analysis was reached", {
+          time_s: t,
+        });
       if (budget.now && budget.now() > budget.deadlineMs)
-        return solverFailure("time-budget", "the analysis ran out of its time budget", { time_s: t });
+        return solverFailure("time-budget", "the analysis ran out of its time budget", {
+          time_s: t,
+        });
       const nextBreak = breaks.find((b) => b > t * (1 + 1e-12) + 1e-15) ?? period;
       const hTry = Math.min(h, hMax, nextBreak - t);
       const trap = !damped;
@@ -274,15 +326,22 @@ export class TransientSolver {
         if (out.kind === "singular") {
           const owner = c.unknownOwner[out.unknown] ?? `unknown ${out.unknown}`;
           return solverFailure("singular-matrix", `the circuit matrix is singular at ${owner}`, {
-            nets: c.nodeNames.includes(owner) ? [owner] : [], parts: c.nodeNames.includes(owner) ? [] : [owner], time_s: t,
+            nets: c.nodeNames.includes(owner) ? [owner] : [],
+            parts: c.nodeNames.includes(owner) ? [] : [owner],
+            time_s: t,
           });
         }
         h = hTry / 4;
         damped = true;
         if (h < hMin) {
-          return solverFailure("no-convergence", `Newton-Raphson did not converge at ${out.part ?? "a part"} at t = ${t.toExponential(4)} s`, {
-            parts: out.part ? [out.part] : [], time_s: t,
-          });
+          return solverFailure(
+            "no-convergence",
+            `Newton-Raphson did not converge at ${out.part ?? "a part"} at t = ${t.toExponential(4)} s`,
+            {
+              parts: out.part ? [out.part] : [],
+              time_s: t,
+            },
+          );
         }
         continue;
       }
@@ -295,7 +354,9 @@ export class TransientSolver {
       // Switching events in this step: locate the earliest crossing by bisection on the step.
       let accepted = out;
       let hAcc = hTry;
-      let flips = this.switching.filter((d) => latchEvent(d, out.x, mem).flip && mayFlip(d, t + hTry));
+      let flips = this.switching.filter(
+        (d) => latchEvent(d, out.x, mem).flip && mayFlip(d, t + hTry),
+      );
       if (flips.length > 0) {
         const startValues = this.switching.map((d) => latchEvent(d, x, mem).value);
         const crossesInside = flips.some((d) => startValues[this.switching.indexOf(d)]! < 0);

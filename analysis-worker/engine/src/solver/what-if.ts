@@ -19,7 +19,10 @@ const RESISTOR_RELATIVE_PRECISION = 1e-4;
 const NO_FIRING_ANGLE_DEG = 180;
 
 function withValue(rec: TeardownRecord, ref: string, value: number): TeardownRecord {
-  return { ...rec, parts: rec.parts.map((p) => (p.ref === ref ? { ...p, value, value_text: String(value) } : p)) };
+  return {
+    ...rec,
+    parts: rec.parts.map((p) => (p.ref === ref ? { ...p, value, value_text: String(value) } : p)),
+  };
 }
 
 /** One point of a sweep. */
@@ -29,9 +32,21 @@ export interface SweepPoint {
 }
 
 /** Analyses the record once per value of part `ref` (its main value replaced). */
-export function sweepPartValue(rec: TeardownRecord, ref: string, values: number[], opts: SolveOptions = {}): SolverOutcome<SweepPoint[]> {
-  if (!rec.parts.some((p) => p.ref === ref)) return solverFailure("unknown-part", `no part ${ref} in the record`, { parts: [ref] });
-  return { ok: true, value: values.map((value) => ({ value, result: analyzeCircuit(withValue(rec, ref, value), opts) })) };
+export function sweepPartValue(
+  rec: TeardownRecord,
+  ref: string,
+  values: number[],
+  opts: SolveOptions = {},
+): SolverOutcome<SweepPoint[]> {
+  if (!rec.parts.some((p) => p.ref === ref))
+    return solverFailure("unknown-part", `no part ${ref} in the record`, { parts: [ref] });
+  return {
+    ok: true,
+    value: values.map((value) => ({
+      value,
+      result: analyzeCircuit(withValue(rec, ref, value), opts),
+    })),
+  };
 }
 
 /** What to look for: which thyristor/triac, which resistor to change, the wanted angle, the supply and the series. */
@@ -53,12 +68,24 @@ export interface TriggerSuggestion {
 }
 
 /** Nearest E12/E24 value of `resistor` making `thyristor` fire at the wanted angle (positive half-cycle). */
-export function suggestTriggerResistor(rec: TeardownRecord, req: TriggerRequest, opts: SolveOptions = {}): SolverOutcome<TriggerSuggestion> {
+export function suggestTriggerResistor(
+  rec: TeardownRecord,
+  req: TriggerRequest,
+  opts: SolveOptions = {},
+): SolverOutcome<TriggerSuggestion> {
   const r0 = rec.parts.find((p) => p.ref === req.resistor);
   if (!r0 || r0.kind !== "resistor" || r0.value === null || !(r0.value > 0))
-    return solverFailure("unknown-part", `${req.resistor} is not a resistor with a value`, { parts: [req.resistor] });
-  if (!rec.parts.some((p) => p.ref === req.thyristor && (p.kind === "thyristor" || p.kind === "triac")))
-    return solverFailure("unknown-part", `${req.thyristor} is not a thyristor or triac`, { parts: [req.thyristor] });
+    return solverFailure("unknown-part", `${req.resistor} is not a resistor with a value`, {
+      parts: [req.resistor],
+    });
+  if (
+    !rec.parts.some(
+      (p) => p.ref === req.thyristor && (p.kind === "thyristor" || p.kind === "triac"),
+    )
+  )
+    return solverFailure("unknown-part", `${req.thyristor} is not a thyristor or triac`, {
+      parts: [req.thyristor],
+    });
   const run = { ...opts, supply: req.supply ?? opts.supply ?? rec.device.rated_supply };
   const angleAt = (r: number): SolverOutcome<number> => {
     const s = solveCircuit(withValue(rec, req.resistor, r), run);
@@ -88,7 +115,12 @@ export function suggestTriggerResistor(rec: TeardownRecord, req: TriggerRequest,
       }
     }
   }
-  if (!found) return solverFailure("no-convergence", `no value of ${req.resistor} gives a firing angle of ${req.wantedAngleDeg}°`, { parts: [req.resistor, req.thyristor] });
+  if (!found)
+    return solverFailure(
+      "no-convergence",
+      `no value of ${req.resistor} gives a firing angle of ${req.wantedAngleDeg}°`,
+      { parts: [req.resistor, req.thyristor] },
+    );
   let a = Math.min(lo, hi);
   let b = Math.max(lo, hi);
   const ga = g(a);

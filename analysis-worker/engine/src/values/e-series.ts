@@ -17,8 +17,8 @@ export const REPORTED_E_SERIES: readonly ESeriesName[] = ["E6", "E12", "E24", "E
 export const SERIES_MATCH_RELATIVE_TOLERANCE = 1e-9;
 
 const E24_MANTISSAS = [
-  1.0, 1.1, 1.2, 1.3, 1.5, 1.6, 1.8, 2.0, 2.2, 2.4, 2.7, 3.0, 3.3, 3.6, 3.9, 4.3, 4.7, 5.1, 5.6, 6.2, 6.8, 7.5, 8.2,
-  9.1,
+  1.0, 1.1, 1.2, 1.3, 1.5, 1.6, 1.8, 2.0, 2.2, 2.4, 2.7, 3.0, 3.3, 3.6, 3.9, 4.3, 4.7, 5.1, 5.6,
+  6.2, 6.8, 7.5, 8.2, 9.1,
 ];
 
 /** Every `step`-th entry of a list, starting with the first. */

@@ -9,7 +9,17 @@ import type { ValueNotation } from "./notation-tables.js";
 export const DEFAULT_DISPLAY_SIGNIFICANT_DIGITS = 4;
 
 /** Engineering prefixes by power of a thousand, from 10^-12 to 10^12 (ASCII `u` for micro). */
-const RECORD_PREFIXES: Readonly<Record<number, string>> = { [-12]: "p", [-9]: "n", [-6]: "u", [-3]: "m", 0: "", 3: "k", 6: "M", 9: "G", 12: "T" };
+const RECORD_PREFIXES: Readonly<Record<number, string>> = {
+  [-12]: "p",
+  [-9]: "n",
+  [-6]: "u",
+  [-3]: "m",
+  0: "",
+  3: "k",
+  6: "M",
+  9: "G",
+  12: "T",
+};
 /** The deck reads `M` as milli, so mega is `meg` there. */
 const DECK_PREFIXES: Readonly<Record<number, string>> = { ...RECORD_PREFIXES, 6: "meg" };
 
@@ -29,7 +39,11 @@ function plainDigits(x: number, digits: number): string {
 }
 
 /** Engineering notation with an optional unit: formatValue(3.3e-7, "F") gives `330nF`. */
-export function formatValue(value: number, unit: string | null = null, digits = DEFAULT_DISPLAY_SIGNIFICANT_DIGITS): string {
+export function formatValue(
+  value: number,
+  unit: string | null = null,
+  digits = DEFAULT_DISPLAY_SIGNIFICANT_DIGITS,
+): string {
   const suffix = unit === null || unit === "1" ? "" : unit;
   if (!Number.isFinite(value)) return `${value}${suffix}`;
   let exp = engineeringExponent(value);

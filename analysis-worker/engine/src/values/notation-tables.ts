@@ -16,8 +16,8 @@ export const RECORD_PREFIX_EXPONENTS: Readonly<Record<string, number>> = {
   p: -12,
   n: -9,
   u: -6,
-  "µ": -6,
-  "μ": -6,
+  µ: -6,
+  μ: -6,
   m: -3,
   R: 0,
   k: 3,
@@ -50,7 +50,7 @@ export const DECK_PREFIX_EXPONENTS: ReadonlyArray<readonly [string, number]> = [
 
 /** Spellings accepted for each canonical unit symbol. */
 export const UNIT_SPELLINGS: Readonly<Record<string, readonly string[]>> = {
-  "Ω": ["Ω", "\u2126", "ohm", "ohms", "Ohm", "Ohms"],
+  Ω: ["Ω", "\u2126", "ohm", "ohms", "Ohm", "Ohms"],
   F: ["F"],
   H: ["H"],
   V: ["V"],
@@ -64,7 +64,8 @@ export const UNIT_SPELLINGS: Readonly<Record<string, readonly string[]>> = {
 export function canonicalUnit(spelling: string, notation: ValueNotation): string | null {
   for (const [unit, spellings] of Object.entries(UNIT_SPELLINGS)) {
     for (const s of spellings) {
-      if (notation === "deck" ? s.toLowerCase() === spelling.toLowerCase() : s === spelling) return unit;
+      if (notation === "deck" ? s.toLowerCase() === spelling.toLowerCase() : s === spelling)
+        return unit;
     }
   }
   return null;
@@ -72,7 +73,7 @@ export function canonicalUnit(spelling: string, notation: ValueNotation): string
 
 /** Readable names for unit symbols, used in error messages. */
 export const UNIT_NAMES: Readonly<Record<string, string>> = {
-  "Ω": "ohms (Ω)",
+  Ω: "ohms (Ω)",
   F: "farads (F)",
   H: "henries (H)",
   V: "volts (V)",

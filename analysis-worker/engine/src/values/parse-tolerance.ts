@@ -17,10 +17,12 @@ export const TOLERANCE_LETTER_FRACTIONS: Readonly<Record<string, number>> = {
 };
 
 /** A relative tolerance as a fraction, or why it could not be read. */
-export type ToleranceResult = { ok: true; value: number } | { ok: false; code: "bad-tolerance"; message: string };
+export type ToleranceResult =
+  { ok: true; value: number } | { ok: false; code: "bad-tolerance"; message: string };
 
 /** A measurement uncertainty, or why it could not be read. */
-export type UncertaintyResult = { ok: true; value: Uncertainty } | { ok: false; code: "bad-uncertainty"; message: string };
+export type UncertaintyResult =
+  { ok: true; value: Uncertainty } | { ok: false; code: "bad-uncertainty"; message: string };
 
 const PERCENT_PATTERN = /^([+-]?\d*\.?\d+(?:[eE][+-]?\d+)?)\s*%$/;
 const TOLERANCE_HINT = "write a percentage such as 5%, or a tolerance letter F, G, J, K or M";
@@ -43,11 +45,22 @@ export function parseTolerance(input: string | number): ToleranceResult {
     else fraction = percentFraction(text) ?? (/^\d*\.?\d+$/.test(text) ? Number(text) : null);
   }
   if (fraction === null || !Number.isFinite(fraction)) {
-    return { ok: false, code: "bad-tolerance", message: `cannot read tolerance ${JSON.stringify(input)}; ${TOLERANCE_HINT}` };
+    return {
+      ok: false,
+      code: "bad-tolerance",
+      message: `cannot read tolerance ${JSON.stringify(input)}; ${TOLERANCE_HINT}`,
+    };
   }
   if (fraction < 0 || fraction >= 1) {
-    const hint = typeof input === "number" && input >= 1 ? ` (a plain number is a fraction; for ${input} percent write ${input}%)` : "";
-    return { ok: false, code: "bad-tolerance", message: `a tolerance must be at least 0 and below 100%${hint}` };
+    const hint =
+      typeof input === "number" && input >= 1
+        ? ` (a plain number is a fraction; for ${input} percent write ${input}%)`
+        : "";
+    return {
+      ok: false,
+      code: "bad-tolerance",
+      message: `a tolerance must be at least 0 and below 100%${hint}`,
+    };
   }
   return { ok: true, value: fraction };
 }
@@ -62,14 +75,24 @@ export function parseUncertainty(
     const fraction = percentFraction(input);
     if (fraction !== null) {
       if (!Number.isFinite(fraction) || fraction < 0) {
-        return { ok: false, code: "bad-uncertainty", message: "a relative uncertainty must be a percentage of at least 0" };
+        return {
+          ok: false,
+          code: "bad-uncertainty",
+          message: "a relative uncertainty must be a percentage of at least 0",
+        };
       }
       return { ok: true, value: { relative: fraction } };
     }
   }
   const read = parseValue(input, { unit, notation });
-  if (!read.ok) return { ok: false, code: "bad-uncertainty", message: `cannot read uncertainty: ${read.message}` };
-  if (read.value < 0) return { ok: false, code: "bad-uncertainty", message: "an uncertainty must be at least 0" };
+  if (!read.ok)
+    return {
+      ok: false,
+      code: "bad-uncertainty",
+      message: `cannot read uncertainty: ${read.message}`,
+    };
+  if (read.value < 0)
+    return { ok: false, code: "bad-uncertainty", message: "an uncertainty must be at least 0" };
   return { ok: true, value: { absolute: read.value } };
 }
 

@@ -50,8 +50,12 @@ function prefixAt(rest: string, notation: ValueNotation, unit: ExpectedUnit): Pr
     return null;
   }
   const first = rest.charAt(0);
-  const table = unit === "Ω" ? { ...RECORD_PREFIX_EXPONENTS, ...RESISTANCE_ONLY_PREFIX_EXPONENTS } : RECORD_PREFIX_EXPONENTS;
-  if (Object.prototype.hasOwnProperty.call(table, first)) return { letters: first, exponent: table[first]! };
+  const table =
+    unit === "Ω"
+      ? { ...RECORD_PREFIX_EXPONENTS, ...RESISTANCE_ONLY_PREFIX_EXPONENTS }
+      : RECORD_PREFIX_EXPONENTS;
+  if (Object.prototype.hasOwnProperty.call(table, first))
+    return { letters: first, exponent: table[first]! };
   return null;
 }
 
@@ -66,30 +70,49 @@ function fail(code: ValueErrorCode, message: string): ValueResult {
 }
 
 /** The trailing unit spelling checked against the expected unit. */
-function checkUnit(text: string, unitText: string, opts: Required<ParseValueOptions>): ValueResult | string | null {
+function checkUnit(
+  text: string,
+  unitText: string,
+  opts: Required<ParseValueOptions>,
+): ValueResult | string | null {
   const trimmed = unitText.trim();
   if (trimmed === "") return null;
   const unit = canonicalUnit(trimmed, opts.notation);
   if (unit === null) {
     // "meg" is the deck's mega; in a record M already is mega
-    const megHint = opts.notation === "record" && /^eg/i.test(trimmed) ? " (in a record, M is mega: write 1M, not 1meg)" : "";
-    return fail("bad-notation", `cannot read "${text}": unknown text "${trimmed}"${megHint}; ${formsHint(opts.unit)}`);
+    const megHint =
+      opts.notation === "record" && /^eg/i.test(trimmed)
+        ? " (in a record, M is mega: write 1M, not 1meg)"
+        : "";
+    return fail(
+      "bad-notation",
+      `cannot read "${text}": unknown text "${trimmed}"${megHint}; ${formsHint(opts.unit)}`,
+    );
   }
   if (opts.unit === "any" || opts.unit === unit) return unit;
   const expected = UNIT_NAMES[opts.unit] ?? opts.unit;
-  return fail("wrong-unit", `"${text}" is in ${UNIT_NAMES[unit] ?? unit}, but this field is in ${expected}`);
+  return fail(
+    "wrong-unit",
+    `"${text}" is in ${UNIT_NAMES[unit] ?? unit}, but this field is in ${expected}`,
+  );
 }
 
 /** Reads a value string or number into SI units (see the file comment for the notation). */
 export function parseValue(input: string | number, options: ParseValueOptions = {}): ValueResult {
-  const opts: Required<ParseValueOptions> = { unit: options.unit ?? "any", notation: options.notation ?? "record" };
+  const opts: Required<ParseValueOptions> = {
+    unit: options.unit ?? "any",
+    notation: options.notation ?? "record",
+  };
   if (typeof input === "number") {
-    return Number.isFinite(input) ? { ok: true, value: input, unit: null } : fail("not-finite", `${input} is not a finite number`);
+    return Number.isFinite(input)
+      ? { ok: true, value: input, unit: null }
+      : fail("not-finite", `${input} is not a finite number`);
   }
   if (typeof input !== "string") return fail("bad-notation", "a value must be text or a number");
   const text = input.trim();
   if (text === "") return fail("empty-value", "the value is empty");
-  if (text.length > MAX_VALUE_TEXT_CHARS) return fail("bad-notation", `a value is at most ${MAX_VALUE_TEXT_CHARS} characters`);
+  if (text.length > MAX_VALUE_TEXT_CHARS)
+    return fail("bad-notation", `a value is at most ${MAX_VALUE_TEXT_CHARS} characters`);
 
   // sign, integer digits, optional fraction, optional exponent
   const head = /^([+-]?)(\d*)(?:\.(\d*))?(?:[eE]([+-]?\d+))?/.exec(text)!;
@@ -111,7 +134,10 @@ export function parseValue(input: string | number, options: ParseValueOptions = 
     if (code !== null) {
       // IEC 60062: the letter stands for the decimal point, so no other point or exponent
       if (hasPoint || hasExponent || spaced !== rest) {
-        return fail("bad-notation", `cannot read "${text}": a decimal-point letter cannot follow a decimal point or exponent`);
+        return fail(
+          "bad-notation",
+          `cannot read "${text}": a decimal-point letter cannot follow a decimal point or exponent`,
+        );
       }
       mantissaFrac = code[0];
       rest = afterPrefix.slice(code[0].length);
@@ -130,7 +156,9 @@ export function parseValue(input: string | number, options: ParseValueOptions = 
   if (unitCheck !== null && typeof unitCheck !== "string") return unitCheck;
 
   // Build a decimal string and let Number() round once, so "4n7" equals the literal 4.7e-9.
-  const value = Number(`${sign}${intDigits === "" ? "0" : intDigits}.${mantissaFrac === "" ? "0" : mantissaFrac}e${exponent}`);
+  const value = Number(
+    `${sign}${intDigits === "" ? "0" : intDigits}.${mantissaFrac === "" ? "0" : mantissaFrac}e${exponent}`,
+  );
   if (!Number.isFinite(value)) return fail("not-finite", `"${text}" is too large to be a value`);
   return { ok: true, value, unit: unitCheck };
 }

@@ -12,10 +12,19 @@ export async function GET(): Promise<NextResponse> {
   try {
     const ms = await Promise.race([
       databaseRoundTripMs(),
-      new Promise<never>((_, reject) => setTimeout(() => reject(new Error(`no answer within ${HEALTH_TIMEOUT_MS} ms`)), HEALTH_TIMEOUT_MS)),
+      new Promise<never>((_, reject) =>
+        setTimeout(
+          () => reject(new Error(`no answer within ${HEALTH_TIMEOUT_MS} ms`)),
+          HEALTH_TIMEOUT_MS,
+        ),
+      ),
     ]);
     const queue = await queueHealth();
-    return NextResponse.json({ status: "ok", database: { roundTripMs: Number(ms.toFixed(2)) }, queue });
+    return NextResponse.json({
+      status: "ok",
+      database: { roundTripMs: Number(ms.toFixed(2)) },
+      queue,
+    });
   } catch (err) {
     const reason = err instanceof Error ? err.message : String(err);
     return NextResponse.json({ status: "unavailable", reason }, { status: 503 });
