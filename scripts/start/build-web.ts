@@ -20,6 +20,8 @@ import path from "node:path";
 /** Folders whose source goes into the web build. */
 const BUILD_INPUTS = ["web", "db", "analysis-worker/engine/src", "package-lock.json"];
 const SKIPPED = new Set(["node_modules", ".next", ".data"]);
+/** Files the build itself writes into the inputs' folders; hashing them would make every start rebuild. */
+const WRITTEN_BY_BUILD = [/^next-env\.d\.ts$/, /\.tsbuildinfo$/];
 
 function hashTree(root: string, rel: string, hash: ReturnType<typeof createHash>): void {
   const p = path.join(root, rel);
@@ -27,7 +29,8 @@ function hashTree(root: string, rel: string, hash: ReturnType<typeof createHash>
   const st = statSync(p);
   if (st.isDirectory()) {
     for (const name of readdirSync(p).sort())
-      if (!SKIPPED.has(name)) hashTree(root, path.join(rel, name), hash);
+      if (!SKIPPED.has(name) && !WRITTEN_BY_BUILD.some((re) => re.test(name)))
+        hashTree(root, path.join(rel, name), hash);
   } else {
     hash.update(rel).update("\0").update(readFileSync(p)).update("\0");
   }
