@@ -96,6 +96,7 @@ function steadyAt(
   warm?: { mem: Float64Array; scale: number },
   toleranceScale = 1,
   maxCycles?: number,
+  jacobian?: Float64Array,
 ) {
   const compiled = compileCircuit(rec, supply);
   if (!compiled.ok) return compiled;
@@ -107,7 +108,11 @@ function steadyAt(
   const start = warm ? warm.mem.map((v) => v * warm.scale) : undefined;
   if (start)
     for (const d of circuit.devices) if (d.type === "switching") start[d.mem] = warm!.mem[d.mem]!;
-  const steady = periodicSteadyState(solver, budget, start, { toleranceScale, maxCycles });
+  const steady = periodicSteadyState(solver, budget, start, {
+    toleranceScale,
+    maxCycles,
+    ...(jacobian ? { jacobian } : {}),
+  });
   if (!steady.ok) return steady;
   return { ok: true as const, value: { circuit, steady: steady.value, steps: solver.totalSteps } };
 }
@@ -140,6 +145,22 @@ function coversHalves(f: FiringFigures | undefined, ref: FiringFigures): boolean
   return (!ref.halves.positive || f.halves.positive) && (!ref.halves.negative || f.halves.negative);
 }
 
+/**
+ * Where to look first for the lowest firing supply: a gate drive that follows the supply fires
+ * where it first reaches the threshold, sin(angle) = Vth / (k·Vpk), so at the supply
+ * rated·sin(angle) it reaches the threshold only at the peak. The latest required half decides;
+ * the search confirms or corrects the guess, so a trigger of another kind only costs a trial.
+ */
+function firstGuess(rated: number, f: FiringFigures): number | undefined {
+  const angles: number[] = [];
+  if (f.halves.positive && f.angle_deg !== null) angles.push(f.angle_deg);
+  if (f.halves.negative && f.angle_negative_deg !== null) angles.push(f.angle_negative_deg);
+  if (angles.length === 0) return undefined;
+  const latest = Math.max(...angles);
+  if (!(latest > 0 && latest < 90)) return undefined;
+  return rated * Math.sin((latest * Math.PI) / 180);
+}
+
 /** Full analysis: AC linear view, periodic steady state, figures, triggers with their lowest firing supply. */
 export function analyzeCircuit(
   rec: TeardownRecord,
@@ -158,33 +179,51 @@ export function analyzeCircuit(
   for (const f of figures.firings) {
     let minSupply: number | null = null;
     if (f.fires && opts.minSupply !== false) {
-      // A bracket on the supply voltage, narrowed by bisection steered by the gate margin: the
-      // answer fires in every half it fires in at the rated supply.
-      const found = lowestFiringSupply(supply.vrms, MIN_SUPPLY_RESOLUTION_V, (v) => {
-        const r = steadyAt(
-          rec,
-          { vrms: v, hz: supply.hz },
-          opts,
-          budget,
-          { mem: steady.startMem, scale: v / supply.vrms },
-          MIN_SUPPLY_TOLERANCE_SCALE,
-          MIN_SUPPLY_MAX_CYCLES,
-        );
-        if (!r.ok) return r;
-        steps += r.value.steps;
-        cycles += r.value.steady.cycles;
-        const fires = coversHalves(
-          firingFigures(r.value.circuit, r.value.steady).find((g) => g.part === f.part),
-          f,
-        );
-        return {
-          ok: true,
-          value: {
-            fires,
-            margin: fires ? null : gateMargin(r.value.circuit, r.value.steady, f.part, f.halves),
-          },
-        };
-      });
+      // A bracket on the supply voltage, first probed around a guess from the firing angle,
+      // then narrowed by bisection steered by the gate margin: the answer fires in every half
+      // it fires in at the rated supply.
+      // Every solved supply's cycle-start state: each trial starts from the nearest one, scaled
+      // by the amplitude ratio, so the storage states start close to where they settle.
+      const solvedStarts = [{ vrms: supply.vrms, mem: steady.startMem }];
+      // The one-cycle map's Jacobian changes little with the supply: the last one found spares
+      // a trial that shoots its finite differences.
+      let jacobian = steady.jacobian;
+      const found = lowestFiringSupply(
+        supply.vrms,
+        MIN_SUPPLY_RESOLUTION_V,
+        (v) => {
+          let near = solvedStarts[0]!;
+          for (const s of solvedStarts)
+            if (Math.abs(s.vrms - v) < Math.abs(near.vrms - v)) near = s;
+          const r = steadyAt(
+            rec,
+            { vrms: v, hz: supply.hz },
+            opts,
+            budget,
+            { mem: near.mem, scale: v / near.vrms },
+            MIN_SUPPLY_TOLERANCE_SCALE,
+            MIN_SUPPLY_MAX_CYCLES,
+            jacobian,
+          );
+          if (!r.ok) return r;
+          jacobian = r.value.steady.jacobian ?? jacobian;
+          solvedStarts.push({ vrms: v, mem: r.value.steady.startMem });
+          steps += r.value.steps;
+          cycles += r.value.steady.cycles;
+          const fires = coversHalves(
+            firingFigures(r.value.circuit, r.value.steady).find((g) => g.part === f.part),
+            f,
+          );
+          return {
+            ok: true,
+            value: {
+              fires,
+              margin: fires ? null : gateMargin(r.value.circuit, r.value.steady, f.part, f.halves),
+            },
+          };
+        },
+        firstGuess(supply.vrms, f),
+      );
       if (!found.ok) return found;
       minSupply = found.value.vrms;
     }

@@ -4,8 +4,10 @@
  * MIN_SUPPLY_RESOLUTION_V, like a bisection, but the next supply is not always the midpoint:
  * a steady state that does not fire still says how far its gate current stays below igt (the
  * gate margin, smooth in the supply), and a secant on that margin points close to the threshold,
- * so a few steady states do the work of the bisection's nine. The bracket is what decides; the
- * secant only chooses where to look, and the midpoint is taken whenever it would not help.
+ * so a few steady states do the work of the bisection's nine. A first guess (from the firing
+ * angle at the rated supply) is tried first as a pair just above and below it, which closes the
+ * bracket in two steady states when the guess is good. The bracket is what decides; the guess
+ * and the secant only choose where to look, and the midpoint is taken whenever they would not help.
  */
 import type { FiringFigures } from "../figures/circuit-figures.js";
 import type { Circuit, CircuitDevice } from "./circuit-model.js";
@@ -80,22 +82,31 @@ function nextTrial(
 
 /**
  * Narrows [0, rated] to the lowest firing supply within `resolution` volts; `trial` solves one
- * supply. The answer is the lowest supply that was seen to fire (the bracket's upper end).
+ * supply, `guess` (optional) is where to look first. The answer is the lowest supply that was seen to fire (the bracket's upper end).
  */
 export function lowestFiringSupply(
   rated: number,
   resolution: number,
   trial: (vrms: number) => SolverOutcome<FiringTrial>,
+  guess?: number,
 ): SolverOutcome<{ vrms: number; trials: number }> {
   let lo = 0;
   let hi = rated;
   const misses: Array<{ v: number; m: number }> = [];
   const widths: number[] = [];
   let trials = 0;
+  // A first guess inside the bracket is tried as a pair just above and just below it: when
+  // the threshold lies between them the bracket closes in two trials.
+  const pair =
+    guess !== undefined && guess > resolution && guess < rated - resolution
+      ? [guess + 0.49 * resolution, guess - 0.49 * resolution]
+      : [];
   while (hi - lo > resolution && trials < MIN_SUPPLY_MAX_TRIES) {
     // The secant has to halve the bracket every two trials, or the midpoint takes over.
     const stalled = widths.length >= 2 && hi - lo > 0.5 * widths[widths.length - 2]!;
-    const v = nextTrial(lo, hi, misses, resolution, !stalled);
+    let v = nextTrial(lo, hi, misses, resolution, !stalled);
+    const planned = pair.shift();
+    if (planned !== undefined && planned > lo && planned < hi) v = planned;
     widths.push(hi - lo);
     const r = trial(v);
     trials++;

@@ -14,6 +14,7 @@ import type { CircuitDevice } from "./circuit-model.js";
 import { DenseLu } from "./dense-lu.js";
 import type { SolverError } from "./solver-error.js";
 import type { Budget, CycleRun, TransientSolver } from "./transient.js";
+import { firstCycles, joinCycles, splitEnds } from "./cycle-window.js";
 
 /**
  * A state is settled when its cycle-to-cycle change is below this fraction of its size (the
@@ -33,6 +34,8 @@ export const SHOOTING_MAX_ITERATIONS = 25;
 export const SHOOTING_FD_RELATIVE = 1e-4;
 /** A one-cycle shot waits at most this many cycles (three times the longest repeat looked for) for a varying firing pattern to show its repeat. */
 export const PSS_SUBHARMONIC_WAIT_CYCLES = 24;
+/** Cycles a shot with a borrowed Jacobian is reckoned to take (one evaluation per Newton step). */
+export const BORROWED_SHOT_CYCLES = 3;
 /** Halvings of a shooting step before the try is given up. */
 export const SHOOTING_LINE_SEARCH_TRIES = 6;
 /** Longest repeat, in mains cycles, that is looked for when the one-cycle map has no fixed point. */
@@ -55,6 +58,8 @@ export interface SteadyState {
   residual: number;
   /** Mains cycles in the repeating window (1, or k for an orbit that repeats every k cycles); the run spans them all. */
   periodCycles: number;
+  /** Jacobian of the one-cycle mismatch over the continuous states (row-major), when one-cycle shooting ran. */
+  jacobian?: Float64Array;
 }
 
 interface Slot {
@@ -87,6 +92,8 @@ export function periodicSteadyState(
     maxCycles?: number;
     toleranceScale?: number;
     periodHint?: number;
+    /** A one-cycle Jacobian from a nearby solve (row-major, continuous states), tried before a finite-difference one. */
+    jacobian?: Float64Array;
   } = {},
 ): { ok: true; value: SteadyState } | { ok: false; error: SolverError } {
   const c = solver.circuit;
@@ -146,6 +153,12 @@ export function periodicSteadyState(
   const hint = Math.min(Math.max(1, Math.round(opts.periodHint ?? 1)), PSS_MAX_SUBHARMONIC);
   let period = 1;
   let shot = false;
+  let jacobian: Float64Array | undefined;
+  // With a borrowed Jacobian a shot costs a few cycles instead of one per state: it is tried
+  // after a single plain cycle, and whenever plain cycling would take longer than that.
+  const borrowed = opts.jacobian !== undefined && opts.jacobian.length === cont.length ** 2;
+  const warmup = borrowed ? 1 : PSS_WARMUP_CYCLES;
+  const shotCost = borrowed ? BORROWED_SHOT_CYCLES : cont.length + 4;
   for (;;) {
     const r = cycle(mem, true);
     if (!r.ok) return r;
@@ -182,12 +195,7 @@ export function periodicSteadyState(
       }
       break;
     }
-    if (
-      cycles >= PSS_WARMUP_CYCLES &&
-      cont.length > 0 &&
-      Number.isFinite(d) &&
-      opts.shooting !== false
-    ) {
+    if (cycles >= warmup && cont.length > 0 && Number.isFinite(d) && opts.shooting !== false) {
       let likely = hint > 1 && !tried.has(hint) ? hint : 1;
       for (let k = 2; k <= PSS_MAX_SUBHARMONIC && likely === 1; k++)
         if (states.length > k + 1 && back(k) < SUBHARMONIC_EVIDENCE_RATIO * d) likely = k;
@@ -200,10 +208,18 @@ export function periodicSteadyState(
       const prev = history[history.length - 2]!;
       const rho = Number.isFinite(prev) && prev > 0 ? d / prev : 1;
       const predicted = rho < 1 ? Math.log(d) / -Math.log(rho) : Infinity;
-      if (!tried.has(likely) && (likely > 1 || predicted > cont.length + 4)) {
+      if (!tried.has(likely) && (likely > 1 || predicted > shotCost)) {
         tried.add(likely);
-        const found = shoot(vpk, likely === 1 ? cycle : cyclesOf(likely), mem, cont, change);
+        const found = shoot(
+          vpk,
+          likely === 1 ? cycle : cyclesOf(likely),
+          mem,
+          cont,
+          change,
+          likely === 1 ? (opts.jacobian ?? null) : null,
+        );
         if (!found.ok) return found;
+        if (likely === 1) jacobian = found.jac;
         if (found.mem !== null) {
           mem = found.mem;
           method = "shooting";
@@ -245,6 +261,7 @@ export function periodicSteadyState(
       startMem: mem,
       residual: change(mem, run.endMem),
       periodCycles: period,
+      ...(jacobian ? { jacobian } : {}),
     },
   };
 }
@@ -254,14 +271,21 @@ type CycleFn = (
   record: boolean,
 ) => { ok: true; run: CycleRun } | { ok: false; error: SolverError };
 
-/** Newton on F(s) = Phi(s) - s over the continuous states; null mem when it does not succeed. */
+/**
+ * Newton on F(s) = Phi(s) - s over the continuous states; null mem when it does not succeed.
+ * A given Jacobian `jac0` saves the finite-difference one; when its step fails, the
+ * finite-difference Jacobian is taken after all.
+ */
 function shoot(
   vpk: number,
   cycle: CycleFn,
   base: Float64Array,
   cont: Slot[],
   change: (a: Float64Array, b: Float64Array) => number,
-): { ok: true; mem: Float64Array | null; best: Float64Array } | { ok: false; error: SolverError } {
+  jac0: Float64Array | null,
+):
+  | { ok: true; mem: Float64Array | null; best: Float64Array; jac: Float64Array }
+  | { ok: false; error: SolverError } {
   const m = cont.length;
   let latches = base.slice();
   const inject = (s: Float64Array): Float64Array => {
@@ -282,21 +306,35 @@ function shoot(
   let cur: Eval = first;
   // Finite-difference Jacobian of F, once; Broyden rank-one updates afterwards.
   const jac = new Float64Array(m * m);
-  for (let k = 0; k < m; k++) {
-    const delta =
-      SHOOTING_FD_RELATIVE *
-      Math.max(Math.abs(s[k]!), cont[k]!.kind === "volt" ? 0.01 * vpk : 1e-3);
-    const sp = s.slice();
-    sp[k]! += delta;
-    const fp = evalF(sp);
-    if (!fp.ok) return fp;
-    for (let i = 0; i < m; i++) jac[i * m + k] = (fp.f[i]! - cur.f[i]!) / delta;
+  const differences = (): { ok: true } | { ok: false; error: SolverError } => {
+    for (let k = 0; k < m; k++) {
+      const delta =
+        SHOOTING_FD_RELATIVE *
+        Math.max(Math.abs(s[k]!), cont[k]!.kind === "volt" ? 0.01 * vpk : 1e-3);
+      const sp = s.slice();
+      sp[k]! += delta;
+      const fp = evalF(sp);
+      if (!fp.ok) return fp;
+      for (let i = 0; i < m; i++) jac[i * m + k] = (fp.f[i]! - cur.f[i]!) / delta;
+    }
+    return { ok: true };
+  };
+  let borrowed = jac0 !== null && jac0.length === m * m;
+  if (borrowed) jac.set(jac0!);
+  else {
+    const fd = differences();
+    if (!fd.ok) return fd;
   }
+  // A borrowed Jacobian that gives no useful step is replaced by finite differences, once.
+  const replace = (): { ok: true } | { ok: false; error: SolverError } => {
+    borrowed = false;
+    return differences();
+  };
   const rows = Int32Array.from({ length: m * m }, (_, q) => Math.floor(q / m));
   const cols = Int32Array.from({ length: m * m }, (_, q) => q % m);
   const lu = new DenseLu(m, rows, cols);
   for (let iter = 0; iter < SHOOTING_MAX_ITERATIONS; iter++) {
-    if (change(cur.start, cur.end) <= 1) return { ok: true, mem: cur.start, best: cur.end };
+    if (change(cur.start, cur.end) <= 1) return { ok: true, mem: cur.start, best: cur.end, jac };
     if (change(cur.start, cur.end) === Infinity) {
       // A latch ends the cycle in another state than it started: start from the end's latches.
       latches = cur.end.slice();
@@ -305,7 +343,12 @@ function shoot(
       cur = again;
       continue;
     }
-    if (!lu.factor(jac).ok) return { ok: true, mem: null, best: cur.end };
+    if (!lu.factor(jac).ok) {
+      if (!borrowed) return { ok: true, mem: null, best: cur.end, jac };
+      const fd = replace();
+      if (!fd.ok) return fd;
+      continue;
+    }
     const step = lu.solve(cur.f.map((v: number) => -v));
     let lambda = 1;
     let next: Eval | null = null;
@@ -323,7 +366,12 @@ function shoot(
     }
     // No step along the Newton direction reduces the mismatch: the map has no fixed point
     // near here (often a subharmonic orbit); plain cycling takes over.
-    if (next === null) return { ok: true, mem: null, best: cur.end };
+    if (next === null) {
+      if (!borrowed) return { ok: true, mem: null, best: cur.end, jac };
+      const fd = replace();
+      if (!fd.ok) return fd;
+      continue;
+    }
     // Broyden: J += (dF - J ds) ds^T / (ds^T ds).
     const ds = sNext.map((v, k) => v - s[k]!);
     const df = next.f.map((v, k) => v - cur.f[k]!);
@@ -339,48 +387,10 @@ function shoot(
     s = sNext;
     cur = next;
   }
-  return { ok: true, mem: change(cur.start, cur.end) <= 1 ? cur.start : null, best: cur.end };
-}
-
-/** Consecutive cycle runs as one run over [0, k·period]: times shifted, samples and events in order. */
-function joinCycles(parts: CycleRun[], period: number): CycleRun {
-  if (parts.length === 1) return { ...parts[0]!, cycleEnds: [parts[0]!.endMem] };
-  const samples: CycleRun["samples"] = [];
-  const events: CycleRun["events"] = [];
-  let steps = 0;
-  parts.forEach((p, j) => {
-    for (const s of p.samples)
-      samples.push(j === 0 ? s : { t: s.t + j * period, x: s.x, mem: s.mem });
-    for (const e of p.events) events.push({ ...e, t: e.t + j * period });
-    steps += p.steps;
-  });
-  const last = parts[parts.length - 1]!;
   return {
-    endMem: last.endMem,
-    endX: last.endX,
-    samples,
-    events,
-    steps,
-    cycleEnds: parts.map((p) => p.endMem),
-  };
-}
-
-/** The end state of each cycle of a joined run. */
-function splitEnds(run: CycleRun, period: number): Float64Array[] {
-  return run.cycleEnds ?? Array.from({ length: period }, () => run.endMem);
-}
-
-/** The first p cycles of a joined run. */
-function firstCycles(run: CycleRun, p: number, period: number, endMem: Float64Array): CycleRun {
-  const tEnd = p * period * (1 + 1e-12);
-  const samples = run.samples.filter((s) => s.t <= tEnd);
-  const last = samples[samples.length - 1]!;
-  return {
-    endMem,
-    endX: last.x,
-    samples,
-    events: run.events.filter((e) => e.t <= tEnd),
-    steps: samples.length,
-    cycleEnds: run.cycleEnds?.slice(0, p),
+    ok: true,
+    mem: change(cur.start, cur.end) <= 1 ? cur.start : null,
+    best: cur.end,
+    jac,
   };
 }
