@@ -3,6 +3,7 @@
 import { MEASUREMENT_KINDS, type MeasurementKind } from "@teardown/engine";
 import { newMeasurement, type FormState, type MeasurementRow } from "./form-state";
 import { FieldProblems, hasProblem } from "./field-problems";
+import { NetPairFields } from "./net-pair-fields";
 import type { ProblemPlaces } from "./place-errors";
 import css from "./form.module.css";
 
@@ -91,28 +92,24 @@ export function MeasurementsEditor({
                   </td>
                   <td>
                     {m.what.startsWith("voltage.") ? (
-                      <div className={css.pins}>
-                        <input
-                          className={`${css.input} ${css.tiny}`}
-                          name={`measurements.${i}.from`}
-                          aria-label="from net"
-                          placeholder="from"
-                          list="teardown-nets"
-                          value={m.from}
-                          aria-invalid={hasProblem(places, `${base}.between`)}
-                          onChange={(e) => set(i, { from: e.target.value })}
-                        />
-                        <input
-                          className={`${css.input} ${css.tiny}`}
-                          name={`measurements.${i}.to`}
-                          aria-label="to net"
-                          placeholder="to"
-                          list="teardown-nets"
-                          value={m.to}
-                          aria-invalid={hasProblem(places, `${base}.between`)}
-                          onChange={(e) => set(i, { to: e.target.value })}
-                        />
-                      </div>
+                      <NetPairFields
+                        places={places}
+                        betweenPath={`${base}.between`}
+                        first={{
+                          name: `measurements.${i}.from`,
+                          label: "from net",
+                          placeholder: "from",
+                          value: m.from,
+                          onChange: (v) => set(i, { from: v }),
+                        }}
+                        second={{
+                          name: `measurements.${i}.to`,
+                          label: "to net",
+                          placeholder: "to",
+                          value: m.to,
+                          onChange: (v) => set(i, { to: v }),
+                        }}
+                      />
                     ) : m.what.startsWith("part.") ? (
                       <select
                         className={css.select}

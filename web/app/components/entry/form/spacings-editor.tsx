@@ -2,6 +2,7 @@
 /** Board spacings of the form editor: creepage and clearance measured between two nets. */
 import { newSpacing, type FormState, type SpacingRow } from "./form-state";
 import { FieldProblems, hasProblem } from "./field-problems";
+import { NetPairFields } from "./net-pair-fields";
 import type { ProblemPlaces } from "./place-errors";
 import css from "./form.module.css";
 
@@ -45,26 +46,22 @@ export function SpacingsEditor({
               return (
                 <tr key={s.key}>
                   <td>
-                    <div className={css.pins}>
-                      <input
-                        className={`${css.input} ${css.tiny}`}
-                        name={`spacings.${i}.a`}
-                        aria-label="first net"
-                        list="teardown-nets"
-                        value={s.a}
-                        aria-invalid={hasProblem(places, `${base}.between`)}
-                        onChange={(e) => set(i, { a: e.target.value })}
-                      />
-                      <input
-                        className={`${css.input} ${css.tiny}`}
-                        name={`spacings.${i}.b`}
-                        aria-label="second net"
-                        list="teardown-nets"
-                        value={s.b}
-                        aria-invalid={hasProblem(places, `${base}.between`)}
-                        onChange={(e) => set(i, { b: e.target.value })}
-                      />
-                    </div>
+                    <NetPairFields
+                      places={places}
+                      betweenPath={`${base}.between`}
+                      first={{
+                        name: `spacings.${i}.a`,
+                        label: "first net",
+                        value: s.a,
+                        onChange: (v) => set(i, { a: v }),
+                      }}
+                      second={{
+                        name: `spacings.${i}.b`,
+                        label: "second net",
+                        value: s.b,
+                        onChange: (v) => set(i, { b: v }),
+                      }}
+                    />
                     <FieldProblems places={places} path={`${base}.between`} />
                     <FieldProblems places={places} path={base} />
                   </td>
