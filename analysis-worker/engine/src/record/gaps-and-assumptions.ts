@@ -5,7 +5,8 @@
  */
 
 /** One part or net left out of the analysis, or not solvable, and why (plain words). */
-export type Gap = { part: string; net?: never; reason: string } | { net: string; part?: never; reason: string };
+export type Gap =
+  { part: string; net?: never; reason: string } | { net: string; part?: never; reason: string };
 
 /** One default the engine chose where the record was silent. */
 export interface Assumption {
