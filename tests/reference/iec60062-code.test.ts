@@ -1,7 +1,10 @@
 /**
- * The IEC 60062 letter-and-digit code, where the letter stands for the decimal point
- * (reference-values.md §4; examples FOUND https://en.wikipedia.org/wiki/RKM_code and
- * https://wikisum.wiki/wiki/RKM_code; the same examples are in record-format.md "Values").
+ * The letter-and-digit code where the letter stands for the decimal point.
+ * Published document: IEC 60062:2016 "Marking codes for resistors and capacitors", clause 4
+ * (letter and digit code for resistance and capacitance values) and clause 5 (tolerance code
+ * letters); clause numbers from memory, the standard's listing FOUND at
+ * https://www.ove.at/webshop/artikel/b4df090c1d-iec-60062-2016.html. Worked examples of the
+ * code FOUND at https://en.wikipedia.org/wiki/RKM_code and https://wikisum.wiki/wiki/RKM_code.
  */
 import { describe, expect, it } from "vitest";
 import { parseTolerance, parseValue } from "@teardown/engine";
@@ -22,12 +25,12 @@ describe("IEC 60062 resistance code", () => {
   it("4R7 is 4.7 Ω (FOUND, RKM code page)", () => expect(ohms("4R7")).toBe(4.7));
   it("R47 is 0.47 Ω (FOUND, RKM code page)", () => expect(ohms("R47")).toBe(0.47));
   it("470R is 470 Ω (FOUND, RKM code page)", () => expect(ohms("470R")).toBe(470));
-  it("1k3 and 1K3 are 1.3 kΩ (test vector in reference-values.md §4; lowercase k is common practice)", () => {
+  it("1k3 and 1K3 are 1.3 kΩ (IEC 60062:2016 clause 4, letter K for 10³; lowercase k is common practice)", () => {
     expect(ohms("1k3")).toBe(1300);
     expect(ohms("1K3")).toBe(1300);
   });
   it("47K3 is 47.3 kΩ (FOUND, RKM code page)", () => expect(ohms("47K3")).toBe(47300));
-  it("2M2 is 2 200 000 Ω (record-format.md; 4M7 form FOUND)", () =>
+  it("2M2 is 2 200 000 Ω (IEC 60062:2016 clause 4, letter M for 10⁶; the 4M7 example FOUND)", () =>
     expect(ohms("2M2")).toBe(2_200_000));
   it("0R1 is 0.1 Ω (common practice; the standard form R10 too)", () => {
     expect(ohms("0R1")).toBe(0.1);
@@ -53,7 +56,7 @@ describe("IEC 60062 capacitance code", () => {
 });
 
 describe("IEC 60062 tolerance letters", () => {
-  it("F G J K M are ±1, 2, 5, 10, 20 % (FOUND, reference-values.md §4 table)", () => {
+  it("F G J K M are ±1, 2, 5, 10, 20 % (IEC 60062:2016 clause 5 tolerance letters, FOUND in reproductions)", () => {
     const read = ["F", "G", "J", "K", "M"].map((l) => parseTolerance(l));
     expect(read.map((r) => (r.ok ? r.value : null))).toEqual([0.01, 0.02, 0.05, 0.1, 0.2]);
   });

@@ -1,7 +1,12 @@
 /**
- * IEC 60063 preferred-number series against the published tables (reference-values.md §3).
- * Source of E6/E12/E24 and E48: FOUND https://www.qsl.net/g4usp/Components/Component%20preferred%20values.htm
- * (standard: IEC 60063:2015, FOUND https://dinmedia.de/en/standard/din-en-60063/240741276).
+ * IEC 60063 preferred-number series against the published tables.
+ * Published document: IEC 60063:2015 "Preferred number series for resistors and capacitors",
+ * Table 1 (E3, E6, E12, E24, two significant figures) and Table 2 (E48, E96, E192, three
+ * significant figures); table numbers from memory, the standard's abstract FOUND at
+ * https://dinmedia.de/en/standard/din-en-60063/240741276.
+ * The values themselves were read from a reproduction of those tables: FOUND
+ * https://www.qsl.net/g4usp/Components/Component%20preferred%20values.htm (E3 to E48), and the
+ * EIA-96 code table of a chip-resistor datasheet (E96).
  */
 import { describe, expect, it } from "vitest";
 import { E_SERIES, eSeriesOf, isInSeries } from "@teardown/engine";
@@ -46,19 +51,19 @@ describe("IEC 60063 series tables", () => {
     expect(asHundredths(E_SERIES.E96)).toEqual(table.split(/\s+/).map(Number));
   });
 
-  it("E96 equals round(100·10^(i/96)) for i = 0..95 (DERIVED, reference-values.md §3)", () => {
+  it("E96 equals round(100·10^(i/96)) for i = 0..95 (DERIVED by computation against IEC 60063:2015 Table 2)", () => {
     expect(asHundredths(E_SERIES.E96)).toEqual(
       Array.from({ length: 96 }, (_, i) => Math.round(100 * 10 ** (i / 96))),
     );
   });
 
-  it("E192 holds 920, not the computed 919 (MEMORY, reference-values.md §3), and every other E96 value", () => {
+  it("E192 holds 920, not the computed 919 (IEC 60063:2015 Table 2, MEMORY), and every other E96 value", () => {
     expect(asHundredths(E_SERIES.E192)).toContain(920);
     expect(asHundredths(E_SERIES.E192)).not.toContain(919);
     expect(E_SERIES.E192.filter((_, i) => i % 2 === 0)).toEqual(E_SERIES.E96);
   });
 
-  it("E24 differs from rounded 10^(i/24) at 2.7 3.0 3.3 3.6 3.9 4.3 4.7 8.2 (DERIVED, reference-values.md §3)", () => {
+  it("E24 differs from rounded 10^(i/24) at 2.7 3.0 3.3 3.6 3.9 4.3 4.7 8.2 (IEC 60063:2015 Table 1 against the formula, DERIVED)", () => {
     const computed = Array.from({ length: 24 }, (_, i) => Math.round(10 * 10 ** (i / 24)) / 10);
     const differing = E_SERIES.E24.filter((v, i) => v !== computed[i]);
     expect(differing).toEqual([2.7, 3.0, 3.3, 3.6, 3.9, 4.3, 4.7, 8.2]);
@@ -66,7 +71,7 @@ describe("IEC 60063 series tables", () => {
 });
 
 describe("series membership", () => {
-  it("a traced 5k1 is an E24 value, not an E12 one (engine.md §1, E24 table FOUND)", () => {
+  it("a traced 5k1 is an E24 value, not an E12 one (IEC 60063:2015 Table 1: 5.1 is in E24 only)", () => {
     expect(eSeriesOf(5100)).toBe("E24");
     expect(isInSeries(5100, "E12")).toBe(false);
   });
