@@ -30,6 +30,28 @@ export const valueText = fc.oneof(
   fc.double({ min: 1e-12, max: 1e9, noNaN: true }),
 );
 
+/**
+ * A positive value that any valued kind can have: at most 1e4 in its unit (a capacitor, a zener
+ * voltage or a fuse rating of 1e9 is refused as impossible, see record/plausibility.ts).
+ */
+export const smallValueText = fc.oneof(
+  fc.constantFrom(
+    "4R7",
+    "1k3",
+    "4n7",
+    "0R1",
+    "R47",
+    "330n",
+    "4.7u",
+    "24.1m",
+    "1.2k",
+    "2.2e-7",
+    "100",
+  ),
+  fc.double({ min: 1e-12, max: 1e4, noNaN: true }).map((v) => String(v)),
+  fc.double({ min: 1e-12, max: 1e4, noNaN: true }),
+);
+
 function partArb(ref: string): fc.Arbitrary<Record<string, unknown>> {
   const kinds = Object.keys(KINDS) as KnownKind[];
   return fc.constantFrom<string>(...kinds, "widget").chain((kind) => {
@@ -42,7 +64,11 @@ function partArb(ref: string): fc.Arbitrary<Record<string, unknown>> {
       .record(
         {
           pins: pinCount.chain((n) => fc.array(net, { minLength: n, maxLength: n })),
-          value: info?.unit ? valueText : fc.constant(undefined),
+          value: info?.unit
+            ? kind === "resistor"
+              ? valueText
+              : smallValueText
+            : fc.constant(undefined),
           tolerance: fc.constantFrom(undefined, "5%", "10%", "J", "0.2"),
           rating: fc.option(
             fc.record(
@@ -56,7 +82,8 @@ function partArb(ref: string): fc.Arbitrary<Record<string, unknown>> {
           model: fc.option(
             fc.dictionary(
               fc.constantFrom("vgt", "igt", "lp", "k", "r"),
-              fc.constantFrom("50u", 0.7, "3m", 40),
+              // each is possible for every key drawn (k must lie in (0, 1])
+              fc.constantFrom("50u", 0.7, "3m", 1),
             ),
             { nil: undefined },
           ),

@@ -11,6 +11,7 @@ import {
   type PartNode,
 } from "./circuit-graph.js";
 import { kindInfo, pinRolesFor } from "./kinds.js";
+import { partPlausibility } from "../record/plausibility.js";
 
 /** One finding of checkCircuit. */
 export interface CircuitIssue {
@@ -33,7 +34,9 @@ export type CircuitIssueCode =
   | "no-neutral"
   | "no-line"
   | "no-supply-path"
-  | "unknown-kind";
+  | "unknown-kind"
+  | "implausible-value"
+  | "impossible-value";
 
 const SEVERITY_ORDER = { error: 0, warning: 1, info: 2 } as const;
 
@@ -48,6 +51,7 @@ export function checkCircuit(record: TeardownRecord): CircuitIssue[] {
     ...shortedParts(graph),
     ...supplyIssues(graph),
     ...unknownKinds(graph),
+    ...valueChecks(record),
   ];
   return issues.sort(
     (a, b) =>
@@ -328,4 +332,23 @@ function unknownKinds(graph: CircuitGraph): CircuitIssue[] {
         p.pins.map((e) => e.net),
       ),
     );
+}
+
+/**
+ * Numbers a part of its kind is unlikely to have (a warning naming the field path), and, for a
+ * record built in code that skipped validation, numbers it cannot have (an error).
+ */
+function valueChecks(record: TeardownRecord): CircuitIssue[] {
+  return record.parts.flatMap((p, i) =>
+    partPlausibility(p).map((f) => {
+      const path = `parts[${i}].${f.field.join(".")}`;
+      return issue(
+        f.level === "impossible" ? "impossible-value" : "implausible-value",
+        f.level === "impossible" ? "error" : "warning",
+        `${p.ref} (${path}): ${f.message}.`,
+        [p.ref],
+        Object.values(p.pins),
+      );
+    }),
+  );
 }

@@ -10,6 +10,8 @@ import { exactValueText } from "../values/format-value.js";
 import { parseValue } from "../values/parse-value.js";
 import type { ValueNotation } from "../values/notation-tables.js";
 import type { RawRecordBuilder, SourceToken } from "./raw-record-builder.js";
+import { formatPath } from "../record/input-errors.js";
+import { milliOrMegaMessage } from "./milli-or-mega.js";
 
 /** Rating keys and their units. */
 const RATING_KEYS: Readonly<Record<string, string>> = {
@@ -31,10 +33,28 @@ export function valueUnitOf(kind: string): string {
   return info === null ? "any" : (info.unit ?? "1");
 }
 
+/** In a deck, warns at the word when its `m`/`M` made a milli value where mega is likelier. */
+function warnMilliOrMega(
+  text: string,
+  kind: string,
+  field: string[],
+  value: number,
+  unit: string,
+  notation: ValueNotation,
+  at: SourceToken,
+  index: number,
+  builder: RawRecordBuilder,
+): void {
+  if (notation !== "deck") return;
+  const message = milliOrMegaMessage(text, kind, field, value, unit);
+  if (message !== null)
+    builder.problems.warnAt(at, formatPath(["parts", index, ...field]), "milli-or-mega", message);
+}
+
 /**
  * Reads a main value in the source notation and gives its record-notation text; the text of
  * a value that cannot be read is passed on unchanged, so that the record validation reports it
- * (unit-less kinds keep a part number as text).
+ * (unit-less kinds keep a part number as text). `index` is the part's place in `parts`.
  */
 export function valueToRecordText(
   text: string,
@@ -42,9 +62,14 @@ export function valueToRecordText(
   notation: ValueNotation,
   at: SourceToken,
   builder: RawRecordBuilder,
+  index: number,
 ): string | null {
-  const read = parseValue(text, { unit: valueUnitOf(kind), notation });
-  if (read.ok) return exactValueText(read.value, "record");
+  const unit = valueUnitOf(kind);
+  const read = parseValue(text, { unit, notation });
+  if (read.ok) {
+    warnMilliOrMega(text, kind, ["value"], read.value, unit, notation, at, index, builder);
+    return exactValueText(read.value, "record");
+  }
   const info = kindInfo(kind);
   if (info === null || info.unit === null) return text;
   builder.errorAt(at, read.code, read.message);
@@ -76,7 +101,7 @@ export function applyParams(
     const { key, value } = param;
     const at = (path: (string | number)[]): void => builder.place(["parts", index, ...path], token);
     if (key === "value") {
-      const text = valueToRecordText(value, kind, notation, token, builder);
+      const text = valueToRecordText(value, kind, notation, token, builder, index);
       if (text !== null) rawPart.value = text;
       at(["value"]);
     } else if (key === "tol" || key === "tolerance") {
@@ -87,8 +112,21 @@ export function applyParams(
       if (RATING_TEXT_KEYS.includes(key)) rating[key] = value;
       else {
         const read = parseValue(value, { unit: RATING_KEYS[key]!, notation });
-        if (read.ok) rating[key] = read.value;
-        else builder.errorAt(token, read.code, `${key}: ${read.message}`);
+        if (read.ok) {
+          rating[key] = read.value;
+          const field = ["rating", key];
+          warnMilliOrMega(
+            value,
+            kind,
+            field,
+            read.value,
+            RATING_KEYS[key]!,
+            notation,
+            token,
+            index,
+            builder,
+          );
+        } else builder.errorAt(token, read.code, `${key}: ${read.message}`);
       }
       at(["rating", key]);
     } else if (TEXT_KEYS.includes(key)) {
@@ -101,9 +139,22 @@ export function applyParams(
       at([key]);
     } else if (/^[a-z][a-z0-9_]*$/.test(key)) {
       const model = (rawPart.model ??= {}) as Record<string, unknown>;
-      const read = parseValue(value, { unit: MODEL_PARAMETER_UNITS[key] ?? "any", notation });
-      if (read.ok) model[key] = read.value;
-      else builder.errorAt(token, read.code, `${key}: ${read.message}`);
+      const unit = MODEL_PARAMETER_UNITS[key] ?? "any";
+      const read = parseValue(value, { unit, notation });
+      if (read.ok) {
+        model[key] = read.value;
+        warnMilliOrMega(
+          value,
+          kind,
+          ["model", key],
+          read.value,
+          unit,
+          notation,
+          token,
+          index,
+          builder,
+        );
+      } else builder.errorAt(token, read.code, `${key}: ${read.message}`);
       at(["model", key]);
     } else {
       builder.errorAt(

@@ -6,7 +6,7 @@
  *   .supply 230 50                    rated supply: RMS volts, hertz
  *   .line L                           net roles: .line .neutral .earth .output NET...
  *   .accessible CASE                  nets a person can touch
- *   R1 L A 1M watts=0.25              R C L: ref, two nets, value, then key=value words
+ *   R1 L A 1meg watts=0.25            R C L: ref, two nets, value, then key=value words
  *   C1 L A 330n tol=10% volts=310 class=X2
  *   + marking="334K 310V~"            `+` continues the line above
  *   D1 A P 1N4007                     D: ref, anode, cathode, optional marking, key=value
@@ -14,7 +14,9 @@
  *   .end                              the end; lines after it are ignored
  *
  * Values follow the deck convention: suffixes are case-insensitive, `meg` is mega and `m` (or
- * `M`) is milli; `4k7` also works. A polarised capacitor is `C1 P N 10u polarised=true`
+ * `M`) is milli, so `1M` is one milliohm; a value whose `m`/`M` reads as milli where mega is
+ * far likelier (any resistor, or a value outside its kind's plausible range) is warned about
+ * at its line (code `milli-or-mega`, see milli-or-mega.ts). `4k7` also works. A polarised capacitor is `C1 P N 10u polarised=true`
  * (nets in plus, minus order). The first letter of an element line gives the kind and is part
  * of the ref (`R1` is resistor R1); on an `X` line the X is dropped (`XQ1` is part Q1).
  */
@@ -190,7 +192,7 @@ function readElement(tokens: readonly SourceToken[], builder: RawRecordBuilder):
       `a ${kind} line ends its nets with a value: ${head.text} NET NET VALUE`,
     );
   } else {
-    const text = valueToRecordText(extra[0].text, kind, "deck", extra[0], builder);
+    const text = valueToRecordText(extra[0].text, kind, "deck", extra[0], builder, index);
     if (text !== null) rawPart.value = text;
     builder.place(["parts", index, "value"], extra[0]);
   }

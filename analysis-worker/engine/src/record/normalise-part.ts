@@ -6,6 +6,7 @@
 import { kindInfo, pinRolesFor, KINDS } from "../graph/kinds.js";
 import { parseValue } from "../values/parse-value.js";
 import { parseTolerance } from "../values/parse-tolerance.js";
+import { partPlausibility } from "./plausibility.js";
 import type { Part, Rating } from "./types.js";
 import type { PathSegment, ProblemList } from "./input-errors.js";
 import type { RawPart } from "./record-schema.js";
@@ -243,6 +244,14 @@ export function normalisePart(
       problems,
     );
     if (n !== null) model[key] = n;
+  }
+  if (value.ok) {
+    // impossible numbers are refused, implausible ones kept and named (see plausibility.ts)
+    for (const f of partPlausibility({ kind: raw.kind, value: value.value, model, rating })) {
+      if (f.level === "impossible")
+        problems.error([...base, ...f.field], "impossible-value", f.message);
+      else problems.warn([...base, ...f.field], "implausible-value", f.message);
+    }
   }
   const pins = opts.checkPins === false ? null : normalisePins(raw, polarised, base, problems);
   if (pins === null || !value.ok || problems.errors.length > before) return null;

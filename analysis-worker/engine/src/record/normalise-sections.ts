@@ -8,6 +8,7 @@ import { parseValue } from "../values/parse-value.js";
 import { parseUncertainty } from "../values/parse-tolerance.js";
 import type { PathSegment, ProblemList } from "./input-errors.js";
 import { netNameText, readNumber } from "./normalise-part.js";
+import { judgeNumber, SUPPLY_BOUNDS } from "./plausibility.js";
 import type { RawMeasurement, RawNet, RawSpacing, RawSupply } from "./record-schema.js";
 
 /** The unit of each measurement's value (record-format.md §1, "Measurements"). */
@@ -63,6 +64,13 @@ export function normaliseSupply(
       "the supply frequency must be above 0 (this reader handles mains AC)",
     );
     ok = false;
+  }
+  if (ok) {
+    for (const key of ["vrms", "hz"] as const) {
+      const f = judgeNumber(key === "vrms" ? vrms : hz, SUPPLY_BOUNDS[key], [key]);
+      if (f !== null && f.level === "implausible")
+        problems.warn([...path, key], "implausible-value", f.message);
+    }
   }
   return ok ? { vrms, hz } : null;
 }
