@@ -16,7 +16,11 @@ export interface AcSource {
 export interface BlockContext {
   graph: CircuitGraph;
   paths: SupplyPaths;
-  /** Every net on a supply chain, either side. */
+  /**
+   * The mains nets and the nets of each declared net's chain, either side: where a divider's
+   * midpoint or a rectifier's output cannot be. Branch nets are left out on purpose: a divider
+   * hung from the mains has its midpoint on a branch.
+   */
   pathNets: ReadonlySet<string>;
   sources: AcSource[];
 }
@@ -25,7 +29,11 @@ export interface BlockContext {
 export function blockContext(record: TeardownRecord): BlockContext {
   const graph = buildCircuitGraph(record);
   const paths = traceSupplyPaths(graph);
-  const pathNets = new Set(paths.chains.flatMap(chainNets));
+  const pathNets = new Set([
+    ...paths.mainsLine,
+    ...paths.mainsNeutral,
+    ...paths.chains.flatMap(chainNets),
+  ]);
   const sources: AcSource[] = [
     { nets: paths.lineSide, returns: paths.neutralSide },
     { nets: paths.neutralSide, returns: paths.lineSide },

@@ -13,6 +13,7 @@ export const BLOCK_KINDS = [
   "bleeder",
   "bridge-rectifier",
   "half-wave-rectifier",
+  "reverse-protection",
   "smoothing-capacitor",
   "zener-shunt-regulator",
   "voltage-divider",

@@ -2,7 +2,8 @@
  * Functional blocks of a circuit, recognised by subgraph matching on the typed graph with pin
  * roles and the net roles the record declares (line, neutral), never by refs or net names.
  * The finders run in dependency order: rectifiers first (their rails feed the smoothing and
- * regulator finders), droppers before bleeders and surge limiters.
+ * regulator finders), droppers before bleeders and surge limiters, and reverse-protection
+ * diodes before half-wave rectifiers (such a diode is never one).
  */
 import type { TeardownRecord } from "../record/types.js";
 import { blockContext } from "./block-context.js";
@@ -13,6 +14,7 @@ import { findCapacitiveDroppers } from "./capacitive-dropper.js";
 import { findFuses } from "./fuse.js";
 import { findHalfWaveRectifiers } from "./half-wave-rectifier.js";
 import { findPulseTransformers } from "./pulse-transformer.js";
+import { findReverseProtection } from "./reverse-protection.js";
 import { findSmoothingCapacitors } from "./smoothing-capacitor.js";
 import { findSurgeLimiters } from "./surge-limiter.js";
 import { findThyristorTriggers } from "./thyristor-trigger.js";
@@ -27,8 +29,13 @@ export { BLOCK_KINDS } from "./block-types.js";
 export function findBlocks(record: TeardownRecord): Block[] {
   const ctx = blockContext(record);
   const bridges = findBridgeRectifiers(ctx);
-  const bridgeDiodes = new Set(bridges.flatMap((b) => b.block.parts));
-  const halfWaves = findHalfWaveRectifiers(ctx, bridgeDiodes);
+  const reverse = findReverseProtection(ctx);
+  // a bridge's diodes and an LED's reverse diode rectify nothing on their own
+  const notHalfWave = new Set([
+    ...bridges.flatMap((b) => b.block.parts),
+    ...reverse.map((r) => r.diode.ref),
+  ]);
+  const halfWaves = findHalfWaveRectifiers(ctx, notHalfWave);
   const rails: RectifierRail[] = [
     ...bridges.map((b) => b.rail),
     ...halfWaves.flatMap((h) => h.rails),
@@ -43,6 +50,7 @@ export function findBlocks(record: TeardownRecord): Block[] {
     ...findBleeders(ctx, droppers),
     ...bridgeBlocks(bridges),
     ...halfWaves.map((h) => h.block),
+    ...reverse.map((r) => r.block),
     ...findSmoothingCapacitors(ctx, rails),
     ...findZenerShuntRegulators(ctx, rails, droppers),
     ...findVoltageDividers(ctx, railNets).map((d) => d.block),

@@ -26,7 +26,8 @@ export function findPulseTransformers(ctx: BlockContext): Block[] {
     const primary = [p1, p2];
     const seriesCaps: PartNode[] = [];
     const farEnds: string[] = [];
-    for (const net of primary)
+    // a primary net that is also the supply carries every other branch's capacitors too
+    for (const net of primary.filter((n) => !ctx.pathNets.has(n)))
       for (const c of partsOnNet(ctx.graph, net)) {
         const far = c.kind === "capacitor" ? otherNet(c, net) : null;
         if (far !== null && !primary.includes(far)) {
@@ -34,7 +35,9 @@ export function findPulseTransformers(ctx: BlockContext): Block[] {
           farEnds.push(far);
         }
       }
-    const switched = new Set([...primary, ...farEnds]);
+    // a switch on a primary net that is also the supply (a triac elsewhere on the neutral)
+    // switches its own branch, not this transformer
+    const switched = new Set([...primary.filter((n) => !ctx.pathNets.has(n)), ...farEnds]);
     const switches = ctx.graph.parts.filter((q) =>
       (MAIN_TERMINALS[q.kind] ?? []).some((role) => switched.has(netOfPin(q, role) ?? "")),
     );

@@ -25,7 +25,7 @@ export function findSurgeLimiters(
       blocks.push(makeBlock("surge-limiter", [v]));
   }
   const dropperChains = new Set(droppers.map((d) => d.chain));
-  for (const chain of ctx.paths.chains) {
+  for (const chain of [...ctx.paths.chains, ...ctx.paths.branches]) {
     const firstCap = chain.steps.findIndex((s) => s.parts.some((p) => p.kind === "capacitor"));
     const feedsRectifier = chain.feedsCircuit && rectifierInputs.has(chain.end);
     chain.steps.forEach((step, i) => {

@@ -3,9 +3,11 @@
  * thyristor or triac gate, a zener, an LED, a load, or a part of a kind the engine does not
  * know (a transistor's base, an IC pin). The midpoint holds exactly those two resistors, their
  * far ends are two different nets, and it is not a supply net or a rectifier output. Two
- * resistors in series with nothing at their midpoint are just a resistor chain.
+ * resistors in series with nothing at their midpoint are just a resistor chain, and a resistor
+ * whose far end meets only capacitors is an RC leg (a snubber, a phase-shift network), which
+ * carries no DC and divides nothing.
  */
-import { otherNet, type PartNode, type PinEdge } from "../graph/circuit-graph.js";
+import { otherNet, partsOnNet, type PartNode, type PinEdge } from "../graph/circuit-graph.js";
 import type { BlockContext } from "./block-context.js";
 import { twoPinPartsOn } from "./block-pattern.js";
 import { makeBlock, type Block } from "./block-types.js";
@@ -31,7 +33,7 @@ export function findVoltageDividers(
   for (const net of ctx.graph.nets) {
     const m = net.name;
     if (ctx.pathNets.has(m) || railNets.has(m)) continue;
-    const resistors = twoPinPartsOn(ctx.graph, m, ["resistor"]);
+    const resistors = twoPinPartsOn(ctx.graph, m, ["resistor"]).filter((r) => !rcLeg(ctx, r, m));
     if (resistors.length !== 2) continue;
     const [r1, r2] = resistors as [PartNode, PartNode];
     if (otherNet(r1, m) === otherNet(r2, m)) continue; // in parallel, not in series
@@ -53,4 +55,12 @@ function drawsOn(ctx: BlockContext, edge: PinEdge): boolean {
   if (!part.known) return true;
   if (FED_KINDS.has(part.kind)) return true;
   return GATED_KINDS.has(part.kind) && edge.role === "gate";
+}
+
+/** True when the resistor's far end from `m` holds nothing but it and capacitors. */
+function rcLeg(ctx: BlockContext, r: PartNode, m: string): boolean {
+  const far = otherNet(r, m);
+  if (far === null) return false;
+  const others = partsOnNet(ctx.graph, far).filter((p) => p !== r && p.simulated);
+  return others.length > 0 && others.every((p) => p.kind === "capacitor");
 }

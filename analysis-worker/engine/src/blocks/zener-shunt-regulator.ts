@@ -69,7 +69,7 @@ function railPairs(
   const { mainsLine, mainsNeutral } = ctx.paths;
   for (const l of mainsLine) for (const n of mainsNeutral) mark(l, n, false);
   const impededEnds = new Set(
-    ctx.paths.chains
+    [...ctx.paths.chains, ...ctx.paths.branches]
       .filter((c) =>
         c.steps.some((s) => s.parts.some((p) => p.kind === "capacitor" || p.kind === "resistor")),
       )
