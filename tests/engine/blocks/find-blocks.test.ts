@@ -63,10 +63,12 @@ const EXPECTED: Record<string, Block[]> = {
     { kind: "bridge-rectifier", parts: BRIDGE },
     { kind: "thyristor-trigger", parts: ["C1", "Q1", "R1", "R2"] },
   ],
-  "resistive-led-indicator": [],
+  // The diode across the LED the other way round protects it; it rectifies nothing.
+  "resistive-led-indicator": [{ kind: "reverse-protection", parts: ["D1", "LED1"] }],
   "capacitive-led-indicator": [
     { kind: "capacitive-dropper", parts: ["C1", "R1"] },
     { kind: "bleeder", parts: ["C1", "R1"] },
+    { kind: "reverse-protection", parts: ["D1", "LED1"] },
   ],
   // Near misses: none of these may show the block it imitates.
   "two-diodes-in-series": [
@@ -163,7 +165,10 @@ describe("findBlocks reads roles, not names", () => {
       ],
       { MAINS_A: { role: "line" }, MAINS_B: { role: "neutral" } },
     );
-    expect(findBlocks(rec)).toEqual([{ kind: "capacitive-dropper", parts: ["X7"] }]);
+    expect(findBlocks(rec)).toEqual([
+      { kind: "capacitive-dropper", parts: ["X7"] },
+      { kind: "reverse-protection", parts: ["Y3", "Y4"] },
+    ]);
   });
 
   it("does not let a lamp across the fused mains hide the dropper behind it", () => {
@@ -181,6 +186,7 @@ describe("findBlocks reads roles, not names", () => {
     expect(findBlocks(rec)).toEqual([
       { kind: "fuse", parts: ["F1"] },
       { kind: "capacitive-dropper", parts: ["C1"] },
+      { kind: "reverse-protection", parts: ["D1", "LED1"] },
     ]);
   });
 
@@ -190,7 +196,8 @@ describe("findBlocks reads roles, not names", () => {
       part("LED1", "led", { anode: "Q", cathode: "B" }),
       part("D1", "diode", { anode: "B", cathode: "Q" }),
     ]);
-    expect(findBlocks(rec)).toEqual([]);
+    // reverse protection needs no supply: it is read off the LED and the diode alone
+    expect(findBlocks(rec)).toEqual([{ kind: "reverse-protection", parts: ["D1", "LED1"] }]);
   });
 
   it("counts a diode string's members once and a bridge's diodes never as half-wave rectifiers", () => {

@@ -174,7 +174,7 @@ export function thyristorRcHeater(): TeardownRecord {
   );
 }
 
-/** A mains LED indicator behind a series resistor with a reverse diode: no block at all. */
+/** A mains LED indicator behind a series resistor with a reverse diode: only its reverse protection. */
 export function resistiveLedIndicator(): TeardownRecord {
   return record(
     [
