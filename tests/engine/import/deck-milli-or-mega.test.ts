@@ -3,13 +3,13 @@
  * Expected readings are the notation's own definition: m = 1e-3, meg = 1e6.
  */
 import { describe, expect, it } from "vitest";
-import { readDeck, type ParseResult, type TeardownRecord } from "@teardown/engine";
+import { readDeck, type InputError, type ParseResult, type TeardownRecord } from "@teardown/engine";
 
-function ok(result: ParseResult): TeardownRecord & { warnings: typeof warnings } {
+/** The record with the reader's warnings beside it. */
+function ok(result: ParseResult): TeardownRecord & { warnings: InputError[] } {
   if (!result.ok) throw new Error(JSON.stringify(result.errors, null, 1));
   return Object.assign(result.record, { warnings: result.warnings });
 }
-const warnings: Array<{ path: string; code: string; line: number | null; message: string }> = [];
 
 const deck = (body: string): string =>
   ["Milli probe", ".supply 230 50", ".line L", ".neutral N", body, ".end"].join("\n");
