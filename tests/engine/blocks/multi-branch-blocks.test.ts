@@ -10,6 +10,7 @@ import { ALL_TEST_CIRCUITS } from "../../support/circuits/all-test-circuits.js";
 import { multiBranchBoard } from "../../support/circuits/multi-branch-board.js";
 import { mergeRecords, mergedNames } from "../../support/circuits/merge-records.js";
 import { part, record } from "../../support/record-factory.js";
+import { namesOf, renameRecord } from "../../support/circuits/rename-record.js";
 
 const key = (b: Block): string => `${b.kind}:${[...b.parts].sort().join(",")}`;
 const keys = (blocks: Block[]): string[] => blocks.map(key).sort();
@@ -36,6 +37,21 @@ describe("the 30-part multi-branch board", () => {
       { kind: "triac-trigger", parts: ["C3", "R5", "R6", "TR1"] },
       { kind: "pulse-transformer", parts: ["C5", "Q1", "T1"] },
     ]);
+  });
+
+  it("gives the same blocks with every ref and net renamed and the parts in reverse or rotated order", () => {
+    const { refs, nets } = namesOf(board);
+    const refOf = (r: string): string => `Z${refs.indexOf(r) * 37}`;
+    const netOf = (n: string): string =>
+      board.nets[n]!.role === null ? `w${nets.indexOf(n) * 11}` : `${n}_mains`;
+    const n = board.parts.length;
+    const orders = [board.parts.map((_, i) => n - 1 - i), board.parts.map((_, i) => (i + 13) % n)];
+    for (const order of orders) {
+      const renamed = renameRecord(board, refOf, netOf, order);
+      expect(keys(findBlocks(renamed))).toEqual(
+        keys(findBlocks(board).map((b) => ({ ...b, parts: b.parts.map(refOf) }))),
+      );
+    }
   });
 
   it("holds every block kind", () => {
