@@ -6,6 +6,7 @@
  */
 import { describe, expect, it } from "vitest";
 import { checkCircuit, parseRecord, type InputError, type ParseResult } from "@teardown/engine";
+import { part, record } from "../../support/record-factory.js";
 
 function errors(result: ParseResult): InputError[] {
   if (result.ok) throw new Error("expected errors");
@@ -127,6 +128,22 @@ describe("implausible values are kept and named", () => {
     expect(r.warnings.map((w) => [w.path, w.code])).toContainEqual([
       "device.rated_supply.hz",
       "implausible-value",
+    ]);
+  });
+});
+
+describe("records built in code, which skip validation", () => {
+  it("get an impossible-value error from the circuit checks for k = 1.5 and a 1e30 F capacitor", () => {
+    const rec = record([
+      part("T1", "transformer", ["L", "N", "S1", "S2"], null, {
+        model: { lp: 10, ratio: 20, k: 1.5 },
+      }),
+      part("C1", "capacitor", ["S1", "S2"], 1e30),
+    ]);
+    const found = checkCircuit(rec).filter((i) => i.code === "impossible-value");
+    expect(found.map((i) => [i.severity, i.parts, i.message.split(":")[0]])).toEqual([
+      ["error", ["C1"], "C1 (parts[1].value)"],
+      ["error", ["T1"], "T1 (parts[0].model.k)"],
     ]);
   });
 });
