@@ -17,8 +17,9 @@
  *   1 pF, a resistor below 1 mΩ, a zener below 1.8 V. A supercapacitor or a current shunt is
  *   real, so the record stands; the warning and the circuit check make sure nobody reads the
  *   figures without seeing it.
- * Signs and zeros of the main value and of ratings are checked where they are read
- * (normalise-part.ts); the bounds here start where those end.
+ * A negative main value or rating, and a zero value of a kind that cannot be zero, are already
+ * refused where they are read (normalise-part.ts); the bounds here add the rest (a rating of 0,
+ * which limits nothing, is refused here). The supply's volts and hertz are only ever named.
  */
 import { formatValue } from "../values/format-value.js";
 import type { Part } from "./types.js";
