@@ -1,8 +1,11 @@
 /**
- * What the risk assessment returns: flags (each with its numbers, its source and a caution) and
- * the measured-versus-predicted comparisons. See shared/record-format.md, section 2.
+ * What the risk assessment returns: flags (each with its labelled numbers, the document it
+ * stands on and a caution), the measured-versus-predicted comparisons, and the defaults the
+ * checks chose where the record was silent.
  */
+import type { Assumption, Evidence } from "../record/gaps-and-assumptions.js";
 import type { MeasurementKind } from "../record/types.js";
+import type { CitationId } from "./citations.js";
 
 /** Every flag code the assessment can raise. */
 export const FLAG_CODES = [
@@ -20,20 +23,11 @@ export const FLAG_CODES = [
   "measurement-mismatch",
   "high-voltage-output",
   "ozone",
+  "implausible-input",
 ] as const;
 export type FlagCode = (typeof FLAG_CODES)[number];
 
 export type FlagSeverity = "danger" | "warning" | "info";
-
-/** Evidence values: plain SI numbers (the unit is in the key name), words, lists, or null when unknown. */
-export type EvidenceValue =
-  | number
-  | string
-  | boolean
-  | null
-  | string[]
-  | number[]
-  | Array<Record<string, number | string | null>>;
 
 /** One risk flag. Flags never claim compliance: they say what to look at. */
 export interface Flag {
@@ -42,8 +36,11 @@ export interface Flag {
   parts: string[];
   nets: string[];
   message: string;
-  evidence: Record<string, EvidenceValue>;
-  /** The standard and clause with its confidence mark (FOUND/MEMORY per reference-values.md), or "common practice". */
+  /** The numbers behind the flag, each labelled with its unit (flags/evidence.ts). */
+  evidence: Evidence[];
+  /** Key of the citations table (flags/citations.ts). */
+  source_id: CitationId;
+  /** The published document the rule comes from, or "common practice" (the table's text). */
   source: string;
   /** One sentence: what the figure does not decide. */
   caution: string;
@@ -73,13 +70,20 @@ export interface RiskOptions {
   budgetMs?: number;
 }
 
-/** The assessment: flags, comparisons, and notes on what was assumed or left out. */
+/** The assessment: flags, comparisons, the defaults it assumed, and notes on checks it could not run. */
 export interface RiskAssessment {
   flags: Flag[];
   comparisons: Comparison[];
+  /** Every default chosen where the record was silent (a rating by package, a tolerance by kind). */
+  assumptions: Assumption[];
+  /** Checks that were skipped or did not apply, and why. */
   notes: string[];
 }
 
 /** The caution every mains flag carries unless a more specific one applies. */
 export const MAINS_CAUTION =
   "An estimate from a traced netlist, not a compliance verdict: mains circuits can kill, and local codes and a qualified person decide.";
+
+// The citations table and the evidence helpers travel with the flag's type.
+export * from "./citations.js";
+export * from "./evidence.js";
