@@ -34,7 +34,11 @@ const voltageFlag = (flags: Flag[]) => flags.find((f) => f.code === "overstress-
 
 describe("resistor limiting element voltage by package, compared with the RMS voltage", () => {
   it("takes 250 V for a 1/4 W carbon-film bleeder on 230 V: a warning at 92 %, not a danger", () => {
-    for (const rating of [{ package: "CFR-25" }, { watts: 0.25 }]) {
+    const ratings: Array<Record<string, string | number>> = [
+      { package: "CFR-25" },
+      { watts: 0.25 },
+    ];
+    for (const rating of ratings) {
       const r = assessed(acrossMains(rating));
       const f = voltageFlag(r.flags)!;
       expect(f.severity).toBe("warning");

@@ -10,7 +10,6 @@ import {
   assessRisks,
   mulberry32,
   riskBudget,
-  solveCircuit,
   toleranceBands,
 } from "@teardown/engine";
 import { part, record } from "../../support/record-factory.js";
