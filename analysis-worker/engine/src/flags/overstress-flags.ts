@@ -21,19 +21,23 @@ export const POWER_WARNING_FRACTION = 0.5;
 
 const SEVERITY_RANK = { danger: 2, warning: 1 } as const;
 
-/** The RMS voltage across a part's first two pins, or null when a net is not solved. */
-function rmsAcross(ctx: RiskContext, p: Part): number | null {
+/** The RMS voltage across a part's first two pins (a resistor's I·R when a net has no waveform), or null. */
+function rmsAcross(ctx: RiskContext, p: Part, currentRms: number): number | null {
   const [a, b] = Object.values(p.pins);
-  if (a === undefined || b === undefined) return null;
-  return voltageBetween(ctx, a, b)?.rms_v ?? null;
+  const between = a !== undefined && b !== undefined ? voltageBetween(ctx, a, b) : null;
+  if (between !== null) return between.rms_v;
+  // Ohm's law holds at every instant across a resistor, so its RMS voltage is I_rms·R.
+  return p.kind === "resistor" && p.value !== null ? currentRms * p.value : null;
 }
 
 function checkWords(c: VoltageCheck): string {
   return `${sig3(c.stress_v)} V ${c.basis} against its ${sig3(c.limit_v)} V ${c.rating} (${sig3((100 * c.stress_v) / c.limit_v)} %)`;
 }
 
-function voltageFlag(ctx: RiskContext, p: Part, peakV: number): Flag | null {
-  const checks = voltageChecks(p, peakV, rmsAcross(ctx, p)).filter((c) => c.limit_v > 0);
+function voltageFlag(ctx: RiskContext, p: Part, peakV: number, currentRms: number): Flag | null {
+  const checks = voltageChecks(p, peakV, rmsAcross(ctx, p, currentRms)).filter(
+    (c) => c.limit_v > 0,
+  );
   // A check that passes stands on its default as much as one that fails: list it either way.
   for (const c of checks) assume(ctx, c.assumption);
   const judged = checks
@@ -57,7 +61,9 @@ function voltageFlag(ctx: RiskContext, p: Part, peakV: number): Flag | null {
     message:
       `${p.ref} sees ${checkWords(worst.c)}: the ${worst.c.basis} voltage is compared because the ${worst.c.rating} is stated on that basis.` +
       others.map((c) => ` It sees ${checkWords(c)}.`).join("") +
-      (assumed ? " The rating is a default for its package, not read from the part." : ""),
+      (assumed
+        ? " The rating is a default for its package or power class, not read from the part."
+        : ""),
     evidence: checks.flatMap((c) => [
       ev(`${c.basis} voltage across the part`, c.stress_v, "V"),
       ev(c.rating, c.limit_v, "V"),
@@ -104,7 +110,7 @@ export function overstressFlags(ctx: RiskContext): Flag[] {
   for (const p of ctx.record.parts) {
     const fig = ctx.analysis.parts[p.ref];
     if (fig === undefined) continue;
-    const v = voltageFlag(ctx, p, fig.voltage_peak);
+    const v = voltageFlag(ctx, p, fig.voltage_peak, fig.current_rms);
     if (v !== null) flags.push(v);
     const w = powerFlag(ctx, p, fig.power);
     if (w !== null) flags.push(w);
