@@ -4,7 +4,7 @@
  */
 import type { Flag } from "./flag-types.js";
 import { cite } from "./citations.js";
-import { ev } from "./evidence.js";
+import { ev } from "./flag-types.js";
 import { galvanicPath } from "./galvanic-paths.js";
 import type { RiskContext } from "./risk-context.js";
 import { sig3, voltageBetween } from "./risk-context.js";

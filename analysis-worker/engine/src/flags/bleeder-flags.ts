@@ -9,7 +9,7 @@
 import type { CircuitAnalysis } from "../solver/analyze-circuit.js";
 import type { Flag } from "./flag-types.js";
 import { cite } from "./citations.js";
-import { ev, evYes } from "./evidence.js";
+import { ev, evYes } from "./flag-types.js";
 import type { RiskContext } from "./risk-context.js";
 import { sig3 } from "./risk-context.js";
 import {

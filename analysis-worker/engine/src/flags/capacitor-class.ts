@@ -7,10 +7,9 @@
 import type { Evidence } from "../record/gaps-and-assumptions.js";
 import type { Part } from "../record/types.js";
 import type { Flag } from "./flag-types.js";
-import { MAINS_CAUTION } from "./flag-types.js";
+import { MAINS_CAUTION, ev } from "./flag-types.js";
 import type { RiskContext } from "./risk-context.js";
 import { cite } from "./citations.js";
-import { ev } from "./evidence.js";
 
 const X_OR_Y = new Set(["X1", "X2", "X3", "Y1", "Y2"]);
 const Y_CLASSES = new Set(["Y1", "Y2", "Y3", "Y4"]);

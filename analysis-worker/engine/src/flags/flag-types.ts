@@ -84,6 +84,38 @@ export interface RiskAssessment {
 export const MAINS_CAUTION =
   "An estimate from a traced netlist, not a compliance verdict: mains circuits can kill, and local codes and a qualified person decide.";
 
-// The citations table and the evidence helpers travel with the flag's type.
+/*
+ * Evidence entries. Values are SI numbers in the unit named ("V", "A", "s", "F", "Ω"), except
+ * spacings in "mm", shares in "%", angles in "°" and concentrations in "ppm", the units the trade
+ * reads them in; words are given with the unit "".
+ */
+
+/** One evidence entry; a non-finite number (no decay, no limit) becomes null, shown as unknown. */
+export function ev(label: string, value: number | string | null, unit = ""): Evidence {
+  return {
+    label,
+    value: typeof value === "number" && !Number.isFinite(value) ? null : value,
+    unit,
+  };
+}
+
+/** A yes/no fact as evidence. */
+export function evYes(label: string, yes: boolean): Evidence {
+  return { label, value: yes ? "yes" : "no", unit: "" };
+}
+
+/** A share (0.92) as a percentage evidence entry (92 %). */
+export function evPercent(label: string, fraction: number): Evidence {
+  return ev(label, 100 * fraction, "%");
+}
+
+/** The value of the evidence entry with this label (undefined when the flag has none). */
+export function evidenceValue(
+  flag: { evidence: readonly Evidence[] },
+  label: string,
+): number | string | null | undefined {
+  return flag.evidence.find((e) => e.label === label)?.value;
+}
+
+// The citations table travels with the flag's type.
 export * from "./citations.js";
-export * from "./evidence.js";

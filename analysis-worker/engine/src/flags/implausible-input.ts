@@ -12,7 +12,7 @@
  */
 import type { Flag } from "./flag-types.js";
 import { cite } from "./citations.js";
-import { ev } from "./evidence.js";
+import { ev } from "./flag-types.js";
 import { powerRating } from "./rating-defaults.js";
 import type { RiskContext } from "./risk-context.js";
 import { assume, sig3 } from "./risk-context.js";

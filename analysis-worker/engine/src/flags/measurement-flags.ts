@@ -11,7 +11,7 @@ import { mismatchHint } from "../figures/measurement-hints.js";
 import type { Flag } from "./flag-types.js";
 import { sig3 } from "./risk-context.js";
 import { cite } from "./citations.js";
-import { ev } from "./evidence.js";
+import { ev } from "./flag-types.js";
 
 /** Parts listed in a hint's ranking at most. */
 const MAX_RANKED_PARTS = 5;

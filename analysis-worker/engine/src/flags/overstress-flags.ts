@@ -7,9 +7,8 @@
  */
 import type { Part } from "../record/types.js";
 import type { Flag } from "./flag-types.js";
-import { MAINS_CAUTION } from "./flag-types.js";
+import { MAINS_CAUTION, ev, evPercent } from "./flag-types.js";
 import { cite } from "./citations.js";
-import { ev, evPercent } from "./evidence.js";
 import { powerRating } from "./rating-defaults.js";
 import type { VoltageCheck } from "./rating-basis.js";
 import { checkSeverity, voltageChecks } from "./rating-basis.js";

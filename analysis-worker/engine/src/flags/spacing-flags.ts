@@ -15,11 +15,10 @@
  */
 import type { Spacing } from "../record/types.js";
 import type { Flag } from "./flag-types.js";
-import { MAINS_CAUTION } from "./flag-types.js";
+import { MAINS_CAUTION, ev, evYes } from "./flag-types.js";
 import type { RiskContext } from "./risk-context.js";
 import type { Evidence } from "../record/gaps-and-assumptions.js";
 import { cite } from "./citations.js";
-import { ev, evYes } from "./evidence.js";
 import { sig3, voltageBetween } from "./risk-context.js";
 import {
   clearanceRequired,

@@ -7,14 +7,13 @@
  *   (supply peak / peak current), i.e. only by parasitic resistance.
  */
 import type { Flag } from "./flag-types.js";
-import { MAINS_CAUTION } from "./flag-types.js";
+import { MAINS_CAUTION, ev } from "./flag-types.js";
 import { safetyClassOf } from "./capacitor-class.js";
 import { diodeSurgeRating } from "./rating-defaults.js";
 import { simulateCrestSwitchOn } from "./plug-in-surge.js";
 import type { RiskContext } from "./risk-context.js";
 import { assume, sig3 } from "./risk-context.js";
 import { cite } from "./citations.js";
-import { ev } from "./evidence.js";
 
 /** A surge limited by less than this (supply peak over peak current) counts as unlimited (common practice). */
 export const MIN_SURGE_LIMIT_OHMS = 10;

@@ -8,7 +8,7 @@ import type { Flag } from "./flag-types.js";
 import type { RiskContext } from "./risk-context.js";
 import { sig3 } from "./risk-context.js";
 import { cite } from "./citations.js";
-import { ev, evPercent } from "./evidence.js";
+import { ev, evPercent } from "./flag-types.js";
 
 /** A lowest firing supply within this fraction below the analysed supply is marginal. */
 export const TRIGGER_SUPPLY_MARGIN_FRACTION = 0.1;
