@@ -1,5 +1,6 @@
 /**
- * IEC 60664-1 spacing figures against reference-values.md §2 (each value's mark beside it).
+ * Spacing figures against IEC 60664-1:2007 (Ed. 2), Tables F.1, F.2 (case A) and F.4, read in
+ * reproductions of the tables (each value's confidence mark beside it).
  */
 import { describe, expect, it } from "vitest";
 import {

@@ -48,42 +48,20 @@ function unitOfMeasurement(what: string): string {
   return "V";
 }
 
-/** Evidence as `key value unit` pairs: numbers rounded, units read from the key's suffix. */
-function evidenceText(evidence: Record<string, unknown>): string {
-  const suffixUnits: Array<[RegExp, string]> = [
-    [/_v$/, "V"],
-    [/_a$/, "A"],
-    [/_w$/, "W"],
-    [/_s$/, "s"],
-    [/_f$/, "F"],
-    [/_ohms$/, "Ω"],
-    [/_mm$/, "mm"],
-    [/_hz$/, "Hz"],
-  ];
-  const show = (key: string, v: unknown): string => {
-    if (typeof v === "number") {
-      const unit = suffixUnits.find(([re]) => re.test(key))?.[1];
-      return unit && unit !== "mm" ? eng(v, unit, 4) : String(Number(v.toPrecision(4)));
-    }
-    if (Array.isArray(v))
-      return `[${v
-        .map((x) =>
-          typeof x === "object" && x !== null
-            ? Object.entries(x)
-                .map(([k, y]) => `${k}=${show(k, y)}`)
-                .join(" ")
-            : show(key, x),
-        )
-        .join("; ")}]`;
-    if (v && typeof v === "object")
-      return Object.entries(v)
-        .map(([k, y]) => `${k}=${show(k, y)}`)
-        .join(" ");
-    return String(v);
-  };
-  return Object.entries(evidence)
-    .map(([k, v]) => `${k}: ${show(k, v)}`)
-    .join(", ");
+/** Units shown with an SI prefix (24.1 mA); the others (%, mm, ppm, none) as plain numbers. */
+const PREFIXED_UNITS = new Set(["V", "A", "W", "VA", "F", "H", "Ω", "s", "Hz", "J"]);
+/** Units written against the number (90°, 2.1×). */
+const ATTACHED_UNITS = new Set(["°", "×"]);
+
+/** One evidence entry as a sentence: "time constant: 2.2 s". */
+export function evidenceSentence(e: { label: string; value: unknown; unit: string }): string {
+  const v = e.value;
+  if (v === null || v === undefined) return `${e.label}: not computed`;
+  if (typeof v !== "number") return `${e.label}: ${String(v)}`;
+  if (PREFIXED_UNITS.has(e.unit)) return `${e.label}: ${eng(v, e.unit)}`;
+  const n = Number(v.toPrecision(3));
+  if (ATTACHED_UNITS.has(e.unit)) return `${e.label}: ${n}${e.unit}`;
+  return `${e.label}: ${n}${e.unit ? ` ${e.unit}` : ""}`;
 }
 
 /** The whole readable report for one analysed record. */
@@ -205,7 +183,7 @@ export function readableReport(record: TeardownRecord, result: Result): string {
           code: string;
           severity: string;
           message: string;
-          evidence: Record<string, unknown>;
+          evidence: unknown;
           source: string;
           parts: string[];
           nets: string[];
@@ -218,7 +196,12 @@ export function readableReport(record: TeardownRecord, result: Result): string {
       out.push(`  [${f.severity.toUpperCase()}] ${f.code}: ${f.message}`);
       const where = [...f.parts, ...f.nets];
       if (where.length) out.push(`      concerns: ${where.join(", ")}`);
-      out.push(`      evidence: ${evidenceText(f.evidence)}`, `      source: ${f.source}`);
+      // Older stored results kept evidence as raw keys; they are not guessed at.
+      if (Array.isArray(f.evidence))
+        for (const e of f.evidence as Array<{ label: string; value: unknown; unit: string }>)
+          out.push(`      ${evidenceSentence(e)}.`);
+      else out.push("      evidence: in an older format, re-analyse to see it");
+      out.push(`      source: ${f.source}`);
     }
     out.push("");
   }

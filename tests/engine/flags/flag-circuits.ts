@@ -2,8 +2,8 @@
  * Small mains circuits for the flag tests, each with a knob that turns one flag on or off, and a
  * helper that solves a record and assesses it with a small Monte Carlo (fast tests).
  */
-import type { Part, RiskAssessment, TeardownRecord } from "@teardown/engine";
-import { analyzeCircuit, assessRisks } from "@teardown/engine";
+import type { Flag, Part, RiskAssessment, TeardownRecord } from "@teardown/engine";
+import { analyzeCircuit, assessRisks, evidenceValue } from "@teardown/engine";
 import { part, record } from "../../support/record-factory.js";
 
 /** Solves the record at its rated supply and runs the assessment (throws on a solver failure: a test bug). */
@@ -11,6 +11,20 @@ export function assess(rec: TeardownRecord, samples = 8): RiskAssessment {
   const a = analyzeCircuit(rec, {});
   if (!a.ok) throw new Error(`solver failed: ${a.error.code} ${a.error.message}`);
   return assessRisks(rec, a.value, { samples, seed: 7 });
+}
+
+/** A flag's numeric evidence by label (throws when missing or not a number: the test names a label the flag lacks). */
+export function evNum(f: Flag, label: string): number {
+  const v = evidenceValue(f, label);
+  if (typeof v !== "number") throw new Error(`${f.code} has no numeric evidence "${label}"`);
+  return v;
+}
+
+/** A flag's word evidence by label (throws when missing). */
+export function evText(f: Flag, label: string): string {
+  const v = evidenceValue(f, label);
+  if (typeof v !== "string") throw new Error(`${f.code} has no word evidence "${label}"`);
+  return v;
 }
 
 /** The codes of the flags, for readable assertions. */

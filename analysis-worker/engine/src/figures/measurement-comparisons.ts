@@ -1,9 +1,10 @@
 /**
  * Measured against predicted: each measurement's figure computed from a solved steady cycle
- * (record-format.md measurement kinds), its predicted band over the parts' tolerances at the
+ * (the record's measurement kinds), its predicted band over the parts' tolerances at the
  * measurement's own supply (tolerance-bands.ts), widened by the measurement's stated
  * uncertainty, and the verdict: inside the band agrees, outside disagrees.
  */
+import type { Assumption } from "../record/gaps-and-assumptions.js";
 import type { Measurement, Supply, TeardownRecord } from "../record/types.js";
 import type { SolvedCircuit } from "../solver/analyze-circuit.js";
 import type { Budget } from "../solver/transient.js";
@@ -96,8 +97,9 @@ function sameSupply(a: Supply, b: Supply): boolean {
 export function compareMeasurements(
   rec: TeardownRecord,
   opts: CompareOptions,
-): { checks: MeasurementCheck[]; notes: string[] } {
+): { checks: MeasurementCheck[]; assumptions: Assumption[]; notes: string[] } {
   const notes: string[] = [];
+  const assumptions: Assumption[] = [];
   const checks: MeasurementCheck[] = [];
   const groups: Array<{ supply: Supply; members: number[] }> = [];
   rec.measurements.forEach((m, i) => {
@@ -116,6 +118,8 @@ export function compareMeasurements(
       nominal: reuse,
     });
     notes.push(...bands.notes);
+    for (const a of bands.assumptions)
+      if (!assumptions.some((x) => x.part === a.part && x.field === a.field)) assumptions.push(a);
     const nominal = bands.nominalSolve;
     if (nominal === null) continue;
     g.members.forEach((i, k) => {
@@ -154,5 +158,5 @@ export function compareMeasurements(
     });
   }
   checks.sort((a, b) => a.comparison.measurement - b.comparison.measurement);
-  return { checks, notes };
+  return { checks, assumptions, notes };
 }

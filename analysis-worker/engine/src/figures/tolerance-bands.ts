@@ -5,6 +5,7 @@
  * and the band is the range of the samples together with the nominal. Parts without a stated
  * tolerance get a default by kind, reported as an assumption. Same record and seed, same band.
  */
+import type { Assumption } from "../record/gaps-and-assumptions.js";
 import type { Part, Supply, TeardownRecord } from "../record/types.js";
 import type { SolvedCircuit } from "../solver/analyze-circuit.js";
 import type { Budget } from "../solver/transient.js";
@@ -34,30 +35,35 @@ export const DEFAULT_TOLERANCES = {
   load: 0.1,
 } as const;
 
-/** A part's tolerance: the record's, else the default for its kind (with the assumption's wording), else null. */
-export function toleranceOf(p: Part): { tolerance: number; assumed: string | null } | null {
+/** A part's tolerance: the record's, else the default for its kind (with the assumption naming it), else null. */
+export function toleranceOf(p: Part): { tolerance: number; assumed: Assumption | null } | null {
   if (partValueOf(p) === null) return null;
   if (p.tolerance !== null) return { tolerance: p.tolerance, assumed: null };
   const d = DEFAULT_TOLERANCES;
   const pick = (t: number, what: string) => ({
     tolerance: t,
-    assumed: `${p.ref}: tolerance ±${Math.round(t * 100)} % assumed (${what})`,
+    assumed: {
+      part: p.ref,
+      field: "tolerance",
+      value: t,
+      why: `±${Math.round(t * 100)} % for a ${what}`,
+    },
   });
   switch (p.kind) {
     case "resistor":
-      return pick(d.resistor, "resistor, common practice");
+      return pick(d.resistor, "resistor (common practice)");
     case "capacitor":
       return p.polarised
-        ? pick(d.electrolytic, "electrolytic, common practice")
-        : pick(d.filmCapacitor, "film capacitor, common practice");
+        ? pick(d.electrolytic, "electrolytic capacitor (common practice)")
+        : pick(d.filmCapacitor, "film capacitor (common practice)");
     case "inductor":
-      return pick(d.inductor, "inductor, common practice");
+      return pick(d.inductor, "inductor (common practice)");
     case "zener":
-      return pick(d.zener, "zener voltage, common practice");
+      return pick(d.zener, "zener's voltage (common practice)");
     case "varistor":
-      return pick(d.varistor, "varistor voltage, common practice");
+      return pick(d.varistor, "varistor's voltage (common practice)");
     case "load":
-      return pick(d.load, "load, our assumption");
+      return pick(d.load, "load (our own assumption; loads state none)");
     default:
       return null;
   }
@@ -75,6 +81,9 @@ export interface BandResult {
   figures: Array<FigureBand | null>;
   samplesUsed: number;
   nominalSolve: SolvedCircuit | null;
+  /** The tolerances assumed by kind where the record states none. */
+  assumptions: Assumption[];
+  /** What cut the run short or was left out. */
   notes: string[];
 }
 
@@ -104,7 +113,13 @@ export function toleranceBands(
       notes.push(
         `bands at ${supply.vrms} V / ${supply.hz} Hz: the nominal solve failed (${s.error.code}: ${s.error.message})`,
       );
-      return { figures: figures.map(() => null), samplesUsed: 0, nominalSolve: null, notes };
+      return {
+        figures: figures.map(() => null),
+        samplesUsed: 0,
+        nominalSolve: null,
+        assumptions: [],
+        notes,
+      };
     }
     nominal = s.value;
   }
@@ -114,7 +129,7 @@ export function toleranceBands(
   const varied = rec.parts
     .map((p) => ({ p, tol: toleranceOf(p), v: partValueOf(p) }))
     .filter((x) => x.tol !== null && x.v !== null && x.tol.tolerance > 0);
-  for (const x of varied) if (x.tol!.assumed) notes.push(x.tol!.assumed);
+  const assumptions = varied.flatMap((x) => (x.tol!.assumed ? [x.tol!.assumed] : []));
   const random = mulberry32(opts.seed);
   const widen = opts.widen ?? 1;
   let used = 0;
@@ -159,6 +174,7 @@ export function toleranceBands(
     ),
     samplesUsed: used,
     nominalSolve: nominal,
+    assumptions,
     notes,
   };
 }

@@ -3,12 +3,11 @@
  * evidence is the lowest-resistance path and the peak voltage the solver finds on the net.
  */
 import type { Flag } from "./flag-types.js";
+import { cite } from "./citations.js";
+import { ev } from "./flag-types.js";
 import { galvanicPath } from "./galvanic-paths.js";
 import type { RiskContext } from "./risk-context.js";
 import { sig3, voltageBetween } from "./risk-context.js";
-
-const SOURCE =
-  "IEC 60335-1, 8.1 (protection against access to live parts; 8.1.4 protective impedance: ≤ 0.7 mA peak a.c., FOUND per reference-values.md §1a)";
 
 /** One danger flag per accessible net that conducts to line or neutral. */
 export function accessibleMainsFlags(ctx: RiskContext): Flag[] {
@@ -33,15 +32,16 @@ export function accessibleMainsFlags(ctx: RiskContext): Flag[] {
           ? `; the solver finds ${sig3(peak)} V peak on it against the reference`
           : "") +
         ". Neutral is no protection: plugs reverse and neutrals break.",
-      evidence: {
-        path: path.steps,
-        path_resistance_ohms: path.ohms,
-        peak_v_to_reference: peak,
-        reference_net: ctx.solved?.circuit.reference ?? null,
-        peak_v_to_earth: toEarth?.peak_v ?? null,
-        supply_peak_v: ctx.analysis.supply.vrms * Math.SQRT2,
-      },
-      source: SOURCE,
+      evidence: [
+        ev("conducting path", path.steps.join(" – "), ""),
+        ev("resistance of the path", path.ohms, "Ω"),
+        ev(`peak voltage against ${ctx.solved?.circuit.reference ?? "the reference"}`, peak, "V"),
+        ...(earth !== undefined
+          ? [ev(`peak voltage against ${earth}`, toEarth?.peak_v ?? null, "V")]
+          : []),
+        ev("supply peak voltage", ctx.analysis.supply.vrms * Math.SQRT2, "V"),
+      ],
+      ...cite("iec-60335-1-access"),
       caution:
         "Treat the net as live at full mains voltage until a qualified person has checked the enclosure and the insulation.",
     });

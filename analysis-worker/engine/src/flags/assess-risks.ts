@@ -16,7 +16,8 @@ import { capacitorClassFlags } from "./capacitor-class.js";
 import { domainNotes } from "./domain-notes.js";
 import { measurementFlags } from "./measurement-flags.js";
 import { overstressFlags } from "./overstress-flags.js";
-import { riskContext } from "./risk-context.js";
+import { implausibleInputFlags } from "./implausible-input.js";
+import { assume, riskContext } from "./risk-context.js";
 import { spacingFlags } from "./spacing-flags.js";
 import { fuseFlags, surgeFlags } from "./supply-protection.js";
 import { triggerFlags } from "./trigger-flags.js";
@@ -65,10 +66,13 @@ export function assessRisks(
     reuse: ctx.solved ? { supply: analysis.supply, solved: ctx.solved } : null,
   });
   ctx.notes.push(...compared.notes);
+  for (const a of compared.assumptions) assume(ctx, a);
   flags.push(...measurementFlags(record, compared.checks, budget));
+  flags.push(...implausibleInputFlags(ctx));
   return {
     flags: flags.sort(compareFlags),
     comparisons: compared.checks.map((c) => c.comparison),
+    assumptions: ctx.assumptions,
     notes: [...new Set(ctx.notes)],
   };
 }

@@ -3,10 +3,13 @@
  * The capacitance the pins present is read off the steady cycle (the part of the line current's
  * fundamental that leads the supply by 90°, divided by ωV̂); above 0.1 µF the unplugging is
  * simulated at both supply peaks and the worse one is judged against 34 V at 1 s (IEC 60335-1
- * 22.5) and τ ≤ 1 s (IEC 60950-1 2.1.1.7, type A).
+ * 22.5) and τ ≤ 1 s (IEC 60950-1 2.1.1.7, type A). A pin capacitance at or below 0.1 µF is noted
+ * as "rule does not apply".
  */
 import type { CircuitAnalysis } from "../solver/analyze-circuit.js";
 import type { Flag } from "./flag-types.js";
+import { cite } from "./citations.js";
+import { ev, evYes } from "./flag-types.js";
 import type { RiskContext } from "./risk-context.js";
 import { sig3 } from "./risk-context.js";
 import {
@@ -19,9 +22,6 @@ import {
   maxTimeConstantFor,
 } from "./discharge-rules.js";
 import { simulateUnplug } from "./discharge-after-unplug.js";
-
-const SOURCE =
-  "IEC 60335-1, 22.5 (34 V at 1 s after unplugging at the peak, capacitance > 0.1 µF; FOUND) and IEC 60950-1, 2.1.1.7 (τ ≤ 1 s, pluggable type A; FOUND), per reference-values.md §1";
 
 /** The capacitance the plug pins present at the supply frequency (0 for a resistive or inductive input). */
 export function pinCapacitance(analysis: CircuitAnalysis): number {
@@ -79,6 +79,7 @@ export function bleederFlags(ctx: RiskContext): Flag[] {
   if (!missing && !verdict.exceeds_pin_limit && !verdict.exceeds_type_a_tau) return [];
   const parts = supplyCapacitors(ctx);
   const tauText = Number.isFinite(worst.tau_s) ? `${sig3(worst.tau_s)} s` : "no decay";
+  const tauMax = maxTimeConstantFor(Math.abs(worst.v0_v), PIN_VOLTAGE_LIMIT_V, PIN_VOLTAGE_DELAY_S);
   return [
     {
       code: missing ? "bleeder-missing" : "bleeder-slow",
@@ -88,28 +89,22 @@ export function bleederFlags(ctx: RiskContext): Flag[] {
       message: missing
         ? `Nothing discharges the ${sig3(cPins * 1e6)} µF the plug pins present: unplugged at the ${worst.instant}, they still hold ${sig3(Math.abs(worst.v_after_v))} V after 1 s.`
         : `The discharge is slow: unplugged at the ${worst.instant}, the pins hold ${sig3(Math.abs(worst.v_after_v))} V after 1 s (limit ${PIN_VOLTAGE_LIMIT_V} V), equivalent time constant ${tauText} (limit ${TYPE_A_MAX_TIME_CONSTANT_S} s).`,
-      evidence: {
-        capacitance_at_pins_f: cPins,
-        capacitance_threshold_f: DISCHARGE_CAPACITANCE_THRESHOLD_F,
-        unplugged_at: worst.instant,
-        v_at_unplug_v: worst.v0_v,
-        v_after_delay_v: Math.abs(worst.v_after_v),
-        delay_s: worst.delay_s,
-        limit_v: PIN_VOLTAGE_LIMIT_V,
-        tau_s: Number.isFinite(worst.tau_s) ? worst.tau_s : null,
-        tau_limit_s: TYPE_A_MAX_TIME_CONSTANT_S,
-        tau_max_for_limit_v_s: maxTimeConstantFor(
-          Math.abs(worst.v0_v),
-          PIN_VOLTAGE_LIMIT_V,
-          PIN_VOLTAGE_DELAY_S,
-        ),
-        bleeder_max_ohms:
-          maxTimeConstantFor(Math.abs(worst.v0_v), PIN_VOLTAGE_LIMIT_V, PIN_VOLTAGE_DELAY_S) /
-          cPins,
-        exceeds_pin_limit: verdict.exceeds_pin_limit,
-        exceeds_tau_limit: verdict.exceeds_type_a_tau,
-      },
-      source: SOURCE,
+      evidence: [
+        ev("capacitance at the plug pins", cPins, "F"),
+        ev("capacitance above which the rule applies", DISCHARGE_CAPACITANCE_THRESHOLD_F, "F"),
+        ev("unplugged at", `the ${worst.instant}`, ""),
+        ev("pin voltage when unplugged", Math.abs(worst.v0_v), "V"),
+        ev("pin voltage after the delay", Math.abs(worst.v_after_v), "V"),
+        ev("delay", worst.delay_s, "s"),
+        ev("pin voltage limit after the delay", PIN_VOLTAGE_LIMIT_V, "V"),
+        ev("equivalent time constant", worst.tau_s, "s"),
+        ev("time constant limit", TYPE_A_MAX_TIME_CONSTANT_S, "s"),
+        ev("largest time constant that meets the voltage limit", tauMax, "s"),
+        ev("largest bleeder resistance that meets the voltage limit", tauMax / cPins, "Ω"),
+        evYes("pin voltage above its limit", verdict.exceeds_pin_limit),
+        evYes("time constant above its limit", verdict.exceeds_type_a_tau),
+      ],
+      ...cite("capacitor-discharge"),
       caution:
         "Capacitors stay charged: treat the pins and the board as live after unplugging until they are measured discharged.",
     },

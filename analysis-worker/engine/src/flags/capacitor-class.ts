@@ -1,21 +1,18 @@
 /**
  * capacitor-class: a capacitor in series with the supply (a dropper) or straight across it
  * without an X rating (X1/X2/X3; a Y1/Y2 part may stand in), and a capacitor that bridges from
- * a mains-connected net to a touchable one without a Y rating (IEC 60384-14 subclasses,
- * reference-values.md §7). The class is the record's rating.class, else a class printed in
+ * a mains-connected net to a touchable one without a Y rating (IEC 60384-14 subclasses). The class is the record's rating.class, else a class printed in
  * the marking ("334K 310V~ X2").
  */
+import type { Evidence } from "../record/gaps-and-assumptions.js";
 import type { Part } from "../record/types.js";
 import type { Flag } from "./flag-types.js";
-import { MAINS_CAUTION } from "./flag-types.js";
+import { MAINS_CAUTION, ev } from "./flag-types.js";
 import type { RiskContext } from "./risk-context.js";
+import { cite } from "./citations.js";
 
 const X_OR_Y = new Set(["X1", "X2", "X3", "Y1", "Y2"]);
 const Y_CLASSES = new Set(["Y1", "Y2", "Y3", "Y4"]);
-const SOURCE_X =
-  "IEC 60384-14 subclasses X1/X2/X3 (FOUND, reference-values.md §7); a dropper in series with the mains: common practice is a series-rated THB X2 part (Würth Elektronik, FOUND)";
-const SOURCE_Y =
-  "IEC 60384-14 subclasses Y1-Y4 (FOUND, reference-values.md §7): Y capacitors bridge basic or reinforced insulation";
 
 /** The safety class of a capacitor (upper case), from its rating or its marking, with where it was read. */
 export function safetyClassOf(p: Part): { cls: string; from: "rating" | "marking" } | null {
@@ -28,6 +25,20 @@ export function safetyClassOf(p: Part): { cls: string; from: "rating" | "marking
 function pinPair(p: Part): [string, string] | null {
   const [a, b] = Object.values(p.pins);
   return a !== undefined && b !== undefined && a !== b ? [a, b] : null;
+}
+
+function classEvidence(
+  position: string,
+  cls: { cls: string; from: "rating" | "marking" } | null,
+  accepted: ReadonlySet<string>,
+  farads: number | null,
+): Evidence[] {
+  return [
+    ev("position", position, ""),
+    ev("safety class found", cls === null ? "none" : `${cls.cls} (read from the ${cls.from})`, ""),
+    ev("classes accepted there", [...accepted].join(", "), ""),
+    ev("capacitance", farads, "F"),
+  ];
 }
 
 /** The capacitor-class flags of a record. */
@@ -59,14 +70,8 @@ export function capacitorClassFlags(ctx: RiskContext): Flag[] {
         parts: [p.ref],
         nets: [a, b],
         message: `${p.ref} sits ${role} with ${cls ? `class ${cls.cls}` : "no safety class"}; it needs an X rating (a Y1/Y2 part may stand in).`,
-        evidence: {
-          position: role,
-          class_found: cls?.cls ?? null,
-          class_read_from: cls?.from ?? null,
-          classes_accepted: [...X_OR_Y],
-          capacitance_f: p.value,
-        },
-        source: SOURCE_X,
+        evidence: classEvidence(role, cls, X_OR_Y, p.value),
+        ...cite("iec-60384-14-x"),
         caution: MAINS_CAUTION,
       });
     }
@@ -81,14 +86,8 @@ export function capacitorClassFlags(ctx: RiskContext): Flag[] {
         parts: [p.ref],
         nets: [a, b],
         message: `${p.ref} bridges from the mains to a touchable net with ${cls ? `class ${cls.cls}` : "no safety class"}; a capacitor there needs a Y rating.`,
-        evidence: {
-          position: "bridging to a touchable net",
-          class_found: cls?.cls ?? null,
-          class_read_from: cls?.from ?? null,
-          classes_accepted: [...Y_CLASSES],
-          capacitance_f: p.value,
-        },
-        source: SOURCE_Y,
+        evidence: classEvidence("bridging to a touchable net", cls, Y_CLASSES, p.value),
+        ...cite("iec-60384-14-y"),
         caution:
           "A failed bridging capacitor puts mains on the touchable side: treat it as live until a qualified person has checked it.",
       });

@@ -1,6 +1,6 @@
 /**
  * The capacitor-discharge rules for plug pins after unplugging, and the closed-form RC decay
- * they are checked against (reference-values.md §1):
+ * they are checked against:
  * - IEC 60335-1, 22.5: disconnected at the voltage peak, the pins must be at ≤ 34 V 1 s later,
  *   for an appliance whose capacitance exceeds 0.1 µF (FOUND, forum quote of the test text).
  * - IEC 60950-1, 2.1.1.7: a capacitor > 0.1 µF on the mains side needs a discharge time constant

@@ -2,9 +2,12 @@
  * Information flags of the trade: a high-voltage output (a net above 1 kV peak), and ozone,
  * where the record's category or tags name an ionizer, ozone or air cleaner, or a high-voltage
  * net drives a discharge load (a load modelled as a capacitance). The ozone note carries the
- * commonly cited exposure limits with their sources (reference-values.md §9).
+ * commonly cited exposure limits with their sources (OSHA, NIOSH, FDA, CARB, ACGIH values FOUND
+ * in copies of the agency pages; IEC 60335-2-65 clause 32 MEMORY).
  */
 import type { Flag } from "./flag-types.js";
+import { cite } from "./citations.js";
+import { ev, evYes } from "./flag-types.js";
 import type { RiskContext } from "./risk-context.js";
 import { sig3 } from "./risk-context.js";
 
@@ -12,18 +15,14 @@ import { sig3 } from "./risk-context.js";
 export const HIGH_VOLTAGE_PEAK_V = 1000;
 const OZONE_WORDS = /ioni[sz]er|ozone|air (purifier|cleaner)|plasma/i;
 
-/** Commonly cited ozone limits, with their marks. */
-export const OZONE_LIMITS: ReadonlyArray<{ limit: string; ppm: number; source: string }> = [
-  { limit: "OSHA PEL, 8-h TWA (29 CFR 1910.1000 Table Z-1)", ppm: 0.1, source: "FOUND" },
-  { limit: "NIOSH REL, ceiling", ppm: 0.1, source: "FOUND" },
-  { limit: "FDA 21 CFR 801.415, devices that generate ozone", ppm: 0.05, source: "FOUND" },
-  {
-    limit: "California CARB indoor air cleaners (17 CCR 94800 ff.), UL 867 test",
-    ppm: 0.05,
-    source: "FOUND",
-  },
-  { limit: "ACGIH TLV, heavy work", ppm: 0.05, source: "FOUND" },
-  { limit: "IEC 60335-2-65, clause 32", ppm: 0.05, source: "MEMORY" },
+/** Commonly cited ozone limits (the first five FOUND, the IEC clause MEMORY). */
+export const OZONE_LIMITS: ReadonlyArray<{ limit: string; ppm: number }> = [
+  { limit: "OSHA PEL, 8-h TWA (29 CFR 1910.1000 Table Z-1)", ppm: 0.1 },
+  { limit: "NIOSH REL, ceiling", ppm: 0.1 },
+  { limit: "FDA 21 CFR 801.415, devices that generate ozone", ppm: 0.05 },
+  { limit: "California CARB indoor air cleaners (17 CCR 94800 ff.), UL 867 test", ppm: 0.05 },
+  { limit: "ACGIH TLV, heavy work", ppm: 0.05 },
+  { limit: "IEC 60335-2-65, clause 32", ppm: 0.05 },
 ];
 
 /** The high-voltage and ozone notes. */
@@ -42,8 +41,12 @@ export function domainNotes(ctx: RiskContext): Flag[] {
       parts: [],
       nets: [net],
       message: `${net}${isOutput ? " (an output)" : ""} reaches ${sig3(peak)} V peak.`,
-      evidence: { peak_v: peak, threshold_v: HIGH_VOLTAGE_PEAK_V, output: isOutput },
-      source: "common practice",
+      evidence: [
+        ev("peak voltage", peak, "V"),
+        ev("high-voltage threshold", HIGH_VOLTAGE_PEAK_V, "V"),
+        evYes("declared an output", isOutput),
+      ],
+      ...cite("common-practice"),
       caution:
         "High voltage can arc across gaps and through skin; discharge it before touching and keep clear while powered.",
     });
@@ -72,13 +75,16 @@ export function domainNotes(ctx: RiskContext): Flag[] {
         "; corona makes ozone. Commonly cited limits: " +
         OZONE_LIMITS.map((l) => `${l.limit} ${l.ppm} ppm`).join("; ") +
         ".",
-      evidence: {
-        described_as_ozone_device: byWords,
-        discharge_loads: discharge.map((p) => p.ref),
-        limits: OZONE_LIMITS.map((l) => ({ limit: l.limit, ppm: l.ppm, mark: l.source })),
-      },
-      source:
-        "reference-values.md §9: OSHA PEL and NIOSH REL 0.1 ppm (FOUND), FDA 21 CFR 801.415 0.05 ppm (FOUND), CARB 0.050 ppm (FOUND), IEC 60335-2-65 (MEMORY)",
+      evidence: [
+        evYes("described as an ozone-making device", byWords),
+        ev(
+          "discharge loads",
+          discharge.length ? discharge.map((p) => p.ref).join(", ") : "none",
+          "",
+        ),
+        ...OZONE_LIMITS.map((l) => ev(l.limit, l.ppm, "ppm")),
+      ],
+      ...cite("ozone-limits"),
       caution:
         "Ozone irritates lungs at low concentrations: run the device only in a ventilated space and measure, do not estimate, the concentration.",
     });

@@ -1,8 +1,11 @@
 /**
- * What the risk assessment returns: flags (each with its numbers, its source and a caution) and
- * the measured-versus-predicted comparisons. See shared/record-format.md, section 2.
+ * What the risk assessment returns: flags (each with its labelled numbers, the document it
+ * stands on and a caution), the measured-versus-predicted comparisons, and the defaults the
+ * checks chose where the record was silent.
  */
+import type { Assumption, Evidence } from "../record/gaps-and-assumptions.js";
 import type { MeasurementKind } from "../record/types.js";
+import type { CitationId } from "./citations.js";
 
 /** Every flag code the assessment can raise. */
 export const FLAG_CODES = [
@@ -20,20 +23,11 @@ export const FLAG_CODES = [
   "measurement-mismatch",
   "high-voltage-output",
   "ozone",
+  "implausible-input",
 ] as const;
 export type FlagCode = (typeof FLAG_CODES)[number];
 
 export type FlagSeverity = "danger" | "warning" | "info";
-
-/** Evidence values: plain SI numbers (the unit is in the key name), words, lists, or null when unknown. */
-export type EvidenceValue =
-  | number
-  | string
-  | boolean
-  | null
-  | string[]
-  | number[]
-  | Array<Record<string, number | string | null>>;
 
 /** One risk flag. Flags never claim compliance: they say what to look at. */
 export interface Flag {
@@ -42,8 +36,11 @@ export interface Flag {
   parts: string[];
   nets: string[];
   message: string;
-  evidence: Record<string, EvidenceValue>;
-  /** The standard and clause with its confidence mark (FOUND/MEMORY per reference-values.md), or "common practice". */
+  /** The numbers behind the flag, each labelled with its unit (flags/evidence.ts). */
+  evidence: Evidence[];
+  /** Key of the citations table (flags/citations.ts). */
+  source_id: CitationId;
+  /** The published document the rule comes from, or "common practice" (the table's text). */
   source: string;
   /** One sentence: what the figure does not decide. */
   caution: string;
@@ -73,13 +70,52 @@ export interface RiskOptions {
   budgetMs?: number;
 }
 
-/** The assessment: flags, comparisons, and notes on what was assumed or left out. */
+/** The assessment: flags, comparisons, the defaults it assumed, and notes on checks it could not run. */
 export interface RiskAssessment {
   flags: Flag[];
   comparisons: Comparison[];
+  /** Every default chosen where the record was silent (a rating by package, a tolerance by kind). */
+  assumptions: Assumption[];
+  /** Checks that were skipped or did not apply, and why. */
   notes: string[];
 }
 
 /** The caution every mains flag carries unless a more specific one applies. */
 export const MAINS_CAUTION =
   "An estimate from a traced netlist, not a compliance verdict: mains circuits can kill, and local codes and a qualified person decide.";
+
+/*
+ * Evidence entries. Values are SI numbers in the unit named ("V", "A", "s", "F", "Ω"), except
+ * spacings in "mm", shares in "%", angles in "°" and concentrations in "ppm", the units the trade
+ * reads them in; words are given with the unit "".
+ */
+
+/** One evidence entry; a non-finite number (no decay, no limit) becomes null, shown as unknown. */
+export function ev(label: string, value: number | string | null, unit = ""): Evidence {
+  return {
+    label,
+    value: typeof value === "number" && !Number.isFinite(value) ? null : value,
+    unit,
+  };
+}
+
+/** A yes/no fact as evidence. */
+export function evYes(label: string, yes: boolean): Evidence {
+  return { label, value: yes ? "yes" : "no", unit: "" };
+}
+
+/** A share (0.92) as a percentage evidence entry (92 %). */
+export function evPercent(label: string, fraction: number): Evidence {
+  return ev(label, 100 * fraction, "%");
+}
+
+/** The value of the evidence entry with this label (undefined when the flag has none). */
+export function evidenceValue(
+  flag: { evidence: readonly Evidence[] },
+  label: string,
+): number | string | null | undefined {
+  return flag.evidence.find((e) => e.label === label)?.value;
+}
+
+// The citations table travels with the flag's type.
+export * from "./citations.js";

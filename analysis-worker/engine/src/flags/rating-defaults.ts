@@ -1,118 +1,138 @@
 /**
- * Ratings used when a record gives none (reference-values.md §8): a resistor's limiting element
- * voltage and power by package or power class, and a 1 A silicon rectifier's surge current.
- * Every value used is named in the flag's evidence with its mark, so a reader sees the guess.
+ * Ratings used when a record gives none: a resistor's limiting element voltage, overload voltage
+ * and power by package or power class, and a 1 A silicon rectifier's surge current. Each default
+ * comes back with the assumption that names it, so the result lists what the checks stood on.
+ *
+ * Values from the Yageo CFR (carbon film) and RC (thick-film chip) datasheet tables, FOUND in
+ * vendor copies; the 0603 row is the older, lower 50 V (75 V in newer sheets, MEMORY). Both
+ * families state the limiting element voltage as "DC or AC RMS" and the overload voltage as a
+ * short-time (5 s) figure, which is why the checks compare them with RMS and peak respectively.
  */
+import type { Assumption } from "../record/gaps-and-assumptions.js";
 import type { Part } from "../record/types.js";
 
-/** A default rating with where it comes from. */
-export interface DefaultRating {
-  value: number;
-  source: string;
+/** One package's row: limiting element voltage (V, DC or AC RMS), overload voltage (V), power (W). */
+interface ResistorRow {
+  volts: number;
+  overloadVolts: number;
+  watts: number;
+  family: string;
 }
 
-const YAGEO_CFR = "Yageo CFR datasheet (FOUND, reference-values.md §8)";
-const YAGEO_RC = "Yageo RC chip datasheet (FOUND, reference-values.md §8)";
+const CFR = "carbon-film resistor datasheet table (Yageo CFR series)";
+const RC = "thick-film chip resistor datasheet table (Yageo RC series)";
 
-/** Limiting element voltage (max working voltage) by package or power class. */
-const RESISTOR_VOLTS_BY_PACKAGE: Record<string, DefaultRating> = {
-  "CFR-25": { value: 250, source: YAGEO_CFR },
-  CFR25S: { value: 200, source: YAGEO_CFR },
-  "CFR-12": { value: 150, source: YAGEO_CFR },
-  "CFR-50": { value: 350, source: YAGEO_CFR },
-  "0201": { value: 25, source: YAGEO_RC },
-  "0402": { value: 50, source: YAGEO_RC },
-  // 75 V in newer sheets (MEMORY, vendor-dependent); the conservative 50 V is FOUND.
-  "0603": { value: 50, source: YAGEO_RC },
-  "0805": { value: 150, source: YAGEO_RC },
-  "1206": { value: 200, source: YAGEO_RC },
-  "1210": { value: 200, source: YAGEO_RC },
-  "2010": { value: 200, source: YAGEO_RC },
-  "2512": { value: 200, source: YAGEO_RC },
-};
-
-/** Rated power by package (the power column of the same tables). */
-const RESISTOR_WATTS_BY_PACKAGE: Record<string, DefaultRating> = {
-  "CFR-25": { value: 0.25, source: YAGEO_CFR },
-  CFR25S: { value: 0.25, source: YAGEO_CFR },
-  "CFR-12": { value: 1 / 6, source: YAGEO_CFR },
-  "CFR-50": { value: 0.5, source: YAGEO_CFR },
-  "0201": { value: 1 / 20, source: YAGEO_RC },
-  "0402": { value: 1 / 16, source: YAGEO_RC },
-  "0603": { value: 1 / 10, source: YAGEO_RC },
-  "0805": { value: 1 / 8, source: YAGEO_RC },
-  "1206": { value: 1 / 4, source: YAGEO_RC },
+const RESISTOR_ROWS: Record<string, ResistorRow> = {
+  "CFR-25": { volts: 250, overloadVolts: 500, watts: 0.25, family: CFR },
+  CFR25S: { volts: 200, overloadVolts: 400, watts: 0.25, family: CFR },
+  "CFR-12": { volts: 150, overloadVolts: 300, watts: 1 / 6, family: CFR },
+  "CFR-50": { volts: 350, overloadVolts: 700, watts: 0.5, family: CFR },
+  "0201": { volts: 25, overloadVolts: 50, watts: 1 / 20, family: RC },
+  "0402": { volts: 50, overloadVolts: 100, watts: 1 / 16, family: RC },
+  "0603": { volts: 50, overloadVolts: 100, watts: 1 / 10, family: RC },
+  "0805": { volts: 150, overloadVolts: 300, watts: 1 / 8, family: RC },
+  "1206": { volts: 200, overloadVolts: 400, watts: 1 / 4, family: RC },
   // The table gives 1/3–1 W for 1210/2010/2512; the low end is taken.
-  "1210": { value: 1 / 3, source: YAGEO_RC },
-  "2010": { value: 1 / 3, source: YAGEO_RC },
-  "2512": { value: 1 / 3, source: YAGEO_RC },
+  "1210": { volts: 200, overloadVolts: 400, watts: 1 / 3, family: RC },
+  "2010": { volts: 200, overloadVolts: 400, watts: 1 / 3, family: RC },
+  "2512": { volts: 200, overloadVolts: 400, watts: 1 / 3, family: RC },
 };
 
-/** A through-hole resistor known only by its power class: the carbon-film part of that class. */
-const RESISTOR_VOLTS_BY_WATTS: Array<{ watts: number; rating: DefaultRating }> = [
-  { watts: 1 / 6, rating: { value: 150, source: `${YAGEO_CFR}, CFR-12 taken for a 1/6 W part` } },
-  { watts: 0.25, rating: { value: 250, source: `${YAGEO_CFR}, CFR-25 taken for a 1/4 W part` } },
-  { watts: 0.5, rating: { value: 350, source: `${YAGEO_CFR}, CFR-50 taken for a 1/2 W part` } },
+/** A through-hole resistor known only by its power class is taken as the carbon-film part of that class. */
+const PACKAGE_BY_WATTS: Array<{ watts: number; key: string; words: string }> = [
+  { watts: 1 / 6, key: "CFR-12", words: "1/6 W" },
+  { watts: 0.25, key: "CFR-25", words: "1/4 W" },
+  { watts: 0.5, key: "CFR-50", words: "1/2 W" },
 ];
 
-/** 1N400x I_FSM, 8.3 ms half-sine (FOUND in several vendor datasheets, reference-values.md §8). */
+/** 1N400x I_FSM, 8.3 ms half-sine (FOUND in several vendor datasheets). */
 export const RECTIFIER_SURGE_DEFAULT_A = 30;
 
-function packageKey(p: Part): string | null {
-  const raw = p.rating.package?.trim().toUpperCase().replace(/\s+/g, "") ?? null;
-  if (raw === null) return null;
-  const key = Object.keys(RESISTOR_VOLTS_BY_PACKAGE).find(
-    (k) => k.toUpperCase() === raw || k.replace("-", "").toUpperCase() === raw.replace("-", ""),
-  );
-  return key ?? null;
+/** A rating and, when the record did not give it, the assumption that stands in for it. */
+export interface Rated {
+  value: number;
+  /** Null when the value is the record's own. */
+  assumption: Assumption | null;
 }
 
-/** A resistor's voltage limit: the record's, else by package, else by power class; null when unknown. */
-export function resistorVoltageRating(
-  p: Part,
-): { volts: number; source: string; assumed: boolean } | null {
-  if (p.rating.volts !== undefined)
-    return { volts: p.rating.volts, source: "the record", assumed: false };
-  const key = packageKey(p);
-  if (key !== null)
-    return {
-      volts: RESISTOR_VOLTS_BY_PACKAGE[key]!.value,
-      source: `default for ${key}: ${RESISTOR_VOLTS_BY_PACKAGE[key]!.source}`,
-      assumed: true,
-    };
+/** The package row of a resistor (by its package, else its power class) and how it was chosen. */
+function resistorRow(p: Part): { key: string; row: ResistorRow; how: string } | null {
+  if (p.kind !== "resistor") return null;
+  const raw = p.rating.package?.trim().toUpperCase().replace(/\s+/g, "") ?? null;
+  if (raw !== null) {
+    const key = Object.keys(RESISTOR_ROWS).find(
+      (k) => k.toUpperCase() === raw || k.replace("-", "").toUpperCase() === raw.replace("-", ""),
+    );
+    if (key !== undefined) return { key, row: RESISTOR_ROWS[key]!, how: `a ${key} resistor` };
+  }
   const w = p.rating.watts;
   const byWatts =
-    w === undefined ? undefined : RESISTOR_VOLTS_BY_WATTS.find((r) => Math.abs(r.watts - w) < 1e-9);
-  if (byWatts !== undefined)
-    return {
-      volts: byWatts.rating.value,
-      source: `default: ${byWatts.rating.source}`,
-      assumed: true,
-    };
-  return null;
+    w === undefined ? undefined : PACKAGE_BY_WATTS.find((r) => Math.abs(r.watts - w) < 1e-9);
+  if (byWatts === undefined) return null;
+  return {
+    key: byWatts.key,
+    row: RESISTOR_ROWS[byWatts.key]!,
+    how: `a ${byWatts.words} through-hole resistor taken as ${byWatts.key}`,
+  };
+}
+
+/** A resistor's limiting element voltage (DC or AC RMS): the record's, else by package or power class. */
+export function resistorVoltageRating(p: Part): Rated | null {
+  if (p.rating.volts !== undefined) return { value: p.rating.volts, assumption: null };
+  const r = resistorRow(p);
+  if (r === null) return null;
+  return {
+    value: r.row.volts,
+    assumption: {
+      part: p.ref,
+      field: "rating.volts",
+      value: r.row.volts,
+      why: `limiting element voltage (DC or AC RMS) of ${r.how}, from the ${r.row.family}`,
+    },
+  };
+}
+
+/** A resistor's short-time overload voltage (a peak figure), known only from its package or power class. */
+export function resistorOverloadRating(p: Part): Rated | null {
+  const r = resistorRow(p);
+  if (r === null) return null;
+  return {
+    value: r.row.overloadVolts,
+    assumption: {
+      part: p.ref,
+      field: "rating.overload_volts",
+      value: r.row.overloadVolts,
+      why: `short-time overload voltage of ${r.how}, from the ${r.row.family}`,
+    },
+  };
 }
 
 /** A part's power rating: the record's, else (resistors) by package; null when unknown. */
-export function powerRating(p: Part): { watts: number; source: string; assumed: boolean } | null {
-  if (p.rating.watts !== undefined)
-    return { watts: p.rating.watts, source: "the record", assumed: false };
-  if (p.kind !== "resistor") return null;
-  const key = packageKey(p);
-  if (key === null) return null;
+export function powerRating(p: Part): Rated | null {
+  if (p.rating.watts !== undefined) return { value: p.rating.watts, assumption: null };
+  const r = resistorRow(p);
+  if (r === null) return null;
   return {
-    watts: RESISTOR_WATTS_BY_PACKAGE[key]!.value,
-    source: `default for ${key}: ${RESISTOR_WATTS_BY_PACKAGE[key]!.source}`,
-    assumed: true,
+    value: r.row.watts,
+    assumption: {
+      part: p.ref,
+      field: "rating.watts",
+      value: r.row.watts,
+      why: `rated power of ${r.how}, from the ${r.row.family}`,
+    },
   };
 }
 
 /** A diode's surge rating: the record's, else the 1 A silicon rectifier's 30 A. */
-export function diodeSurgeRating(p: Part): { amps: number; source: string; assumed: boolean } {
-  if (p.rating.surge_amps !== undefined)
-    return { amps: p.rating.surge_amps, source: "the record", assumed: false };
+export function diodeSurgeRating(p: Part): Rated {
+  if (p.rating.surge_amps !== undefined) return { value: p.rating.surge_amps, assumption: null };
   return {
-    amps: RECTIFIER_SURGE_DEFAULT_A,
-    source: "default: 1N400x I_FSM 30 A (FOUND, reference-values.md §8)",
-    assumed: true,
+    value: RECTIFIER_SURGE_DEFAULT_A,
+    assumption: {
+      part: p.ref,
+      field: "rating.surge_amps",
+      value: RECTIFIER_SURGE_DEFAULT_A,
+      why: "peak surge current (8.3 ms half-sine) of a 1 A silicon rectifier, from 1N4001–1N4007 datasheets",
+    },
   };
 }

@@ -3,6 +3,7 @@
  * re-solved steady cycle (for the variants that start from it: unplugging, tolerance samples),
  * the conducting connections, the supply chains and the budget shared by all re-solves.
  */
+import type { Assumption } from "../record/gaps-and-assumptions.js";
 import type { TeardownRecord } from "../record/types.js";
 import type { CircuitAnalysis, SolvedCircuit } from "../solver/analyze-circuit.js";
 import type { Budget } from "../solver/transient.js";
@@ -26,6 +27,9 @@ export interface RiskContext {
   /** Nets declared accessible, and every net with a conducting path to one. */
   touchable: Set<string>;
   paths: SupplyPaths;
+  /** Defaults the checks chose where the record was silent (one per part and field). */
+  assumptions: Assumption[];
+  /** Checks skipped or not applicable, and why. */
   notes: string[];
 }
 
@@ -52,8 +56,16 @@ export function riskContext(
     mainsConnected: galvanicReach(edges, supplyNets),
     touchable: galvanicReach(edges, accessible),
     paths: traceSupplyPaths(buildCircuitGraph(record)),
+    assumptions: [],
     notes: [],
   };
+}
+
+/** Records a default once per part and field, however many checks use it. */
+export function assume(ctx: RiskContext, a: Assumption | null): void {
+  if (a === null) return;
+  if (ctx.assumptions.some((x) => x.part === a.part && x.field === a.field)) return;
+  ctx.assumptions.push(a);
 }
 
 /** One steady cycle of a net's voltage against the analysis reference (uniform samples), or null for a net the solver left out. */

@@ -15,8 +15,10 @@
  */
 import type { Spacing } from "../record/types.js";
 import type { Flag } from "./flag-types.js";
-import { MAINS_CAUTION } from "./flag-types.js";
+import { MAINS_CAUTION, ev, evYes } from "./flag-types.js";
 import type { RiskContext } from "./risk-context.js";
+import type { Evidence } from "../record/gaps-and-assumptions.js";
+import { cite } from "./citations.js";
 import { sig3, voltageBetween } from "./risk-context.js";
 import {
   clearanceRequired,
@@ -28,14 +30,23 @@ import {
 /** Factor on basic creepage for reinforced insulation (MEMORY for 60664-1; FOUND as a general rule). */
 export const REINFORCED_CREEPAGE_FACTOR = 2;
 
-const SOURCE =
-  "IEC 60664-1 Ed. 2: Table F.4 creepage (FOUND), Table F.1 impulse for OVC II (FOUND), Table F.2 Case A clearance (FOUND 1.5-8 kV); reinforced ×2 creepage (MEMORY) and one impulse step up (FOUND), per reference-values.md §2";
-
 /** The required distances for one spacing, with the numbers behind them. */
-export function spacingRequirement(
-  ctx: RiskContext,
-  s: Spacing,
-): Record<string, number | string | boolean | null> | null {
+export interface SpacingRequirement {
+  working_vrms_v: number;
+  working_peak_v: number;
+  insulation: "reinforced" | "basic" | "functional";
+  creepage_effective_mm: number | null;
+  creepage_required_mm: number;
+  creepage_row_vrms_v: number;
+  creepage_column: string;
+  creepage_beyond_table: boolean;
+  clearance_required_mm: number | null;
+  impulse_v: number | null;
+  clearance_row_impulse_v: number | null;
+}
+
+/** The required distances for one spacing, or null when a net is not in the solved circuit. */
+export function spacingRequirement(ctx: RiskContext, s: Spacing): SpacingRequirement | null {
   const [a, b] = s.between;
   const v = voltageBetween(ctx, a, b);
   if (v === null) return null;
@@ -66,20 +77,35 @@ export function spacingRequirement(
     working_vrms_v: v.rms_v,
     working_peak_v: v.peak_v,
     insulation: reinforced ? "reinforced" : mains ? "basic" : "functional",
-    material_group: s.material_group,
-    pollution_degree: s.pollution_degree,
-    creepage_mm: s.creepage_mm,
     creepage_effective_mm: effectiveCreep,
     creepage_required_mm: creepMm,
     creepage_row_vrms_v: creep.row_vrms,
     creepage_column: creep.column,
     creepage_beyond_table: creep.beyond_table,
-    clearance_mm: s.clearance_mm,
     clearance_required_mm: clearMm,
     impulse_v: impulse,
     clearance_row_impulse_v: clearRow,
-    slot: s.slot,
   };
+}
+
+function spacingEvidence(s: Spacing, r: SpacingRequirement): Evidence[] {
+  return [
+    ev("working voltage (RMS)", r.working_vrms_v, "V"),
+    ev("recurring peak voltage", r.working_peak_v, "V"),
+    ev("insulation", r.insulation, ""),
+    ev("material group", s.material_group, ""),
+    ev("pollution degree", s.pollution_degree, ""),
+    ev("creepage measured", s.creepage_mm, "mm"),
+    ...(s.slot ? [ev("creepage counted across the slot", r.creepage_effective_mm, "mm")] : []),
+    ev("creepage required", r.creepage_required_mm, "mm"),
+    ev("creepage table row (RMS)", r.creepage_row_vrms_v, "V"),
+    ev("creepage table column", r.creepage_column, ""),
+    evYes("working voltage beyond the creepage table", r.creepage_beyond_table),
+    ev("clearance measured", s.clearance_mm, "mm"),
+    ev("clearance required", r.clearance_required_mm, "mm"),
+    ev("rated impulse voltage", r.impulse_v, "V"),
+    ev("clearance table row (impulse)", r.clearance_row_impulse_v, "V"),
+  ];
 }
 
 /** One flag per spacing shorter than required. */
@@ -93,10 +119,10 @@ export function spacingFlags(ctx: RiskContext): Flag[] {
       );
       continue;
     }
-    const creep = req.creepage_effective_mm as number | null;
-    const creepReq = req.creepage_required_mm as number;
+    const creep = req.creepage_effective_mm;
+    const creepReq = req.creepage_required_mm;
     const clear = s.clearance_mm;
-    const clearReq = req.clearance_required_mm as number | null;
+    const clearReq = req.clearance_required_mm;
     const shortCreep = creep !== null && creep < creepReq;
     const shortClear = clear !== null && clearReq !== null && clear < clearReq;
     if (!shortCreep && !shortClear) continue;
@@ -112,9 +138,9 @@ export function spacingFlags(ctx: RiskContext): Flag[] {
       severity: req.insulation === "reinforced" ? "danger" : "warning",
       parts: [],
       nets: [...s.between],
-      message: `${s.between.join(" to ")} (${req.insulation} insulation, ${sig3(req.working_vrms_v as number)} V RMS working): ${what.join("; ")}.${slotNote}`,
-      evidence: { ...req, short_creepage: shortCreep, short_clearance: shortClear },
-      source: SOURCE,
+      message: `${s.between.join(" to ")} (${req.insulation} insulation, ${sig3(req.working_vrms_v)} V RMS working): ${what.join("; ")}.${slotNote}`,
+      evidence: spacingEvidence(s, req),
+      ...cite("iec-60664-1-spacing"),
       caution: MAINS_CAUTION,
     });
   }

@@ -1,5 +1,5 @@
 /**
- * IEC 60664-1 (Ed. 2, 2007) spacing tables as reproduced in reference-values.md §2:
+ * IEC 60664-1 (Ed. 2, 2007) spacing tables, read in reproductions of the published tables:
  * Table F.4 creepage (FOUND, Wago catalogue reproduction), Table F.1 rated impulse voltage by
  * line-to-neutral voltage (FOUND, Recom page; values match F.1 from memory) and Table F.2 Case A
  * clearance (FOUND for 1.5/2.5/4/6 kV; 8 kV FOUND as the reinforced step of 6 kV; smaller rows
@@ -20,7 +20,7 @@ interface CreepageRow {
   pd3: [number, number, number];
 }
 
-/** Table F.4 rows 125 V to 400 V (complete in reference-values.md §2a, FOUND). */
+/** Table F.4 rows 125 V to 400 V (FOUND, complete). */
 export const CREEPAGE_TABLE_F4: readonly CreepageRow[] = [
   {
     vrms: 125,

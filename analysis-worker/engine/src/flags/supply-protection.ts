@@ -7,12 +7,13 @@
  *   (supply peak / peak current), i.e. only by parasitic resistance.
  */
 import type { Flag } from "./flag-types.js";
-import { MAINS_CAUTION } from "./flag-types.js";
+import { MAINS_CAUTION, ev } from "./flag-types.js";
 import { safetyClassOf } from "./capacitor-class.js";
 import { diodeSurgeRating } from "./rating-defaults.js";
 import { simulateCrestSwitchOn } from "./plug-in-surge.js";
 import type { RiskContext } from "./risk-context.js";
-import { sig3 } from "./risk-context.js";
+import { assume, sig3 } from "./risk-context.js";
+import { cite } from "./citations.js";
 
 /** A surge limited by less than this (supply peak over peak current) counts as unlimited (common practice). */
 export const MIN_SURGE_LIMIT_OHMS = 10;
@@ -38,12 +39,12 @@ export function fuseFlags(ctx: RiskContext): Flag[] {
         elsewhere.length > 0
           ? `There is a fuse (${elsewhere.join(", ")}) but not in series with the supply.`
           : "No fuse in the supply path: a shorted part draws whatever the mains circuit breaker allows.",
-      evidence: {
-        fuses_in_supply_path: 0,
-        fuses_elsewhere: elsewhere.length,
-        supply_chains: ctx.paths.chains.length,
-      },
-      source: "common practice",
+      evidence: [
+        ev("fuses in the supply path", 0, ""),
+        ev("fuses elsewhere", elsewhere.length ? elsewhere.join(", ") : "none", ""),
+        ev("supply paths traced", ctx.paths.chains.length, ""),
+      ],
+      ...cite("common-practice"),
       caution: MAINS_CAUTION,
     },
   ];
@@ -84,22 +85,27 @@ export function surgeFlags(ctx: RiskContext): Flag[] {
   for (const p of ctx.record.parts) {
     if (p.kind !== "diode" || peak_a[p.ref] === undefined) continue;
     const rating = diodeSurgeRating(p);
-    if (peak_a[p.ref]! <= rating.amps) continue;
+    assume(ctx, rating.assumption);
+    if (peak_a[p.ref]! <= rating.value) continue;
     flags.push({
       code: "no-surge-limit",
       severity: "warning",
       parts: [p.ref],
       nets: Object.values(p.pins),
-      message: `Plugged in at the crest, ${p.ref} takes ${sig3(peak_a[p.ref]!)} A, above its ${sig3(rating.amps)} A surge rating.`,
-      evidence: {
-        peak_a: peak_a[p.ref]!,
-        limit_a: rating.amps,
-        rating_source: rating.source,
-        peak_after_s: at_s[p.ref]!,
-        window_s,
-      },
-      source:
-        "diode surge rating I_FSM (1N400x 30 A, FOUND per reference-values.md §8); crest switch-on: common practice",
+      message: `Plugged in at the crest, ${p.ref} takes ${sig3(peak_a[p.ref]!)} A, above its ${sig3(rating.value)} A peak surge rating (a non-repetitive peak figure, compared with the peak).`,
+      evidence: [
+        ev("peak current at switch-on", peak_a[p.ref]!, "A"),
+        ev("peak surge rating", rating.value, "A"),
+        ev("basis of the surge rating", "non-repetitive peak", ""),
+        ev(
+          "surge rating taken from",
+          rating.assumption === null ? "the record" : rating.assumption.why,
+          "",
+        ),
+        ev("time of the peak after switch-on", at_s[p.ref]!, "s"),
+        ev("simulated window", window_s, "s"),
+      ],
+      ...cite(rating.assumption === null ? "common-practice" : "rectifier-surge"),
       caution: SURGE_CAUTION,
     });
   }
@@ -125,15 +131,15 @@ export function surgeFlags(ctx: RiskContext): Flag[] {
       parts: [worst],
       nets: [...ctx.paths.lineNets],
       message: `No series resistance limits the plug-in surge: switched on at the crest, ${worst} takes ${sig3(peak_a[worst]!)} A (limited by ${sig3(limitOhms)} Ω of parasitics).`,
-      evidence: {
-        peak_a: peak_a[worst]!,
-        supply_peak_v: vpk,
-        limiting_ohms: limitOhms,
-        min_limiting_ohms: MIN_SURGE_LIMIT_OHMS,
-        series_resistors: 0,
-        window_s,
-      },
-      source: "common practice",
+      evidence: [
+        ev("peak current at switch-on", peak_a[worst]!, "A"),
+        ev("supply peak voltage", vpk, "V"),
+        ev("resistance limiting the surge", limitOhms, "Ω"),
+        ev("least resistance counted as a limit", MIN_SURGE_LIMIT_OHMS, "Ω"),
+        ev("series resistors in the supply path", 0, ""),
+        ev("simulated window", window_s, "s"),
+      ],
+      ...cite("common-practice"),
       caution: SURGE_CAUTION,
     });
   }

@@ -7,6 +7,8 @@
 import type { Flag } from "./flag-types.js";
 import type { RiskContext } from "./risk-context.js";
 import { sig3 } from "./risk-context.js";
+import { cite } from "./citations.js";
+import { ev, evPercent } from "./flag-types.js";
 
 /** A lowest firing supply within this fraction below the analysed supply is marginal. */
 export const TRIGGER_SUPPLY_MARGIN_FRACTION = 0.1;
@@ -29,8 +31,11 @@ export function triggerFlags(ctx: RiskContext): Flag[] {
         parts: [t.part],
         nets,
         message: `${t.part} never fires at ${sig3(supply)} V: its gate never reaches the trigger current.`,
-        evidence: { supply_vrms_v: supply, fires: false, igt_a: part?.model.igt ?? null },
-        source: "common practice",
+        evidence: [
+          ev("supply voltage (RMS)", supply, "V"),
+          ev("gate trigger current", part?.model.igt ?? null, "A"),
+        ],
+        ...cite("common-practice"),
         caution: CAUTION,
       });
       continue;
@@ -55,15 +60,18 @@ export function triggerFlags(ctx: RiskContext): Flag[] {
       parts: [t.part],
       nets,
       message: `${t.part} fires with little margin: ${why.join("; ")}.`,
-      evidence: {
-        supply_vrms_v: supply,
-        min_supply_vrms_v: t.min_supply_vrms,
-        supply_margin_fraction: t.min_supply_vrms !== null ? 1 - t.min_supply_vrms / supply : null,
-        angle_deg: t.angle_deg,
-        angle_negative_deg: t.angle_negative_deg,
-        angle_margin_deg: TRIGGER_ANGLE_MARGIN_DEG,
-      },
-      source: "common practice",
+      evidence: [
+        ev("supply voltage (RMS)", supply, "V"),
+        ev("lowest supply that still fires it (RMS)", t.min_supply_vrms, "V"),
+        t.min_supply_vrms !== null
+          ? evPercent("supply margin", 1 - t.min_supply_vrms / supply)
+          : ev("supply margin", null, "%"),
+        evPercent("least supply margin", TRIGGER_SUPPLY_MARGIN_FRACTION),
+        ev("firing angle, positive half-cycle", t.angle_deg, "°"),
+        ev("firing angle, negative half-cycle", t.angle_negative_deg, "°"),
+        ev("least distance from the crest", TRIGGER_ANGLE_MARGIN_DEG, "°"),
+      ],
+      ...cite("common-practice"),
       caution: CAUTION,
     });
   }

@@ -1,11 +1,12 @@
 "use client";
 /**
  * Risk flags, most severe first: each with its severity in words, the parts and nets involved,
- * the numbers behind it (evidence), where the rule comes from (source) and what it does not
- * decide (caution). The safety caution stands above the list.
+ * the numbers behind it (evidence, one sentence per labelled quantity: "time constant: 2.2 s"),
+ * the published document the rule comes from (source) and what it does not decide (caution).
+ * The safety caution stands above the list.
  */
 import { SafetyCaution } from "../../safety-caution";
-import { evidenceText } from "../si-units";
+import { DISPLAY_DIGITS, NOT_COMPUTED, si } from "../si-units";
 import { arr, obj, str, strings } from "./result-access";
 import css from "../entry.module.css";
 
@@ -21,6 +22,26 @@ export function severityClasses(severity: string): { badge: string; card: string
   if (severity === "danger") return { badge: css.sevDanger!, card: css.flagDanger! };
   if (severity === "warning") return { badge: css.sevWarning!, card: css.flagWarning! };
   return { badge: css.sevInfo!, card: css.flagInfo! };
+}
+
+/** Units shown with an SI prefix (24.1 mA); the others (%, mm, ppm, none) as plain numbers. */
+const PREFIXED_UNITS = new Set(["V", "A", "W", "VA", "F", "H", "Ω", "s", "Hz", "J"]);
+/** Units written against the number (90°, 2.1×). */
+const ATTACHED_UNITS = new Set(["°", "×"]);
+
+/** One evidence entry ({ label, value, unit }) as a sentence: "time constant: 2.2 s". */
+export function evidenceSentence(entry: unknown): string | null {
+  const e = obj(entry);
+  const label = str(e.label);
+  if (label === null) return null;
+  const unit = str(e.unit) ?? "";
+  const v = e.value;
+  if (typeof v === "string") return `${label}: ${v}`;
+  if (typeof v !== "number" || !Number.isFinite(v)) return `${label}: ${NOT_COMPUTED}`;
+  if (PREFIXED_UNITS.has(unit)) return `${label}: ${si(v, unit)}`;
+  const n = Number(v.toPrecision(DISPLAY_DIGITS));
+  if (ATTACHED_UNITS.has(unit)) return `${label}: ${n}${unit}`;
+  return `${label}: ${n}${unit ? ` ${unit}` : ""}`;
 }
 
 /** The flags of a result, or "not computed" when the result has no flags field. */
@@ -52,7 +73,11 @@ export function FlagsList({ flags, onPart }: { flags: unknown; onPart?: (ref: st
       {list.map((f, i) => {
         const severity = str(f.severity) ?? "info";
         const cls = severityClasses(severity);
-        const evidence = Object.entries(obj(f.evidence));
+        // Results of an older engine kept evidence as raw keys: they are not guessed at.
+        const older = !Array.isArray(f.evidence) && f.evidence !== undefined;
+        const evidence = arr(f.evidence)
+          .map(evidenceSentence)
+          .filter((x): x is string => x !== null);
         const parts = strings(f.parts);
         const nets = strings(f.nets);
         return (
@@ -92,16 +117,17 @@ export function FlagsList({ flags, onPart }: { flags: unknown; onPart?: (ref: st
             </h3>
             <p style={{ margin: "0.2rem 0" }}>{str(f.message) ?? ""}</p>
             {evidence.length > 0 ? (
-              <dl className={css.evidence} aria-label="evidence">
-                {evidence.map(([k, v]) => (
-                  <div key={k} style={{ display: "contents" }}>
-                    <dt>{k.replace(/_/g, " ")}</dt>
-                    <dd>{evidenceText(k, v)}</dd>
-                  </div>
+              <ul className={css.evidence} aria-label="evidence">
+                {evidence.map((sentence, k) => (
+                  <li key={k}>{sentence}.</li>
                 ))}
-              </dl>
+              </ul>
             ) : (
-              <p className={css.missing}>No evidence given.</p>
+              <p className={css.missing}>
+                {older
+                  ? "Evidence kept in an older format: analyse again to see it."
+                  : "No evidence given."}
+              </p>
             )}
             <div className={css.meta}>
               Source: {str(f.source) ?? "not given"}
