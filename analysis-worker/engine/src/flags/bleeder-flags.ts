@@ -38,9 +38,7 @@ export function pinCapacitance(analysis: CircuitAnalysis): number {
 
 /** Capacitors on the supply side: in series in a supply chain or straight across the mains nets. */
 function supplyCapacitors(ctx: RiskContext): string[] {
-  const inChains = ctx.paths.chains.flatMap((c) =>
-    c.steps.flatMap((s) => s.parts.filter((p) => p.kind === "capacitor").map((p) => p.ref)),
-  );
+  const inChains = [...ctx.seriesCapacitors];
   const across = ctx.record.parts
     .filter((p) => p.kind === "capacitor")
     .filter((p) => {

@@ -44,11 +44,7 @@ function classEvidence(
 /** The capacitor-class flags of a record. */
 export function capacitorClassFlags(ctx: RiskContext): Flag[] {
   const flags: Flag[] = [];
-  const series = new Set(
-    ctx.paths.chains.flatMap((c) =>
-      c.steps.flatMap((s) => s.parts.filter((p) => p.kind === "capacitor").map((p) => p.ref)),
-    ),
-  );
+  const series = ctx.seriesCapacitors;
   for (const p of ctx.record.parts) {
     if (p.kind !== "capacitor") continue;
     const pins = pinPair(p);

@@ -10,6 +10,7 @@ import type { Budget } from "../solver/transient.js";
 import { buildCircuitGraph } from "../graph/circuit-graph.js";
 import type { SupplyPaths } from "../blocks/supply-path.js";
 import { traceSupplyPaths } from "../blocks/supply-path.js";
+import { findBlocks } from "../blocks/find-blocks.js";
 import type { GalvanicEdge } from "./galvanic-paths.js";
 import { galvanicEdges, galvanicReach } from "./galvanic-paths.js";
 
@@ -27,6 +28,12 @@ export interface RiskContext {
   /** Nets declared accessible, and every net with a conducting path to one. */
   touchable: Set<string>;
   paths: SupplyPaths;
+  /**
+   * Capacitors in series with the supply: on the first run from a supply net, or a capacitive
+   * dropper's capacitors found on any branch (a dropper behind a surge resistor on a board with
+   * several branches is still in series with the supply).
+   */
+  seriesCapacitors: Set<string>;
   /** Defaults the checks chose where the record was silent (one per part and field). */
   assumptions: Assumption[];
   /** Checks skipped or not applicable, and why. */
@@ -46,6 +53,7 @@ export function riskContext(
     names.filter((n) => record.nets[n]!.role === "line" || record.nets[n]!.role === "neutral"),
   );
   const accessible = names.filter((n) => record.nets[n]!.accessible);
+  const paths = traceSupplyPaths(buildCircuitGraph(record));
   return {
     record,
     analysis,
@@ -55,7 +63,8 @@ export function riskContext(
     supplyNets,
     mainsConnected: galvanicReach(edges, supplyNets),
     touchable: galvanicReach(edges, accessible),
-    paths: traceSupplyPaths(buildCircuitGraph(record)),
+    paths,
+    seriesCapacitors: seriesCapacitorsOf(record, paths),
     assumptions: [],
     notes: [],
   };
@@ -100,4 +109,15 @@ export function voltageBetween(
 /** Rounds a number for messages (3 significant figures). */
 export function sig3(x: number): string {
   return Number(x.toPrecision(3)).toString();
+}
+
+function seriesCapacitorsOf(record: TeardownRecord, paths: SupplyPaths): Set<string> {
+  const kindOf = new Map(record.parts.map((p) => [p.ref, p.kind]));
+  const onChains = paths.chains.flatMap((c) =>
+    c.steps.flatMap((s) => s.parts.filter((p) => p.kind === "capacitor").map((p) => p.ref)),
+  );
+  const inDroppers = findBlocks(record)
+    .filter((b) => b.kind === "capacitive-dropper")
+    .flatMap((b) => b.parts.filter((ref) => kindOf.get(ref) === "capacitor"));
+  return new Set([...onChains, ...inDroppers]);
 }
