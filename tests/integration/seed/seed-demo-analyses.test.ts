@@ -158,6 +158,7 @@ describe("the demo's analyses", () => {
   });
 
   it("raises each intended flag and mismatch, and no danger flag the scenario does not intend", () => {
+    expect(results.size).toBe(docs.length);
     expect(Object.keys(REVISION_EXPECTATIONS).sort()).toEqual(docs.map((d) => d.file).sort());
     for (const [file, r] of results) checkAgainstIntent(file, r, REVISION_EXPECTATIONS[file]!);
     const withMismatch = Object.values(REVISION_EXPECTATIONS).filter((e) =>
