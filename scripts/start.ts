@@ -98,6 +98,7 @@ async function main(): Promise<void> {
     log(
       seeded.loaded ? `demo data loaded (${seeded.entries} entries)` : "demo data already present",
     );
+    process.stdout.write(`demo sign-in: ${seeded.signIn.email} / ${seeded.signIn.password}\n`);
     await buildWebIfStale(ROOT, log);
   } catch (err) {
     const msg = err instanceof Error ? err.message : String(err);
