@@ -29,17 +29,23 @@ function span(t: ArrayLike<number>): number {
 }
 
 /** Mean over [t0, tN]. */
-export function periodMean(t: ArrayLike<number>, y: ArrayLike<number>, damped?: DampedSteps): number {
+export function periodMean(
+  t: ArrayLike<number>,
+  y: ArrayLike<number>,
+  damped?: DampedSteps,
+): number {
   const T = span(t);
   return T > 0 ? stepIntegral(t, (k) => y[k]!, damped) / T : (y[0] ?? 0);
 }
 
 /** RMS over [t0, tN]. */
-export function periodRms(t: ArrayLike<number>, y: ArrayLike<number>, damped?: DampedSteps): number {
+export function periodRms(
+  t: ArrayLike<number>,
+  y: ArrayLike<number>,
+  damped?: DampedSteps,
+): number {
   const T = span(t);
-  return T > 0
-    ? Math.sqrt(stepIntegral(t, (k) => y[k]! * y[k]!, damped) / T)
-    : Math.abs(y[0] ?? 0);
+  return T > 0 ? Math.sqrt(stepIntegral(t, (k) => y[k]! * y[k]!, damped) / T) : Math.abs(y[0] ?? 0);
 }
 
 /**
