@@ -45,8 +45,15 @@ export const DAMPED_STEP_PER_PERIOD = 1e-5;
  * step control can only follow that decay if the first steps are shorter than it.
  */
 export const EVENT_STEP_PER_PERIOD = 1e-8;
-/** Backward-Euler steps taken after the cycle start or a switching event, before the trapezoidal rule resumes. */
-export const DAMPED_STEPS = 2;
+/**
+ * After a switching event, steps shorter than this fraction of the period (2 µs at 50 Hz) may
+ * grow by up to FAST_GROWTH from one step to the next while the error allows; others by 2. The
+ * short steps after an event follow a decay that is over within a few of them.
+ */
+export const FAST_GROWTH_BELOW_PER_PERIOD = 1e-4;
+export const FAST_GROWTH = 8;
+/** Backward-Euler steps taken after the cycle start, a failed step or a switching event. */
+export const DAMPED_STEPS = 1;
 /** Smallest step before Newton failure is reported, as a fraction of the period. */
 export const MIN_STEP_PER_PERIOD = 1e-10;
 /** Switching events are located to this many degrees of the supply cycle (the goal is 0.05). */
@@ -307,6 +314,7 @@ export class TransientSolver {
     const hMax = period * MAX_STEP_PER_PERIOD;
     const hDamped = period * DAMPED_STEP_PER_PERIOD;
     const hEvent = period * EVENT_STEP_PER_PERIOD;
+    const hFast = period * FAST_GROWTH_BELOW_PER_PERIOD;
     const hMin = period * MIN_STEP_PER_PERIOD;
     const eventTol = (EVENT_TOL_DEG / 360) * period;
     const breaks = [0.25, 0.5, 0.75, 1].map((f) => f * period);
@@ -316,6 +324,8 @@ export class TransientSolver {
     let h = hDamped;
     // Backward-Euler steps still to take before the trapezoidal rule resumes.
     let dampedLeft = DAMPED_STEPS;
+    // True from a switching event until the step has grown back to hFast.
+    let afterEvent = false;
     let hist: Array<{ t: number; s: Float64Array }> = [{ t: 0, s: this.storageOf(mem) }];
     const samples: CycleSample[] = [];
     const events: CycleRun["events"] = [];
@@ -362,7 +372,7 @@ export class TransientSolver {
       }
       const s = this.storageOf(out.work);
       const ratio = this.lteRatio([...hist, { t: t + hTry, s }], trap, vpk);
-      if (ratio > 1.5 && hTry > 4 * hEvent) {
+      if (ratio > 1.5 && hTry > 4 * (afterEvent ? hEvent : hDamped)) {
         h = hTry * Math.max(0.2, 0.9 * Math.cbrt(1 / ratio));
         continue;
       }
@@ -421,11 +431,14 @@ export class TransientSolver {
         }
         dampedLeft = DAMPED_STEPS;
         h = hEvent;
+        afterEvent = true;
         hist = [{ t, s: this.storageOf(mem) }];
       } else {
         hist.push({ t, s });
         if (hist.length > 4) hist.shift();
-        const grow = ratio > 0 ? Math.min(2, Math.max(0.3, 0.9 * Math.cbrt(1 / ratio))) : 2;
+        if (hAcc >= hFast) afterEvent = false;
+        const most = afterEvent ? FAST_GROWTH : 2;
+        const grow = ratio > 0 ? Math.min(most, Math.max(0.3, 0.9 * Math.cbrt(1 / ratio))) : 2;
         h = hAcc * grow;
         if (dampedLeft > 0) dampedLeft--;
       }
