@@ -17,7 +17,7 @@
  * I_rms = (V/R)·sqrt(1 − α/π + sin 2α/(2π)).
  */
 import { describe, expect, it } from "vitest";
-import { analyzeCircuit } from "@teardown/engine";
+import { analyzeCircuit, STORAGE_POWER_TOLERANCE } from "@teardown/engine";
 import { part, record } from "../support/record-factory.js";
 
 const VRMS = 230;
@@ -29,8 +29,6 @@ const C = 47e-9;
 const RA = 47_000;
 const RB = 1000;
 const GATE = { vgt: 0.8, igt: 5e-3, ih: 10e-3, von: 1.2, ron: 0.1 };
-/** Mean dissipation of a capacitor, as a fraction of the input power (the bound). */
-const STORAGE_POWER_FRACTION = 1e-3;
 
 function stage(rs: number | null) {
   const parts = [
@@ -89,7 +87,7 @@ describe("triac lamp stage with a snubber", () => {
       if (!r.ok) throw new Error(r.error.message);
       const { parts, input } = r.value;
       expect(Math.abs(parts.RS!.power / snubber(rs).power - 1)).toBeLessThan(0.02);
-      expect(Math.abs(parts.CS!.power)).toBeLessThan(STORAGE_POWER_FRACTION * input.power);
+      expect(Math.abs(parts.CS!.power)).toBeLessThan(STORAGE_POWER_TOLERANCE * input.power);
       // Source: conservation of energy (Tellegen's theorem), a law.
       const sum = Object.values(parts).reduce((a, p) => a + p.power, 0);
       expect(Math.abs(sum / input.power - 1)).toBeLessThan(1e-3);
@@ -113,7 +111,7 @@ describe("triac lamp stage with a snubber", () => {
     // With RS = 0 the closed form is the discharge through the on-state resistance alone.
     const expected = snubber(0).rms;
     expect(Math.abs(parts.CS!.current_rms / expected - 1)).toBeLessThan(0.01);
-    expect(Math.abs(parts.CS!.power)).toBeLessThan(STORAGE_POWER_FRACTION * input.power);
+    expect(Math.abs(parts.CS!.power)).toBeLessThan(STORAGE_POWER_TOLERANCE * input.power);
     // The plot shows the discharge at its height ((V − Von)/ron), not only the charging current.
     const plotted = Math.max(...waveforms.series["CS.current"]!.map(Math.abs));
     const { vCap } = firing(0);

@@ -22,6 +22,12 @@ import {
 export const FFT_POINTS = 1024;
 /** Most points per waveform series. */
 export const MAX_WAVEFORM_POINTS = 1000;
+/**
+ * A capacitor's or inductor's mean power over a periodic state is zero (its stored energy ends
+ * where it started); the figures hold it to within this fraction of the input power. Anything
+ * larger would be numerical dissipation, and the tests check against this bound.
+ */
+export const STORAGE_POWER_TOLERANCE = 1e-3;
 
 /** The record-format input figures. */
 export interface InputFigures {
