@@ -17,7 +17,7 @@
  * I_rms = (V/R)·sqrt(1 − α/π + sin 2α/(2π)).
  */
 import { describe, expect, it } from "vitest";
-import { analyzeCircuit, STORAGE_POWER_TOLERANCE } from "@teardown/engine";
+import { analyzeCircuit, solveCircuit, STORAGE_POWER_TOLERANCE } from "@teardown/engine";
 import { part, record } from "../support/record-factory.js";
 
 const VRMS = 230;
@@ -120,4 +120,27 @@ describe("triac lamp stage with a snubber", () => {
     // in a periodic state passes no DC), to a part in 1e4 of its RMS.
     expect(Math.abs(parts.CS!.current_dc)).toBeLessThan(1e-4 * parts.CS!.current_rms);
   });
+
+  for (const rs of [null, 100, 39]) {
+    it(`leaves no step-to-step ringing in the capacitor's current (${rs ?? "no"} resistor)`, () => {
+      const r = solveCircuit(stage(rs));
+      if (!r.ok) throw new Error(r.error.message);
+      const cs = r.value.circuit.devices.find((d) => d.ref === "CS")!;
+      // A capacitor's memory holds its voltage, then its current, at every computed point.
+      const i = r.value.steady.run.samples.map((s) => s.mem[cs.mem + 1]!);
+      const peak = Math.max(...i.map(Math.abs));
+      // Source: closed form, after each firing the current is a single decaying exponential
+      // plus the slow charging current, so it never turns back and forth from point to point.
+      // Count the longest run of alternating steps larger than a thousandth of the peak.
+      let run = 0;
+      let longest = 0;
+      for (let k = 2; k < i.length; k++) {
+        const a = i[k - 1]! - i[k - 2]!;
+        const b = i[k]! - i[k - 1]!;
+        run = a * b < 0 && Math.abs(b) > 1e-3 * peak ? run + 1 : 0;
+        longest = Math.max(longest, run);
+      }
+      expect(longest).toBeLessThan(3);
+    });
+  }
 });
