@@ -4,7 +4,7 @@
  * power, and KCL holds at every net at every time point).
  */
 import { describe, expect, it } from "vitest";
-import { analyzeCircuit } from "@teardown/engine";
+import { analyzeCircuit, STORAGE_POWER_TOLERANCE } from "@teardown/engine";
 import { allReferenceCircuits } from "../engine/solver/reference-circuits.js";
 
 describe("energy balance and KCL on the reference circuits", () => {
@@ -32,8 +32,9 @@ describe("energy balance and KCL on the reference circuits", () => {
       if (!r.ok) throw new Error(r.error.message);
       // Source: closed form, a capacitor's mean power over a period of a periodic state is zero.
       for (const p of rec.parts.filter((q) => q.kind === "capacitor" || q.kind === "inductor")) {
+        // The engine's stated bound: a thousandth of the input power.
         expect(Math.abs(r.value.parts[p.ref]!.power)).toBeLessThan(
-          0.01 * Math.max(r.value.input.power, 1e-3),
+          STORAGE_POWER_TOLERANCE * Math.max(r.value.input.power, 1e-3),
         );
       }
     });

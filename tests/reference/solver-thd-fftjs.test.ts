@@ -1,7 +1,7 @@
 /**
  * The line current's harmonic content against an independent FFT (the fft.js package) on the
- * same uniformly resampled waveform of a steady cycle, and the square-wave THD of
- * reference-values.md §10 (DERIVED: sqrt(π²/8 − 1) = 0.483426).
+ * same uniformly resampled waveform of a steady cycle, and a square wave's THD against the
+ * closed form from its Fourier series, sqrt(π²/8 − 1) ≈ 0.483426.
  */
 import { describe, expect, it } from "vitest";
 import FFT from "fft.js";
@@ -66,7 +66,10 @@ describe("THD of the line current", () => {
   it("gives a square wave's THD of sqrt(π²/8 − 1) within 0.5%", () => {
     const n = 4096;
     const sq = Float64Array.from({ length: n }, (_, k) => (k < n / 2 ? 1 : -1));
-    // Source: reference-values.md §10 (DERIVED), 0.483426; the sampled wave carries harmonics up to n/2 only.
-    expect(Math.abs(thdFromSamples(sq)! / 0.483426 - 1)).toBeLessThan(0.005);
+    // Source: closed form from a square wave's Fourier series (odd harmonics of amplitude 4/(nπ),
+    // Oppenheim & Willsky, "Signals and Systems", Fourier series examples; from memory): the
+    // harmonics' RMS over the fundamental's is sqrt(π²/8 − 1) ≈ 0.483426. The sampled wave
+    // carries harmonics up to n/2 only, hence 0.5%.
+    expect(Math.abs(thdFromSamples(sq)! / Math.sqrt(Math.PI ** 2 / 8 - 1) - 1)).toBeLessThan(0.005);
   });
 });

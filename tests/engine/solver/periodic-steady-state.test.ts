@@ -35,11 +35,19 @@ describe("periodic steady state", () => {
     expect(plain.method).toBe("cycles");
     expect(shot.method).toBe("shooting");
     expect(shot.cycles).toBeLessThan(plain.cycles);
-    // Source: the fixed point of the one-cycle map is unique; both methods must land on it.
-    expect(Math.abs(shot.vCap / plain.vCap - 1)).toBeLessThan(1e-4);
-    // Source: common practice, a 12 V zener clamps the storage capacitor near 12 V.
-    expect(shot.vCap).toBeGreaterThan(11.5);
-    expect(shot.vCap).toBeLessThan(12.6);
+    // Source: closed form. A capacitive dropper into a bridge moves the charge C·2(Vpk − Vo')
+    // every half-cycle (Vo' the output plus two diode drops), so it feeds 4fC(Vpk − Vo') on
+    // average; what the 1 kΩ load does not take flows in the zener, whose model holds
+    // Vz + n·VT·ln(Iz/Izt) + rz·Iz at that current (Vz 12 V, Izt 5 mA, rz 5 Ω, VT 25.865 mV).
+    let v = 12;
+    for (let k = 0; k < 20; k++) {
+      const feed = 4 * 50 * 330e-9 * (230 * Math.SQRT2 - (v + 2 * 0.75));
+      const iz = feed - v / 1000;
+      v = 12 + 0.025865 * Math.log(iz / 5e-3) + 5 * iz;
+    }
+    // Both methods land on it; the ripple and R2 move the mean by a few tens of millivolts.
+    expect(Math.abs(plain.vCap / v - 1)).toBeLessThan(5e-3);
+    expect(Math.abs(shot.vCap / v - 1)).toBeLessThan(5e-3);
   });
 
   it("settles 470 µF behind a 330 nF dropper (a time constant of seconds) by shooting", () => {

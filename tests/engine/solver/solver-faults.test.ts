@@ -109,8 +109,70 @@ describe("solver failures as values", () => {
     ]);
     const r = analyzeCircuit(rec, { minSupply: false });
     if (!r.ok) throw new Error(r.error.message);
-    expect(r.value.solver.notes.some((n) => n.startsWith("J1"))).toBe(true);
-    expect(r.value.solver.notes.some((n) => n.startsWith("X1"))).toBe(true);
-    expect(r.value.solver.assumptions.some((a) => a.startsWith("D1: is"))).toBe(true);
+    expect(r.value.gaps.map((g) => g.part).sort()).toEqual(["J1", "X1"]);
+    expect(r.value.gaps.find((g) => g.part === "X1")!.reason).toMatch(/unknown kind/);
+    expect(r.value.assumptions).toContainEqual(
+      expect.objectContaining({ part: "D1", field: "model.is", value: 5e-9 }),
+    );
+  });
+
+  it("names a load without a resistance and a part of an unknown kind as gaps", () => {
+    const rec = record([
+      part("R1", "resistor", ["L", "A"], 1000),
+      part("HT1", "load", ["A", "N"]),
+      part("U1", "mystery-module", ["A", "N"]),
+      part("R2", "resistor", ["A", "N"], 2000),
+    ]);
+    const r = analyzeCircuit(rec, { minSupply: false });
+    if (!r.ok) throw new Error(r.error.message);
+    expect(r.value.gaps).toEqual([
+      { part: "HT1", reason: "load without a resistance (model.r) or capacitance (model.c)" },
+      { part: "U1", reason: 'unknown kind "mystery-module"' },
+    ]);
+    // What is left is a plain divider: 230·2000/3000 V at A.
+    expect(r.value.nets.A!.rms).toBeCloseTo((230 * 2) / 3, 1);
+  });
+
+  it("names a net that touches no simulated part as a gap", () => {
+    const rec = record([
+      part("R1", "resistor", ["L", "N"], 1000),
+      part("J2", "connector", ["L", "AUX"]),
+    ]);
+    const r = analyzeCircuit(rec, { minSupply: false });
+    if (!r.ok) throw new Error(r.error.message);
+    expect(r.value.gaps).toContainEqual({ net: "AUX", reason: "touches no simulated part" });
+  });
+
+  it("lists every default of a zener, an LED and a triac, and none the record gives", () => {
+    const rec = record([
+      part("R1", "resistor", ["L", "A"], 47_000),
+      part("Z1", "zener", { anode: "N", cathode: "A" }, 12, { model: { rz: 10 } }),
+      part("LED1", "led", { anode: "A", cathode: "N" }),
+      part("R2", "resistor", ["L", "B"], 500),
+      part("Q1", "triac", { mt1: "N", mt2: "B", gate: "G" }, null, { model: { ron: 0.05 } }),
+      part("R3", "resistor", ["G", "N"], 1000),
+    ]);
+    const r = analyzeCircuit(rec, { minSupply: false });
+    if (!r.ok) throw new Error(r.error.message);
+    const fields = (ref: string) =>
+      r.value.assumptions
+        .filter((a) => a.part === ref)
+        .map((a) => a.field)
+        .sort();
+    expect(fields("Z1")).toEqual(["model.is", "model.iz_test"]);
+    expect(r.value.assumptions).toContainEqual(
+      expect.objectContaining({ part: "Z1", field: "model.iz_test", value: 5e-3 }),
+    );
+    expect(fields("LED1")).toEqual(["model.if", "model.n", "model.rs", "model.vf"]);
+    expect(r.value.assumptions).toContainEqual(
+      expect.objectContaining({ part: "LED1", field: "model.rs", value: 5 }),
+    );
+    expect(fields("Q1")).toEqual(["model.igt", "model.ih", "model.vgt", "model.von"]);
+    expect(fields("R1")).toEqual([]);
+    // Reasons are plain words: no internal file names, no confidence marks.
+    for (const a of r.value.assumptions) {
+      expect(a.why).not.toMatch(/\.md|FOUND|MEMORY|DERIVED/);
+      expect(a.why.length).toBeGreaterThan(10);
+    }
   });
 });

@@ -1,6 +1,6 @@
 /**
  * Figures of one steady cycle: input current RMS, real and apparent power, power factor and
- * THD of the line current; per part peak voltage, RMS current and mean dissipation; per net
+ * THD of the line current; per part peak voltage, RMS and mean current and mean dissipation; per net
  * DC, RMS and peak against the reference; per thyristor/triac whether and where it fires;
  * and the downsampled waveforms. Also the largest KCL residual over the cycle, as a check.
  */
@@ -12,8 +12,9 @@ import { thdFromSamples } from "./fft.js";
 import {
   peakMagnitude,
   periodMean,
-  periodMeanProduct,
+  periodMeanPower,
   periodRms,
+  resampleForPlot,
   resampleUniform,
 } from "./waveform-stats.js";
 
@@ -21,6 +22,12 @@ import {
 export const FFT_POINTS = 1024;
 /** Most points per waveform series. */
 export const MAX_WAVEFORM_POINTS = 1000;
+/**
+ * A capacitor's or inductor's mean power over a periodic state is zero (its stored energy ends
+ * where it started); the figures hold it to within this fraction of the input power. Anything
+ * larger would be numerical dissipation, and the tests check against this bound.
+ */
+export const STORAGE_POWER_TOLERANCE = 1e-3;
 
 /** The record-format input figures. */
 export interface InputFigures {
@@ -35,6 +42,8 @@ export interface InputFigures {
 export interface PartFigures {
   voltage_peak: number;
   current_rms: number;
+  /** Mean (DC) current, A, into the part's first terminal (same sign as its current waveform). */
+  current_dc: number;
   power: number;
 }
 
@@ -74,9 +83,11 @@ export function cycleFigures(c: Circuit, steady: SteadyState): CycleFigures {
   const run = steady.run;
   const last = run.samples[run.samples.length - 1]!;
   // The window repeats: its end point stands for t = 0 as well.
-  const samples = [{ t: 0, x: last.x, mem: last.mem }, ...run.samples];
+  const samples = [{ t: 0, x: last.x, mem: last.mem, damped: false }, ...run.samples];
   const ns = samples.length;
   const t = Float64Array.from(samples, (s) => s.t);
+  // Each step is integrated by the rule the solver took it with (see waveform-stats).
+  const damped = samples.map((s) => s.damped);
   const supply = c.devices.find(
     (d): d is Extract<CircuitDevice, { type: "supply" }> => d.type === "supply",
   )!;
@@ -109,13 +120,12 @@ export function cycleFigures(c: Circuit, steady: SteadyState): CycleFigures {
           vPeak = Math.max(vPeak, Math.abs(volts[k * nt + a]! - volts[k * nt + b]!));
     const main = new Float64Array(ns);
     for (let k = 0; k < ns; k++) main[k] = amps[k * nt]!;
-    // Storage parts by the step quadrature that matches their companion model (their mean is then
-    // exactly their energy change); dissipating parts by the trapezoid of v·i, like their RMS.
     const storage = d.type === "capacitor" || d.type === "coupled";
     parts[d.ref] = {
       voltage_peak: vPeak,
-      current_rms: periodRms(t, main),
-      power: storage ? stepPower(t, volts, amps, nt) : trapezoidPower(t, volts, amps, nt),
+      current_rms: periodRms(t, main, damped),
+      current_dc: periodMean(t, main, damped),
+      power: periodMeanPower(t, volts, amps, nt, damped, storage),
     };
     series[`${d.ref}.current`] = main;
   }
@@ -124,7 +134,11 @@ export function cycleFigures(c: Circuit, steady: SteadyState): CycleFigures {
   const netNodes = c.nodeNames.map((n, i) => ({ n, i })).filter(({ n }) => !n.includes("#"));
   for (const { n, i } of netNodes) {
     const v = Float64Array.from(samples, (s) => s.x[i]!);
-    nets[n] = { dc: periodMean(t, v), rms: periodRms(t, v), peak: peakMagnitude(v) };
+    nets[n] = {
+      dc: periodMean(t, v, damped),
+      rms: periodRms(t, v, damped),
+      peak: peakMagnitude(v),
+    };
     series[`net.${n}`] = v;
   }
 
@@ -137,9 +151,9 @@ export function cycleFigures(c: Circuit, steady: SteadyState): CycleFigures {
         Math.abs(kclSum[k * c.nodeCount + i]! + GMIN_SIEMENS * samples[k]!.x[i]!),
       );
 
-  const currentRms = periodRms(t, iIn);
-  const power = periodMeanProduct(t, vIn, iIn);
-  const apparent = periodRms(t, vIn) * currentRms;
+  const currentRms = periodRms(t, iIn, damped);
+  const power = periodMeanPower(t, vIn, iIn, 1, damped);
+  const apparent = periodRms(t, vIn, damped) * currentRms;
   const fftPoints = FFT_POINTS * 2 ** Math.ceil(Math.log2(cyclesInWindow));
   const input: InputFigures = {
     current_rms: currentRms,
@@ -153,50 +167,15 @@ export function cycleFigures(c: Circuit, steady: SteadyState): CycleFigures {
 
   const nOut = Math.min(MAX_WAVEFORM_POINTS, t.length);
   const tOut = Array.from({ length: nOut }, (_, k) => (window * k) / nOut);
+  const names = Object.keys(series);
+  const plotted = resampleForPlot(
+    t,
+    names.map((name) => series[name]!),
+    nOut,
+  );
   const out: Record<string, number[]> = {};
-  for (const [name, y] of Object.entries(series))
-    out[name] = Array.from(resampleUniform(t, y, nOut));
+  names.forEach((name, k) => (out[name] = Array.from(plotted[k]!)));
   return { input, parts, nets, firings, waveforms: { t: tOut, series: out }, kclResidualAmps: kcl };
-}
-
-/**
- * Mean power into a part's terminals: per step, the step-average terminal voltages times the
- * step-average terminal currents. Under the trapezoidal rule a capacitor's or inductor's
- * companion model makes this exactly its energy change over the step, so storage parts show
- * zero mean power over a window that repeats; a trapezoid of the products would leave a
- * spurious -h/4·Δv·Δi per step, which is large where a fast ring is stepped across.
- */
-/** Mean power into a part's terminals by the trapezoid of Σ v·i at the samples. */
-function trapezoidPower(
-  t: Float64Array,
-  volts: Float64Array,
-  amps: Float64Array,
-  nt: number,
-): number {
-  let e = 0;
-  let before = 0;
-  for (let k = 0; k < t.length; k++) {
-    let p = 0;
-    for (let q = 0; q < nt; q++) p += volts[k * nt + q]! * amps[k * nt + q]!;
-    if (k > 0) e += 0.5 * (t[k]! - t[k - 1]!) * (p + before);
-    before = p;
-  }
-  const span = t[t.length - 1]! - t[0]!;
-  return span > 0 ? e / span : before;
-}
-
-function stepPower(t: Float64Array, volts: Float64Array, amps: Float64Array, nt: number): number {
-  let e = 0;
-  for (let k = 1; k < t.length; k++) {
-    let p = 0;
-    for (let q = 0; q < nt; q++)
-      p +=
-        (volts[(k - 1) * nt + q]! + volts[k * nt + q]!) *
-        (amps[(k - 1) * nt + q]! + amps[k * nt + q]!);
-    e += 0.25 * (t[k]! - t[k - 1]!) * p;
-  }
-  const span = t[t.length - 1]! - t[0]!;
-  return span > 0 ? e / span : 0;
 }
 
 /** Whether and where each thyristor/triac fires in the steady cycle (cheap: events and latches only). */

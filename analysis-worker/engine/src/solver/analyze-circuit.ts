@@ -3,6 +3,7 @@
  * supply) and `analyzeCircuit` (the record-format result fields the solver owns: supply, input,
  * parts, nets, triggers, waveforms, the linear view and the solver's own account).
  */
+import type { Assumption, Gap } from "../record/gaps-and-assumptions.js";
 import type { Supply, TeardownRecord } from "../record/types.js";
 import { ENGINE_VERSION } from "../engine-version.js";
 import type { CycleFigures, FiringFigures } from "../figures/circuit-figures.js";
@@ -11,6 +12,7 @@ import type { AcSolution } from "./ac-phasor.js";
 import { solveAcCircuit } from "./ac-phasor.js";
 import type { Circuit } from "./circuit-model.js";
 import { compileCircuit } from "./circuit-model.js";
+import { THERMAL_VOLTAGE_V } from "./device-models.js";
 import type { LuChoice } from "./mna.js";
 import { GMIN_SIEMENS } from "./mna.js";
 import { gateMargin, lowestFiringSupply } from "./min-firing-supply.js";
@@ -67,11 +69,17 @@ export interface CircuitAnalysis {
   }>;
   waveforms: CycleFigures["waveforms"];
   linear: AcSolution;
+  /** Parts and nets left out of the simulation, and why. */
+  gaps: Gap[];
+  /** Every default model value the solver chose where the record was silent. */
+  assumptions: Assumption[];
   solver: {
     method: "cycles" | "shooting";
     cycles: number;
     steps: number;
+    /** Circuit-wide modelling choices (not tied to a part), in words. */
     assumptions: string[];
+    /** Free-text remarks on how parts were modelled. */
     notes: string[];
     kcl_residual_amps: number;
     periodic_residual: number;
@@ -246,13 +254,15 @@ export function analyzeCircuit(
       triggers,
       waveforms: figures.waveforms,
       linear: linear.value,
+      gaps: circuit.gaps,
+      assumptions: circuit.assumptions,
       solver: {
         method: steady.method,
         cycles,
         steps,
         assumptions: [
-          ...circuit.assumptions,
           `gmin ${GMIN_SIEMENS} S from every net to ${circuit.reference}`,
+          `junctions at 300 K (thermal voltage ${THERMAL_VOLTAGE_V} V)`,
         ],
         notes: circuit.notes,
         kcl_residual_amps: figures.kclResidualAmps,

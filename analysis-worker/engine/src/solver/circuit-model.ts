@@ -4,6 +4,7 @@
  * branch-current unknowns of modified nodal analysis, and the structural checks that would
  * otherwise show up as a singular matrix (floating nets, loops of voltage sources).
  */
+import type { Assumption, Gap } from "../record/gaps-and-assumptions.js";
 import type { Supply, TeardownRecord } from "../record/types.js";
 import { kindInfo } from "../graph/kinds.js";
 import type { JunctionParams, SwitchingParams } from "./device-models.js";
@@ -62,7 +63,11 @@ export interface Circuit {
   devices: CircuitDevice[];
   memSize: number;
   supply: Supply;
-  assumptions: string[];
+  /** Parts and nets left out of the simulation, and why. */
+  gaps: Gap[];
+  /** Every default model value chosen where the record was silent. */
+  assumptions: Assumption[];
+  /** Free-text remarks that are neither (how a part was modelled). */
   notes: string[];
 }
 
@@ -85,8 +90,10 @@ function memFor(type: CircuitDevice["type"], windings: number): number {
 
 /** Compiles a record at the given supply; structural problems come back as values. */
 export function compileCircuit(rec: TeardownRecord, supply: Supply): SolverOutcome<Circuit> {
-  const assumptions: string[] = [];
+  const assumptions: Assumption[] = [];
+  const gaps: Gap[] = [];
   const notes: string[] = [];
+  const leaveOut = (part: string, reason: string) => gaps.push({ part, reason });
   const netNames = Object.keys(rec.nets).sort();
   for (const p of rec.parts)
     for (const n of Object.values(p.pins)) if (!netNames.includes(n)) netNames.push(n);
@@ -150,11 +157,11 @@ export function compileCircuit(rec: TeardownRecord, supply: Supply): SolverOutco
   for (const p of rec.parts) {
     const info = kindInfo(p.kind);
     if (info === null) {
-      notes.push(`${p.ref}: kind "${p.kind}" is not simulated (left out)`);
+      leaveOut(p.ref, `unknown kind "${p.kind}"`);
       continue;
     }
     if (info.documentationOnly) {
-      notes.push(`${p.ref}: ${p.kind} is documentation only (left out)`);
+      leaveOut(p.ref, `a ${p.kind} is documentation only`);
       continue;
     }
     const pinNets =
@@ -162,7 +169,7 @@ export function compileCircuit(rec: TeardownRecord, supply: Supply): SolverOutco
         ? [p.pins.plus, p.pins.minus]
         : info.pins.map((r) => p.pins[r]);
     if (pinNets.some((n) => n === undefined)) {
-      notes.push(`${p.ref}: a pin is not connected (left out)`);
+      leaveOut(p.ref, "a pin is not connected");
       continue;
     }
     const nets = pinNets as string[];
@@ -185,7 +192,7 @@ export function compileCircuit(rec: TeardownRecord, supply: Supply): SolverOutco
     };
     switch (p.kind) {
       case "resistor":
-        if (p.value === null) notes.push(`${p.ref}: no value (left out)`);
+        if (p.value === null) leaveOut(p.ref, "a resistor without a value");
         else {
           if (p.value === 0) notes.push(`${p.ref}: 0 Ω, modelled as an ideal link (a 0 V source)`);
           resistance(p.value);
@@ -194,26 +201,46 @@ export function compileCircuit(rec: TeardownRecord, supply: Supply): SolverOutco
       case "fuse": {
         const r = p.model.r ?? FUSE_DEFAULT_OHMS;
         if (p.model.r === undefined)
-          assumptions.push(`${p.ref}: cold resistance ${FUSE_DEFAULT_OHMS} Ω`);
+          assumptions.push({
+            part: p.ref,
+            field: "model.r",
+            value: FUSE_DEFAULT_OHMS,
+            why: "cold resistance not in the record; a small fuse's value",
+          });
         resistance(r);
         break;
       }
       case "switch":
+        assumptions.push({
+          part: p.ref,
+          field: "model.r",
+          value: p.closed ? SWITCH_CLOSED_OHMS : OFF_STATE_OHMS,
+          why: p.closed
+            ? "a closed contact taken as this small resistance"
+            : "an open contact taken as this large resistance",
+        });
         two(p.closed ? 1 / SWITCH_CLOSED_OHMS : 1 / OFF_STATE_OHMS);
         break;
       case "capacitor":
-        if (p.value === null) notes.push(`${p.ref}: no value (left out)`);
+        if (p.value === null) leaveOut(p.ref, "a capacitor without a value");
         else add("capacitor", 0, (mem) => ({ ...base, mem, type: "capacitor", c: p.value! }), 0);
         break;
       case "load":
         if (p.model.r !== undefined) resistance(p.model.r);
         else if (p.model.c !== undefined)
           add("capacitor", 0, (mem) => ({ ...base, mem, type: "capacitor", c: p.model.c! }), 0);
-        else notes.push(`${p.ref}: load without model.r or model.c (left out)`);
+        else leaveOut(p.ref, "load without a resistance (model.r) or capacitance (model.c)");
         break;
       case "inductor":
-        if (p.value === null) notes.push(`${p.ref}: no value (left out)`);
-        else
+        if (p.value === null) leaveOut(p.ref, "an inductor without a value");
+        else {
+          if (p.model.r === undefined)
+            assumptions.push({
+              part: p.ref,
+              field: "model.r",
+              value: 0,
+              why: "winding resistance not in the record; taken as none",
+            });
           add(
             "coupled",
             1,
@@ -227,6 +254,7 @@ export function compileCircuit(rec: TeardownRecord, supply: Supply): SolverOutco
             }),
             1,
           );
+        }
         break;
       case "transformer": {
         const m = transformerModel(p, assumptions);
@@ -289,14 +317,14 @@ export function compileCircuit(rec: TeardownRecord, supply: Supply): SolverOutco
         break;
       }
       default:
-        notes.push(`${p.ref}: kind "${p.kind}" is not simulated (left out)`);
+        leaveOut(p.ref, `a ${p.kind} is not simulated`);
     }
     for (const n of nets) usedNets.add(n);
   }
   const nodeCount = nodeNames.length;
   const devices = pending.map((d) => d.build(nodeCount));
   for (const n of netNames)
-    if (!usedNets.has(n)) notes.push(`net ${n}: touches no simulated part (left out)`);
+    if (!usedNets.has(n)) gaps.push({ net: n, reason: "touches no simulated part" });
 
   const structural = checkStructure(devices, line, reference);
   if (structural !== null) return structural;
@@ -317,6 +345,7 @@ export function compileCircuit(rec: TeardownRecord, supply: Supply): SolverOutco
       devices,
       memSize,
       supply,
+      gaps,
       assumptions,
       notes,
     },

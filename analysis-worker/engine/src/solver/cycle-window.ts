@@ -12,8 +12,7 @@ export function joinCycles(parts: CycleRun[], period: number): CycleRun {
   const events: CycleRun["events"] = [];
   let steps = 0;
   parts.forEach((p, j) => {
-    for (const s of p.samples)
-      samples.push(j === 0 ? s : { t: s.t + j * period, x: s.x, mem: s.mem });
+    for (const s of p.samples) samples.push(j === 0 ? s : { ...s, t: s.t + j * period });
     for (const e of p.events) events.push({ ...e, t: e.t + j * period });
     steps += p.steps;
   });

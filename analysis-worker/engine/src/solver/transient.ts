@@ -37,8 +37,23 @@ export const LTE_VOLT_ABSTOL_PER_VPK = 1e-5;
 export const LTE_AMP_ABSTOL_A = 1e-7;
 /** Largest step, as a fraction of the supply period (3.6 degrees); the LTE control sets the rest. */
 export const MAX_STEP_PER_PERIOD = 1 / 100;
-/** First step after the cycle start or a switching event, as a fraction of the period. */
+/** First step after the cycle start, as a fraction of the period. */
 export const DAMPED_STEP_PER_PERIOD = 1e-5;
+/**
+ * First step after a thyristor/triac switches, as a fraction of the period (0.2 ns at 50 Hz): a
+ * capacitor across the switch discharges through its on-resistance within nanoseconds, and the
+ * step control can only follow that decay if the first steps are shorter than it.
+ */
+export const EVENT_STEP_PER_PERIOD = 1e-8;
+/**
+ * After a switching event, steps shorter than this fraction of the period (2 µs at 50 Hz) may
+ * grow by up to FAST_GROWTH from one step to the next while the error allows; others by 2. The
+ * short steps after an event follow a decay that is over within a few of them.
+ */
+export const FAST_GROWTH_BELOW_PER_PERIOD = 1e-4;
+export const FAST_GROWTH = 8;
+/** Backward-Euler steps taken after the cycle start, a failed step or a switching event. */
+export const DAMPED_STEPS = 1;
 /** Smallest step before Newton failure is reported, as a fraction of the period. */
 export const MIN_STEP_PER_PERIOD = 1e-10;
 /** Switching events are located to this many degrees of the supply cycle (the goal is 0.05). */
@@ -69,6 +84,11 @@ export interface CycleSample {
   t: number;
   x: Float64Array;
   mem: Float64Array;
+  /**
+   * True when the step ending here was backward Euler: its quantities hold over the whole step
+   * (right-endpoint rule) rather than varying linearly from the previous point (trapezoid).
+   */
+  damped: boolean;
 }
 
 /** Result of simulating one cycle from a start memory. */
@@ -293,6 +313,8 @@ export class TransientSolver {
     const vpk = c.supply.vrms * Math.SQRT2;
     const hMax = period * MAX_STEP_PER_PERIOD;
     const hDamped = period * DAMPED_STEP_PER_PERIOD;
+    const hEvent = period * EVENT_STEP_PER_PERIOD;
+    const hFast = period * FAST_GROWTH_BELOW_PER_PERIOD;
     const hMin = period * MIN_STEP_PER_PERIOD;
     const eventTol = (EVENT_TOL_DEG / 360) * period;
     const breaks = [0.25, 0.5, 0.75, 1].map((f) => f * period);
@@ -300,7 +322,10 @@ export class TransientSolver {
     let x: Float64Array = xGuess.slice();
     let t = 0;
     let h = hDamped;
-    let damped = true;
+    // Backward-Euler steps still to take before the trapezoidal rule resumes.
+    let dampedLeft = DAMPED_STEPS;
+    // True from a switching event until the step has grown back to hFast.
+    let afterEvent = false;
     let hist: Array<{ t: number; s: Float64Array }> = [{ t: 0, s: this.storageOf(mem) }];
     const samples: CycleSample[] = [];
     const events: CycleRun["events"] = [];
@@ -320,7 +345,7 @@ export class TransientSolver {
         });
       const nextBreak = breaks.find((b) => b > t * (1 + 1e-12) + 1e-15) ?? period;
       const hTry = Math.min(h, hMax, nextBreak - t);
-      const trap = !damped;
+      const trap = dampedLeft === 0;
       const out = this.step(t + hTry, hTry, trap, x, mem);
       if (!out.ok) {
         if (out.kind === "singular") {
@@ -332,7 +357,7 @@ export class TransientSolver {
           });
         }
         h = hTry / 4;
-        damped = true;
+        dampedLeft = DAMPED_STEPS;
         if (h < hMin) {
           return solverFailure(
             "no-convergence",
@@ -347,7 +372,7 @@ export class TransientSolver {
       }
       const s = this.storageOf(out.work);
       const ratio = this.lteRatio([...hist, { t: t + hTry, s }], trap, vpk);
-      if (ratio > 1.5 && hTry > 4 * hDamped) {
+      if (ratio > 1.5 && hTry > 4 * (afterEvent ? hEvent : hDamped)) {
         h = hTry * Math.max(0.2, 0.9 * Math.cbrt(1 / ratio));
         continue;
       }
@@ -396,7 +421,7 @@ export class TransientSolver {
       mem = accepted.work;
       steps++;
       // Recorded before a latch flips: the point was solved with the old latch state.
-      if (record) samples.push({ t, x, mem: mem.slice() });
+      if (record) samples.push({ t, x, mem: mem.slice(), damped: !trap });
       if (flips.length > 0) {
         for (const d of flips) {
           const on = mem[d.mem]! < 0.5;
@@ -404,15 +429,18 @@ export class TransientSolver {
           lastFlip.set(d.ref, t);
           events.push({ ref: d.ref, t, on });
         }
-        damped = true;
-        h = hDamped;
+        dampedLeft = DAMPED_STEPS;
+        h = hEvent;
+        afterEvent = true;
         hist = [{ t, s: this.storageOf(mem) }];
       } else {
         hist.push({ t, s });
         if (hist.length > 4) hist.shift();
-        const grow = ratio > 0 ? Math.min(2, Math.max(0.3, 0.9 * Math.cbrt(1 / ratio))) : 2;
+        if (hAcc >= hFast) afterEvent = false;
+        const most = afterEvent ? FAST_GROWTH : 2;
+        const grow = ratio > 0 ? Math.min(most, Math.max(0.3, 0.9 * Math.cbrt(1 / ratio))) : 2;
         h = hAcc * grow;
-        damped = false;
+        if (dampedLeft > 0) dampedLeft--;
       }
     }
     this.totalSteps += steps;
