@@ -156,7 +156,11 @@ export async function signUp(
 ): Promise<TestUser> {
   const res = await call("POST", "/api/auth/sign-up/email", { json: { name, email, password } });
   if (res.status !== 200) throw new Error(`sign-up failed (${res.status}): ${res.text}`);
-  return { id: res.body.user.id, name, email, password, as: { cookie: cookieFrom(res) } };
+  // Sign-up signs nobody in (so it cannot tell a taken email from a new one): sign in next.
+  const signedIn = await call("POST", "/api/auth/sign-in/email", { json: { email, password } });
+  if (signedIn.status !== 200)
+    throw new Error(`sign-in after sign-up failed (${signedIn.status}): ${signedIn.text}`);
+  return { id: signedIn.body.user.id, name, email, password, as: { cookie: cookieFrom(signedIn) } };
 }
 
 /** Signs in again (a second session). */
