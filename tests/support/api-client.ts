@@ -28,6 +28,7 @@ const ROUTES: [string, () => Promise<RouteModule>][] = [
   ],
   ["/api/teams/:teamId/invites", () => import("@/app/api/teams/[teamId]/invites/route")],
   ["/api/teams/:teamId/entries", () => import("@/app/api/teams/[teamId]/entries/route")],
+  ["/api/teams/:teamId/audit", () => import("@/app/api/teams/[teamId]/audit/route")],
   ["/api/invites/:token", () => import("@/app/api/invites/[token]/route")],
   ["/api/entries", () => import("@/app/api/entries/route")],
   ["/api/entries/:entryId", () => import("@/app/api/entries/[entryId]/route")],

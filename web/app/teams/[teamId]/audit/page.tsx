@@ -39,7 +39,8 @@ export default async function TeamAuditPage(props: {
   const { before } = await props.searchParams;
   const caller = await requirePageCaller(`/teams/${teamId}/audit`);
   if (!UUID.test(teamId)) notFound();
-  const beforeId = typeof before === "string" && /^[1-9][0-9]{0,14}$/.test(before) ? Number(before) : undefined;
+  const beforeId =
+    typeof before === "string" && /^[1-9][0-9]{0,14}$/.test(before) ? Number(before) : undefined;
   let team;
   let page;
   try {

@@ -13,10 +13,7 @@ const auditQuery = z.object({
   before: z.coerce.number().int().positive().max(Number.MAX_SAFE_INTEGER).optional(),
 });
 
-export function GET(
-  req: Request,
-  ctx: { params: Promise<{ teamId: string }> },
-): Promise<Response> {
+export function GET(req: Request, ctx: { params: Promise<{ teamId: string }> }): Promise<Response> {
   return answer(async () => {
     const caller = await requireCaller(req);
     const teamId = uuidParam((await ctx.params).teamId, "team");
