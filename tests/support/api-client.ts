@@ -121,7 +121,9 @@ export async function call(
     headers.set("content-type", encoded.headers.get("content-type")!);
     body = new Uint8Array(await encoded.arrayBuffer());
   }
-  const req = new Request(url, { method, headers, ...(body !== undefined ? { body } : {}) });
+  // duplex "half" lets a test send a streamed body (Node's fetch requires it for streams).
+  const init = { method, headers, ...(body !== undefined ? { body, duplex: "half" } : {}) };
+  const req = new Request(url, init as RequestInit);
   const res = await handler(req, { params: Promise.resolve(found.params) as Promise<never> });
   const bytes = new Uint8Array(await res.arrayBuffer());
   const text = new TextDecoder().decode(bytes);
