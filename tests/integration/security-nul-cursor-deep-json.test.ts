@@ -145,6 +145,14 @@ describe("deeply nested JSON", () => {
     expect(auth.status).toBe(400);
   });
 
+  it("100k levels in an uploaded JSON file: 400 naming the file, and the process survives", async () => {
+    const form = new FormData();
+    form.set("file", new File(["[".repeat(100_000) + "]".repeat(100_000)], "deep.json"));
+    const res = await call("POST", `/api/teams/${teamId}/entries`, { as: ida.as, form });
+    expect(res.status).toBe(400);
+    expect(res.body.error).toMatchObject({ code: "too-deep", path: "file" });
+  });
+
   it("counts depth outside strings only, and allows exactly the limit", () => {
     const at = (n: number) => "[".repeat(n) + "]".repeat(n);
     expect(depthExceededAt(at(MAX_JSON_DEPTH))).toBe(-1);

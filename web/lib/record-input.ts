@@ -14,7 +14,9 @@ import {
 import { ApiError } from "./api-error";
 import {
   MAX_JSON_BODY_BYTES,
+  MAX_JSON_DEPTH,
   MULTIPART_OVERHEAD_BYTES,
+  depthExceededAt,
   formFile,
   formText,
   mediaType,
@@ -62,6 +64,20 @@ export function acceptRecordText(text: string, filename?: string): AcceptedRecor
         ],
       },
     );
+  }
+  // A JSON file nested 100k deep exhausts the process's memory inside the reader; refuse such
+  // nesting first, by the same count as JSON bodies (a record is a few levels deep).
+  if (/\.json$/i.test(filename ?? "") || /^\s*[[{]/.test(text)) {
+    const deep = depthExceededAt(text);
+    if (deep >= 0) {
+      const line = text.slice(0, deep).split("\n").length;
+      throw new ApiError(
+        400,
+        "too-deep",
+        `file: line ${line} nests objects and arrays more than ${MAX_JSON_DEPTH} levels deep`,
+        { path: "file" },
+      );
+    }
   }
   const read = readCircuitFile(text, filename === undefined ? {} : { filename });
   if (!read.ok) {
