@@ -1,5 +1,6 @@
 /**
- * Stamps each incoming request with its TCP peer's address, under a header a client cannot set.
+ * Where a request comes from: each incoming request is stamped with its TCP peer's address,
+ * under a header a client cannot set, and TRUSTED_PROXY_HOPS says how many proxies to believe.
  * Why a hook: Next's server keeps a client-sent `X-Forwarded-For` as it is and only fills it
  * from the socket when absent, and gives route handlers no socket, so without this a client
  * could choose the address its rate limits count against.
@@ -32,4 +33,18 @@ export function installPeerAddressHook(): void {
     if (event === "request") stampPeerAddress(args[0] as http.IncomingMessage);
     return Reflect.apply(emit, this, [event, ...args]) as boolean;
   } as typeof emit;
+}
+
+/**
+ * How many proxies in front of the app to believe (`TRUSTED_PROXY_HOPS`, default 0). With 0 the
+ * client's own `X-Forwarded-For` is ignored; with 1 the address the nearest proxy appended is
+ * used, and so on. A value that is not a small whole number stops the web server at start
+ * (instrumentation.ts reads it once) and is read again per request, so a test can change it.
+ */
+export function trustedProxyHops(): number {
+  const raw = process.env.TRUSTED_PROXY_HOPS ?? "0";
+  if (!/^[0-9]$/.test(raw.trim())) {
+    throw new Error(`TRUSTED_PROXY_HOPS must be a whole number from 0 to 9 (got "${raw}")`);
+  }
+  return Number(raw.trim());
 }

@@ -6,7 +6,7 @@
  */
 import { ApiError } from "./api-error";
 import { appUrl, trustedOrigins } from "./auth";
-import { PEER_ADDRESS_HEADER } from "./peer-address-hook";
+import { PEER_ADDRESS_HEADER, trustedProxyHops } from "./peer-address-hook";
 
 /** Methods that change nothing, so a foreign page gains nothing by sending them with a cookie. */
 const SAFE_METHODS = new Set(["GET", "HEAD", "OPTIONS"]);
@@ -27,20 +27,6 @@ export function checkWriteOrigin(req: Request): void {
       ? "a signed-in write must come from the app's own pages (no Origin header); scripts use an API token"
       : `a signed-in write must come from the app's own pages (${appUrl()}), not from ${origin.slice(0, 200)}`,
   );
-}
-
-/**
- * How many proxies in front of the app to believe (`TRUSTED_PROXY_HOPS`, default 0). With 0 the
- * client's own `X-Forwarded-For` is ignored; with 1 the address the nearest proxy appended is
- * used, and so on. A value that is not a small whole number stops the request as a bug in the
- * deployment (it is read on every request so a test can change it).
- */
-export function trustedProxyHops(): number {
-  const raw = process.env.TRUSTED_PROXY_HOPS ?? "0";
-  if (!/^[0-9]$/.test(raw.trim())) {
-    throw new Error(`TRUSTED_PROXY_HOPS must be a whole number from 0 to 9 (got "${raw}")`);
-  }
-  return Number(raw.trim());
 }
 
 /**
