@@ -2,7 +2,7 @@
  * Accounts and sessions. The column set follows what the authentication library's Drizzle
  * adapter expects (its schema generator does not run on Node 20, so the tables are written here).
  */
-import { boolean, index, pgTable, text, timestamp } from "drizzle-orm/pg-core";
+import { boolean, index, pgTable, text, timestamp, type AnyPgColumn } from "drizzle-orm/pg-core";
 
 const stamps = {
   createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
@@ -76,6 +76,12 @@ export const apiTokens = pgTable(
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
     lastUsedAt: timestamp("last_used_at", { withTimezone: true }),
     revokedAt: timestamp("revoked_at", { withTimezone: true }),
+    /** The token that minted this one (null when made from a signed-in session). */
+    parentId: text("parent_id").references((): AnyPgColumn => apiTokens.id, {
+      onDelete: "cascade",
+    }),
+    /** When the token stops working by itself; never later than its parent's. */
+    expiresAt: timestamp("expires_at", { withTimezone: true }),
   },
-  (t) => [index("api_tokens_user_idx").on(t.userId)],
+  (t) => [index("api_tokens_user_idx").on(t.userId), index("api_tokens_parent_idx").on(t.parentId)],
 );

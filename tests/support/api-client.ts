@@ -28,6 +28,7 @@ const ROUTES: [string, () => Promise<RouteModule>][] = [
   ],
   ["/api/teams/:teamId/invites", () => import("@/app/api/teams/[teamId]/invites/route")],
   ["/api/teams/:teamId/entries", () => import("@/app/api/teams/[teamId]/entries/route")],
+  ["/api/teams/:teamId/audit", () => import("@/app/api/teams/[teamId]/audit/route")],
   ["/api/invites/:token", () => import("@/app/api/invites/[token]/route")],
   ["/api/entries", () => import("@/app/api/entries/route")],
   ["/api/entries/:entryId", () => import("@/app/api/entries/[entryId]/route")],
@@ -120,7 +121,9 @@ export async function call(
     headers.set("content-type", encoded.headers.get("content-type")!);
     body = new Uint8Array(await encoded.arrayBuffer());
   }
-  const req = new Request(url, { method, headers, ...(body !== undefined ? { body } : {}) });
+  // duplex "half" lets a test send a streamed body (Node's fetch requires it for streams).
+  const init = { method, headers, ...(body !== undefined ? { body, duplex: "half" } : {}) };
+  const req = new Request(url, init as RequestInit);
   const res = await handler(req, { params: Promise.resolve(found.params) as Promise<never> });
   const bytes = new Uint8Array(await res.arrayBuffer());
   const text = new TextDecoder().decode(bytes);
@@ -156,7 +159,11 @@ export async function signUp(
 ): Promise<TestUser> {
   const res = await call("POST", "/api/auth/sign-up/email", { json: { name, email, password } });
   if (res.status !== 200) throw new Error(`sign-up failed (${res.status}): ${res.text}`);
-  return { id: res.body.user.id, name, email, password, as: { cookie: cookieFrom(res) } };
+  // Sign-up signs nobody in (so it cannot tell a taken email from a new one): sign in next.
+  const signedIn = await call("POST", "/api/auth/sign-in/email", { json: { email, password } });
+  if (signedIn.status !== 200)
+    throw new Error(`sign-in after sign-up failed (${signedIn.status}): ${signedIn.text}`);
+  return { id: signedIn.body.user.id, name, email, password, as: { cookie: cookieFrom(signedIn) } };
 }
 
 /** Signs in again (a second session). */

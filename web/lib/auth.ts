@@ -13,6 +13,10 @@ import { database } from "./database";
 
 /** The shortest password accepted. */
 export const MIN_PASSWORD_CHARS = 10;
+/** The longest password accepted (scrypt reads all of it). */
+export const MAX_PASSWORD_CHARS = 128;
+/** The longest user name accepted (it is shown beside every comment and in member lists). */
+export const MAX_USER_NAME_CHARS = 100;
 /** How long a session lasts without use, in seconds (30 days). */
 const SESSION_EXPIRES_SECONDS = 30 * 24 * 60 * 60;
 
@@ -28,7 +32,7 @@ export function appUrl(): string {
 }
 
 /** Extra origins allowed besides APP_URL (comma-separated `TRUSTED_ORIGINS`, e.g. a second host name). */
-function trustedOrigins(): string[] {
+export function trustedOrigins(): string[] {
   const extra = (process.env.TRUSTED_ORIGINS ?? "")
     .split(",")
     .map((s) => s.trim())
@@ -53,9 +57,20 @@ function makeAuth() {
         verifications: schema.verifications,
       },
     }),
-    emailAndPassword: { enabled: true, minPasswordLength: MIN_PASSWORD_CHARS, autoSignIn: true },
+    // No sign-in at sign-up: better-auth then answers a taken email exactly as a new one (same
+    // status, same shape, a password hashed either way), so sign-up tells nobody who has an
+    // account. The form signs in right after.
+    emailAndPassword: {
+      enabled: true,
+      minPasswordLength: MIN_PASSWORD_CHARS,
+      maxPasswordLength: MAX_PASSWORD_CHARS,
+      autoSignIn: false,
+    },
     session: { expiresIn: SESSION_EXPIRES_SECONDS },
     telemetry: { enabled: false },
+    // Attempts are limited by our request guard, which knows which proxy hop to believe;
+    // better-auth's own limiter would key on the client's X-Forwarded-For.
+    rateLimit: { enabled: false },
     // better-auth skips the origin check when NODE_ENV is "test"; keep it on everywhere, so tests
     // exercise what production does.
     advanced: { disableOriginCheck: false },

@@ -37,11 +37,51 @@ function encodeCursor(c: Cursor): string {
   return Buffer.from(JSON.stringify(c)).toString("base64url");
 }
 
-function decodeCursor(text: string): Cursor {
+const CURSOR_ID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+// The form Postgres prints a timestamptz in (what encodeCursor stores for the "updated" sort).
+const CURSOR_TIME =
+  /^(\d{4})-(\d{2})-(\d{2}) (\d{2}):(\d{2}):(\d{2})(\.\d{1,6})?[+-]\d{2}(:\d{2})?$/;
+
+/** True when `v` is a timestamp Postgres printed: the right shape and a real calendar time. */
+function isCursorTime(v: string): boolean {
+  const m = CURSOR_TIME.exec(v);
+  if (!m) return false;
+  const [y, mo, d, h, mi, s] = m.slice(1, 7).map(Number) as [
+    number,
+    number,
+    number,
+    number,
+    number,
+    number,
+  ];
+  const t = new Date(Date.UTC(y, mo - 1, d, h, mi, s));
+  // Date.UTC rolls 31 February over into March; a real time survives the round trip unchanged.
+  return (
+    y >= 1 &&
+    t.getUTCFullYear() === y &&
+    t.getUTCMonth() === mo - 1 &&
+    t.getUTCDate() === d &&
+    t.getUTCHours() === h &&
+    t.getUTCMinutes() === mi &&
+    t.getUTCSeconds() === s
+  );
+}
+
+/**
+ * Reads a cursor back, checking every part before it reaches SQL: the id a uuid, the sort value
+ * a timestamp for the "updated" sort or NUL-free text for "title". Anything else is 422.
+ */
+function decodeCursor(text: string, byTitle: boolean): Cursor {
   try {
-    const c = JSON.parse(Buffer.from(text, "base64url").toString("utf8")) as Cursor;
-    if (typeof c.v === "string" && typeof c.id === "string" && /^[0-9a-f-]{36}$/i.test(c.id))
-      return c;
+    const c = JSON.parse(Buffer.from(text, "base64url").toString("utf8")) as Partial<Cursor>;
+    const v = c?.v;
+    if (
+      typeof v === "string" &&
+      typeof c.id === "string" &&
+      CURSOR_ID.test(c.id) &&
+      (byTitle ? !v.includes("\u0000") && v.length <= 1000 : isCursorTime(v))
+    )
+      return { v, id: c.id };
   } catch {
     // fall through to the 422 below
   }
@@ -94,7 +134,7 @@ export async function listEntries(
 
   const byTitle = query.sort === "title";
   if (query.cursor) {
-    const c = decodeCursor(query.cursor);
+    const c = decodeCursor(query.cursor, byTitle);
     where.push(
       byTitle
         ? sql`(${e.title}, ${e.id}) > (${c.v}, ${c.id}::uuid)`

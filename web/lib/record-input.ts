@@ -14,7 +14,9 @@ import {
 import { ApiError } from "./api-error";
 import {
   MAX_JSON_BODY_BYTES,
+  MAX_JSON_DEPTH,
   MULTIPART_OVERHEAD_BYTES,
+  depthExceededAt,
   formFile,
   formText,
   mediaType,
@@ -42,6 +44,41 @@ export const MAX_CIRCUIT_FILE_BYTES = MAX_RECORD_TEXT_CHARS;
 
 /** Reads circuit-file text with the engine: the accepted record, or 422 with every error. */
 export function acceptRecordText(text: string, filename?: string): AcceptedRecord {
+  const nul = text.indexOf("\u0000");
+  if (nul >= 0) {
+    const line = text.slice(0, nul).split("\n").length;
+    throw new ApiError(
+      400,
+      "nul-character",
+      `file: line ${line} contains a NUL character (U+0000)`,
+      {
+        path: "file",
+        errors: [
+          {
+            path: "file",
+            line,
+            column: null,
+            code: "nul-character",
+            message: "a NUL character (U+0000)",
+          },
+        ],
+      },
+    );
+  }
+  // A JSON file nested 100k deep exhausts the process's memory inside the reader; refuse such
+  // nesting first, by the same count as JSON bodies (a record is a few levels deep).
+  if (/\.json$/i.test(filename ?? "") || /^\s*[[{]/.test(text)) {
+    const deep = depthExceededAt(text);
+    if (deep >= 0) {
+      const line = text.slice(0, deep).split("\n").length;
+      throw new ApiError(
+        400,
+        "too-deep",
+        `file: line ${line} nests objects and arrays more than ${MAX_JSON_DEPTH} levels deep`,
+        { path: "file" },
+      );
+    }
+  }
   const read = readCircuitFile(text, filename === undefined ? {} : { filename });
   if (!read.ok) {
     const first = read.errors[0];
@@ -63,11 +100,26 @@ export function acceptRecordText(text: string, filename?: string): AcceptedRecor
       },
     );
   }
-  return {
-    record: read.record,
-    document: JSON.parse(serializeRecord(read.record, "json")) as Record<string, unknown>,
-    warnings: read.warnings,
-  };
+  const document = JSON.parse(serializeRecord(read.record, "json")) as Record<string, unknown>;
+  checkStoredSize(document);
+  return { record: read.record, document, warnings: read.warnings };
+}
+
+/**
+ * The limit applies to the stored form, not only to the upload: the worker reads a revision back
+ * as compact JSON through the same reader, which refuses more than MAX_RECORD_TEXT_CHARS. A
+ * compact deck or YAML file can grow past that as JSON, and would then be accepted here only to
+ * fail its analysis; so it is refused now, with both sizes named.
+ */
+export function checkStoredSize(document: Record<string, unknown>): void {
+  const stored = JSON.stringify(document).length;
+  if (stored <= MAX_RECORD_TEXT_CHARS) return;
+  throw new ApiError(
+    413,
+    "too-large",
+    `the record is ${stored} characters once stored as JSON; the limit is ${MAX_RECORD_TEXT_CHARS}. Split the board into several entries, or trim notes.`,
+    { path: "record", limitChars: MAX_RECORD_TEXT_CHARS, storedChars: stored },
+  );
 }
 
 /** Reads a record document given as a JSON value (pretty-printed first, so errors carry lines). */

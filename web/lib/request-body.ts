@@ -93,17 +93,82 @@ export function validate<S extends z.ZodType>(
   return parsed.data;
 }
 
-/** Parses JSON text, or throws 400. */
-export function parseJsonText(text: string): unknown {
+/**
+ * The deepest nesting of objects and arrays a JSON body may have. A record is a few levels deep;
+ * 100k levels would overflow the stack of whatever walks the value next.
+ */
+export const MAX_JSON_DEPTH = 64;
+
+/**
+ * The nesting depth of JSON text, counted without parsing (brackets outside strings), stopping
+ * as soon as it passes `limit`: returns the 0-based character offset where it did, or -1.
+ */
+export function depthExceededAt(text: string, limit = MAX_JSON_DEPTH): number {
+  let depth = 0;
+  let inString = false;
+  for (let i = 0; i < text.length; i++) {
+    const c = text.charCodeAt(i);
+    if (inString) {
+      if (c === 0x5c)
+        i++; // backslash: skip the escaped character
+      else if (c === 0x22) inString = false;
+    } else if (c === 0x22) inString = true;
+    else if (c === 0x7b || c === 0x5b) {
+      if (++depth > limit) return i;
+    } else if (c === 0x7d || c === 0x5d) depth--;
+  }
+  return -1;
+}
+
+/** Parses JSON text, or throws 400 (not JSON, or nested deeper than MAX_JSON_DEPTH). */
+export function parseJsonText(text: string, where = "(body)"): unknown {
+  const deep = depthExceededAt(text);
+  if (deep >= 0) {
+    throw new ApiError(
+      400,
+      "too-deep",
+      `${where} nests objects and arrays more than ${MAX_JSON_DEPTH} levels deep (at character ${deep})`,
+      { path: where },
+    );
+  }
+  let value: unknown;
   try {
-    return JSON.parse(text);
+    value = JSON.parse(text);
   } catch (err) {
     throw new ApiError(
       400,
       "invalid-json",
       `the body is not valid JSON: ${(err as Error).message}`,
+      {
+        path: where,
+      },
     );
   }
+  rejectNulBytes(value, where === "(body)" ? "" : where);
+  return value;
+}
+
+/**
+ * Throws 400 naming the first string (or key) holding a NUL character. Postgres text cannot
+ * store U+0000, so such a value would otherwise fail deep inside a write.
+ */
+export function rejectNulBytes(value: unknown, path = ""): void {
+  const at = (k: string) => (path ? `${path}.${k}` : k);
+  if (typeof value === "string") {
+    if (value.includes("\u0000")) throw nulByte(path || "(body)");
+  } else if (Array.isArray(value)) {
+    value.forEach((v, i) => rejectNulBytes(v, at(String(i))));
+  } else if (value !== null && typeof value === "object") {
+    for (const [k, v] of Object.entries(value)) {
+      if (k.includes("\u0000")) throw nulByte(at(k));
+      rejectNulBytes(v, at(k));
+    }
+  }
+}
+
+/** 400 for a NUL character in the named field. */
+export function nulByte(path: string): ApiError {
+  return new ApiError(400, "nul-character", `${path} contains a NUL character (U+0000)`, { path });
 }
 
 /** A JSON body checked against `schema` (415 unless application/json, 413 past the limit). */
@@ -147,6 +212,7 @@ export async function readForm(
 /** A text field of a form, or undefined when absent. */
 export function formText(form: FormData, name: string): string | undefined {
   const v = form.get(name);
+  if (typeof v === "string" && v.includes("\u0000")) throw nulByte(name);
   return typeof v === "string" ? v : undefined;
 }
 

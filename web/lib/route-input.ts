@@ -6,7 +6,7 @@ import { NextResponse } from "next/server";
 import { z } from "zod";
 import { notFound } from "./api-error";
 import { DEFAULT_PAGE_SIZE, MAX_PAGE_SIZE, type EntryListQuery } from "./entry-list";
-import { validate } from "./request-body";
+import { nulByte, validate } from "./request-body";
 
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
@@ -25,7 +25,10 @@ export function revisionParam(value: string): number {
 /** The query string as a plain object (the first value of each key). */
 export function queryObject(req: Request): Record<string, string> {
   const out: Record<string, string> = {};
-  for (const [k, v] of new URL(req.url).searchParams) if (!(k in out) && v !== "") out[k] = v;
+  for (const [k, v] of new URL(req.url).searchParams) {
+    if (k.includes("\u0000") || v.includes("\u0000")) throw nulByte(k.replaceAll("\u0000", ""));
+    if (!(k in out) && v !== "") out[k] = v;
+  }
   return out;
 }
 

@@ -31,9 +31,15 @@ export function AuthForm(props: { mode: "sign-up" | "sign-in"; next: string | nu
     setBusy(true);
     setError(null);
     try {
-      await apiFetch(signUp ? "/api/auth/sign-up/email" : "/api/auth/sign-in/email", {
-        body: signUp ? { name, email, password } : { email, password },
-      });
+      // Sign-up answers a taken email exactly as a new one (no account enumeration) and signs
+      // nobody in; signing in next fails with the generic wrong-password message when taken.
+      if (signUp) await apiFetch("/api/auth/sign-up/email", { body: { name, email, password } });
+      try {
+        await apiFetch("/api/auth/sign-in/email", { body: { email, password } });
+      } catch (err) {
+        if (signUp) throw new Error("Could not create an account with this email and password.");
+        throw err;
+      }
       window.location.assign(next);
     } catch (err) {
       setError(err instanceof Error ? err.message : String(err));

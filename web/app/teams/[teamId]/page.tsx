@@ -36,6 +36,11 @@ export default async function TeamPage(props: { params: Promise<{ teamId: string
       <div className="title-row">
         <h1>{team.name}</h1>
         <span className={`role role-${team.role}`}>you: {team.role}</span>
+        {team.role === "owner" && (
+          <Link href={`/teams/${team.id}/audit`} className="button-link">
+            Audit log
+          </Link>
+        )}
         {canEdit && (
           <Link href={`/entries/new?team=${team.id}`} className="button-link primary">
             New entry
