@@ -27,6 +27,7 @@ import type {
   SchematicLayoutOptions,
   WireSection,
 } from "./layout-types.js";
+import { junctionDots } from "./junction-dots.js";
 import { labelSize } from "./text-size.js";
 
 const DEFAULT_NODE_SPACING_PX = 30;
@@ -34,6 +35,8 @@ const DEFAULT_LAYER_SPACING_PX = 40;
 const DEFAULT_PADDING_PX = 20;
 const EDGE_SPACING_PX = 10;
 const EDGE_NODE_SPACING_PX = 12;
+/** Half the side of the square kept clear around a junction dot (the dot's radius is 3.5). */
+const DOT_CLEAR_RADIUS_PX = 4;
 /** Air between a part and its labels. */
 const LABEL_GAP_PX = 3;
 /** ELK's own seed; fixed so runs repeat (the layered algorithm uses it for tie-breaking). */
@@ -79,8 +82,16 @@ function settingsFrom(opts: SchematicLayoutOptions): LayeredSettings | Invalid {
 function pinsOf(node: GraphNode, placed: PlacedNode): PlacedPin[] {
   return node.ports.map((p) => {
     const at = placed.ports.get(p.id)!;
-    return { role: p.role, net: p.net, x: at.x, y: at.y, side: p.side };
+    const pin: PlacedPin = { role: p.role, net: p.net, x: at.x, y: at.y, side: p.side };
+    if (p.accessible) pin.accessible = true;
+    return pin;
   });
+}
+
+/** The drawn dot's square, so no label covers it. */
+function dotBox(p: Point): Box {
+  const r = DOT_CLEAR_RADIUS_PX;
+  return { x: p.x - r, y: p.y - r, width: 2 * r, height: 2 * r };
 }
 
 const boxOf = (b: Box): Box => ({ x: b.x, y: b.y, width: b.width, height: b.height });
@@ -168,34 +179,26 @@ function assemble(
   const space = new FreeSpace();
   const parts: PlacedPart[] = [];
   const terminals: PlacedTerminal[] = [];
-  const junctions: PlacedJunction[] = [];
   const sectionsByNet = new Map<string, WireSection[]>();
   const terminalNets = new Set<string>();
 
-  for (const node of graph.nodes) {
-    const at = placed.nodes.get(node.id)!;
-    space.addSolid(boxOf(at));
-    if (node.origin.type === "junction") {
-      const jx = at.x + at.width / 2;
-      const jy = at.y + at.height / 2;
-      junctions.push({ net: node.origin.net, x: jx, y: jy });
-      // The wires enter on the left and leave on the right: join them through the dot.
-      const stub: WireSection = {
-        start: at.ports.get(node.ports[0]!.id)!,
-        end: at.ports.get(node.ports[1]!.id)!,
-        bends: [],
-      };
-      const list = sectionsByNet.get(node.origin.net) ?? [];
-      list.push(stub);
-      sectionsByNet.set(node.origin.net, list);
-    }
-  }
+  for (const node of graph.nodes) space.addSolid(boxOf(placed.nodes.get(node.id)!));
   for (const edge of graph.edges) {
     const list = sectionsByNet.get(edge.net) ?? [];
     list.push(...placed.edges.get(edge.id)!);
     sectionsByNet.set(edge.net, list);
   }
   for (const sections of sectionsByNet.values()) for (const s of sections) space.addWire(s);
+  const wires: PlacedWire[] = [...graph.netRoles.keys()]
+    .filter((net) => sectionsByNet.has(net))
+    .map((net) => ({
+      net,
+      role: graph.netRoles.get(net) ?? null,
+      sections: sectionsByNet.get(net)!,
+    }));
+  const allPins = graph.nodes.flatMap((n) => pinsOf(n, placed.nodes.get(n.id)!));
+  const junctions = junctionDots(wires, allPins);
+  for (const j of junctions) space.addSolid(dotBox(j));
 
   for (const node of graph.nodes) {
     const at = placed.nodes.get(node.id)!;
@@ -241,14 +244,6 @@ function assemble(
       labels,
     });
   }
-
-  const wires: PlacedWire[] = [...graph.netRoles.keys()]
-    .filter((net) => sectionsByNet.has(net))
-    .map((net) => ({
-      net,
-      role: graph.netRoles.get(net) ?? null,
-      sections: sectionsByNet.get(net)!,
-    }));
 
   const netLabels: PlacedNetLabel[] = [];
   if (labelNets) {
