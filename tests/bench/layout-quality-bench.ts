@@ -91,7 +91,18 @@ const row = (cells: (string | number)[]): string =>
 async function measure(set: { name: string; record: TeardownRecord }[], title: string) {
   console.log(`\n${title} (before -> now)`);
   console.log(
-    row(["circuit", "faults", "dots", "tracks", "overlaps", "crossing", "bends", "wire/pt", "area/pt", "ms"]),
+    row([
+      "circuit",
+      "faults",
+      "dots",
+      "tracks",
+      "overlaps",
+      "crossing",
+      "bends",
+      "wire/pt",
+      "area/pt",
+      "ms",
+    ]),
   );
   const sums = { before: zero(), now: zero() };
   for (const { name, record } of set) {

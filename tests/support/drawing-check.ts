@@ -202,8 +202,7 @@ export function checkDrawing(layout: SchematicLayout): DrawingReport {
       if (a.horizontal === b.horizontal) {
         const overlap = Math.min(a.hi, b.hi) - Math.max(a.lo, b.lo);
         const gap = Math.abs(a.c - b.c);
-        if (overlap > EPS && gap < EPS)
-          fault("sharedTracks", `${where} share a track at ${a.c}`);
+        if (overlap > EPS && gap < EPS) fault("sharedTracks", `${where} share a track at ${a.c}`);
         else if (overlap > EPS && gap < CROWDED_PX)
           fault("crowdedTracks", `${where} run ${gap.toFixed(1)} px apart`);
         else if (overlap > -EPS && gap < EPS)

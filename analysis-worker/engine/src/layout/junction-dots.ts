@@ -82,8 +82,7 @@ export function junctionDots(
     for (const p of netPins) add(p);
     // Two runs of one net crossing mid-way also meet (four directions).
     for (const h of own)
-      for (const v of own)
-        if (h.horizontal && !v.horizontal) add({ x: v.at, y: h.at });
+      for (const v of own) if (h.horizontal && !v.horizontal) add({ x: v.at, y: h.at });
     for (const p of candidates.values()) {
       const directions = new Set<string>();
       for (const r of own) leaving(r, p, directions);

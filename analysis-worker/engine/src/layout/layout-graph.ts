@@ -6,6 +6,7 @@
  */
 import type { NetRole, Part, TeardownRecord } from "../record/types.js";
 import type { Rotation, Side, SymbolName } from "./layout-types.js";
+import { bridgePorts, BRIDGE_SIZE_PX, findBridges, type BridgeMatch } from "./bridge-block.js";
 import { rotateSymbol, rotationFor, symbolFor } from "./symbol-table.js";
 import { labelSize } from "./text-size.js";
 
@@ -39,9 +40,10 @@ export interface GraphLabel {
 /** What a node stands for, so the result can be rebuilt after layout. */
 export type NodeOrigin =
   | { type: "part"; part: Part; symbol: SymbolName; rotation: Rotation }
-  | { type: "terminal"; kind: "supply" | "output" };
+  | { type: "terminal"; kind: "supply" | "output" }
+  | { type: "bridge"; bridge: BridgeMatch };
 
-/** A box to place: a part or a terminal. */
+/** A box to place: a part, a terminal or a bridge rectifier drawn as one diamond. */
 export interface GraphNode {
   id: string;
   width: number;
@@ -103,17 +105,15 @@ function terminalNode(
   const width = Math.max(TERMINAL_MIN_WIDTH_PX, Math.ceil((longest + 10) / 10) * 10);
   const height = Math.max(1, nets.length) * TERMINAL_PORT_PITCH_PX;
   const side: Side = kind === "supply" ? "EAST" : "WEST";
-  const ports = nets.map(
-    ([net, role], i): GraphPort => ({
-      id: `${id}.${i}`,
-      net,
-      role,
-      side,
-      x: side === "EAST" ? width : 0,
-      y: TERMINAL_PORT_PITCH_PX / 2 + i * TERMINAL_PORT_PITCH_PX,
-      accessible: accessible.has(net),
-    }),
-  );
+  const ports = nets.map(([net, role], i): GraphPort => ({
+    id: `${id}.${i}`,
+    net,
+    role,
+    side,
+    x: side === "EAST" ? width : 0,
+    y: TERMINAL_PORT_PITCH_PX / 2 + i * TERMINAL_PORT_PITCH_PX,
+    accessible: accessible.has(net),
+  }));
   const text = labelSize(caption);
   return {
     id,
@@ -154,6 +154,27 @@ function partNode(id: string, part: Part, neutralNets: ReadonlySet<string>): Gra
   };
 }
 
+/** A bridge rectifier as one square box with its four corner ports. */
+function bridgeNode(id: string, bridge: BridgeMatch): GraphNode {
+  return {
+    id,
+    width: BRIDGE_SIZE_PX,
+    height: BRIDGE_SIZE_PX,
+    layer: "free",
+    ports: bridgePorts(bridge).map((p) => ({
+      id: `${id}.${p.key}`,
+      net: p.net,
+      role: p.key,
+      side: p.side,
+      x: p.x,
+      y: p.y,
+    })),
+    labels: [],
+    labelSide: "NORTH",
+    origin: { type: "bridge", bridge },
+  };
+}
+
 /**
  * Loads go to the last layer, except where a net would then have every end in the last layer
  * (its wires must leave some node, and ELK refuses an edge leaving a last-layer node): such a
@@ -168,7 +189,7 @@ function pinLoadsLast(
     const nets = node.ports.map((p) => p.net);
     if (new Set(nets).size === nets.length) node.layer = "last";
   }
-  for (let changed = true; changed; ) {
+  for (let changed = true; changed;) {
     changed = false;
     for (const ends of endpointsByNet.values()) {
       if (ends.length < 2 || ends.some((e) => e.node.layer !== "last")) continue;
@@ -184,6 +205,8 @@ function pinLoadsLast(
 function isSource(end: Endpoint): boolean {
   if (end.node.layer === "first") return true;
   if (end.node.layer === "last") return false;
+  if (end.node.origin.type === "bridge")
+    return end.port.role === "plus" || end.port.role === "minus";
   return end.port.side === "EAST";
 }
 
@@ -238,7 +261,14 @@ export function buildLayoutGraph(record: TeardownRecord): LayoutGraph {
       : "output";
     nodes.push(terminalNode("output", "output", outputNets, caption, accessible));
   }
-  parts.forEach((part, i) => nodes.push(partNode(`p${i}`, part, neutralNets)));
+  const bridges = findBridges(parts, neutralNets);
+  const inBridge = new Set(
+    bridges.flatMap((b) => [b.topLeft, b.topRight, b.bottomLeft, b.bottomRight]),
+  );
+  parts.forEach((part, i) => {
+    if (!inBridge.has(part)) nodes.push(partNode(`p${i}`, part, neutralNets));
+  });
+  bridges.forEach((bridge, i) => nodes.push(bridgeNode(`b${i}`, bridge)));
 
   const endpointsByNet = new Map<string, Endpoint[]>(netNames.map((n) => [n, []]));
   for (const node of nodes)

@@ -27,6 +27,7 @@ import type {
   SchematicLayoutOptions,
   WireSection,
 } from "./layout-types.js";
+import { BRIDGE_SIZE_PX, expandBridge } from "./bridge-block.js";
 import { junctionDots } from "./junction-dots.js";
 import { labelSize } from "./text-size.js";
 
@@ -182,7 +183,22 @@ function assemble(
   const sectionsByNet = new Map<string, WireSection[]>();
   const terminalNets = new Set<string>();
 
-  for (const node of graph.nodes) space.addSolid(boxOf(placed.nodes.get(node.id)!));
+  // Bridges open up into four diagonal diodes and the leads from their corners to the ports.
+  const bridgeParts: { node: GraphNode; part: Omit<PlacedPart, "labels"> }[] = [];
+  for (const node of graph.nodes) {
+    const at = placed.nodes.get(node.id)!;
+    if (node.origin.type !== "bridge") {
+      space.addSolid(boxOf(at));
+      continue;
+    }
+    const opened = expandBridge(node.origin.bridge, at);
+    for (const part of opened.parts) {
+      space.addSolid(boxOf(part));
+      bridgeParts.push({ node, part });
+    }
+    for (const w of opened.wires)
+      sectionsByNet.set(w.net, [...(sectionsByNet.get(w.net) ?? []), w.section]);
+  }
   for (const edge of graph.edges) {
     const list = sectionsByNet.get(edge.net) ?? [];
     list.push(...placed.edges.get(edge.id)!);
@@ -196,7 +212,13 @@ function assemble(
       role: graph.netRoles.get(net) ?? null,
       sections: sectionsByNet.get(net)!,
     }));
-  const allPins = graph.nodes.flatMap((n) => pinsOf(n, placed.nodes.get(n.id)!));
+  // A bridge's ports only join its leads to the outside wires; its diodes' pins are the pins.
+  const allPins = [
+    ...graph.nodes
+      .filter((n) => n.origin.type !== "bridge")
+      .flatMap((n) => pinsOf(n, placed.nodes.get(n.id)!)),
+    ...bridgeParts.flatMap((b) => b.part.pins),
+  ];
   const junctions = junctionDots(wires, allPins);
   for (const j of junctions) space.addSolid(dotBox(j));
 
@@ -244,6 +266,25 @@ function assemble(
       labels,
     });
   }
+  for (const { node, part } of bridgeParts) {
+    if (node.origin.type !== "bridge") continue;
+    const b = node.origin.bridge;
+    const source = [b.topLeft, b.topRight, b.bottomLeft, b.bottomRight].find(
+      (d) => d.ref === part.ref,
+    )!;
+    // Labels go outside the diamond: above the upper diodes, below the lower ones.
+    const side = part.y < placed.nodes.get(node.id)!.y + BRIDGE_SIZE_PX / 2 ? "NORTH" : "SOUTH";
+    const texts: { text: string; of: "ref" | "value" }[] = [{ text: source.ref, of: "ref" }];
+    if (source.value_text !== null && source.value_text !== "")
+      texts.push({ text: source.value_text, of: "value" });
+    const labels = texts.map(({ text, of }): PlacedLabel => {
+      const { width, height } = labelSize(text);
+      const box = space.place(width, height, candidatesAround(part, width, height, side), part);
+      return { ...box, text, of };
+    });
+    parts.push({ ...part, labels });
+  }
+  parts.sort((a, b) => (a.ref < b.ref ? -1 : a.ref > b.ref ? 1 : 0));
 
   const netLabels: PlacedNetLabel[] = [];
   if (labelNets) {
