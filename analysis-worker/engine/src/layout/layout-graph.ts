@@ -246,12 +246,14 @@ export function buildLayoutGraph(record: TeardownRecord): LayoutGraph {
     nodes.push(terminalNode("supply", "supply", supplyNets, `${vrms} V ${hz} Hz`, accessible));
   }
   // Outputs, and any other net a person can touch, end at terminals on the right.
+  // Declared outputs first (the positive rail usually is one), then nets that are only touchable.
   const outputNets: [string, string][] = netNames
     .filter((n) => {
       const role = netRoles.get(n);
       return role === "output" || (accessible.has(n) && role !== "line" && role !== "neutral");
     })
-    .map((n) => [n, netRoles.get(n) ?? "touchable"]);
+    .map((n): [string, string] => [n, netRoles.get(n) ?? "touchable"])
+    .sort((a, b) => Number(a[1] !== "output") - Number(b[1] !== "output"));
   if (outputNets.length > 0) {
     const touchOnly = outputNets.every(([n, r]) => r !== "output" && accessible.has(n));
     const caption = outputNets.some(([n]) => accessible.has(n))

@@ -15,6 +15,7 @@ import { buildLayoutGraph, type GraphNode, type LayoutGraph } from "./layout-gra
 import type {
   Box,
   LayoutResult,
+  PlacedBarrier,
   PlacedJunction,
   PlacedLabel,
   PlacedNetLabel,
@@ -272,8 +273,9 @@ function assemble(
     const source = [b.topLeft, b.topRight, b.bottomLeft, b.bottomRight].find(
       (d) => d.ref === part.ref,
     )!;
-    // Labels go outside the diamond: above the upper diodes, below the lower ones.
-    const side = part.y < placed.nodes.get(node.id)!.y + BRIDGE_SIZE_PX / 2 ? "NORTH" : "SOUTH";
+    // Labels go outside the diamond, beside each diode's outer side.
+    const box = placed.nodes.get(node.id)!;
+    const side = part.x < box.x + BRIDGE_SIZE_PX / 2 ? "WEST" : "EAST";
     const texts: { text: string; of: "ref" | "value" }[] = [{ text: source.ref, of: "ref" }];
     if (source.value_text !== null && source.value_text !== "")
       texts.push({ text: source.value_text, of: "value" });
@@ -361,6 +363,24 @@ function normalise(
   };
 }
 
+/** Whether the record calls its secondary isolated (the device tag `isolated`). */
+function saysIsolated(record: TeardownRecord): boolean {
+  const tags = record.device.tags.map((t) => t.trim().toLowerCase());
+  return tags.includes("isolated") && !tags.includes("non-isolated");
+}
+
+/** A dashed boundary through each transformer, between its windings, the drawing's full height. */
+function barriersFor(layout: SchematicLayout, padding: number): PlacedBarrier[] {
+  return layout.parts
+    .filter((p) => p.symbol === "transformer")
+    .map((p) => ({
+      ref: p.ref,
+      x: p.x + p.width / 2,
+      y1: padding / 2,
+      y2: layout.height - padding / 2,
+    }));
+}
+
 /**
  * Lays out a record as a schematic: supply entry on the left, outputs and loads on the right,
  * neutral pins at the bottom, orthogonal wires, junction dots, labels clear of everything.
@@ -375,5 +395,7 @@ export async function layoutSchematic(
   const run = await runElkLayered(graph, settings);
   if (!run.ok) return run;
   const body = assemble(graph, run.placed, opts.labelNets ?? true);
-  return { ok: true, layout: normalise(body, settings.paddingPx) };
+  const layout = normalise(body, settings.paddingPx);
+  if (saysIsolated(record)) layout.barriers = barriersFor(layout, settings.paddingPx);
+  return { ok: true, layout };
 }

@@ -220,7 +220,9 @@ export function rotationFor(
   if (
     geometry.symbol === "connector" ||
     geometry.symbol === "testpoint" ||
-    geometry.symbol === "generic"
+    geometry.symbol === "generic" ||
+    // A transformer keeps its primary on the left and its secondary on the right.
+    geometry.symbol === "transformer"
   )
     return 0;
   const neutralRoles = geometry.pins
