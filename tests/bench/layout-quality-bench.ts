@@ -18,6 +18,7 @@ import {
 } from "@teardown/engine";
 import { checkDrawing, hardFaults, type DrawingReport } from "../support/drawing-check.js";
 import { generatedCircuit, generatedCircuitSet } from "../support/generated-circuits.js";
+import { ladderRecord } from "../engine/layout/layout-circuits.js";
 import { layoutSchematic as legacyLayout } from "./legacy-layout/layout-schematic.js";
 
 const ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "..", "..");
@@ -162,18 +163,35 @@ let faults = await measure(demoRecords(), "Demo records");
 faults += await measure(generatedCircuitSet(), "Generated circuits");
 console.log("(wire/pt: wire length per part in px; area/pt: drawing area per part in 1000 px^2)");
 
-const forty = generatedCircuit(40, 7);
-const times: number[] = [];
-for (let i = 0; i < TIMED_RUNS; i++) {
-  const t0 = performance.now();
-  await today(forty);
-  times.push(performance.now() - t0);
+/** Median wall and CPU time of laying out one record, after two warm-up runs. */
+async function timing(record: TeardownRecord): Promise<{ wall: number; cpu: number }> {
+  await today(record);
+  await today(record);
+  const wall: number[] = [];
+  const cpu: number[] = [];
+  for (let i = 0; i < TIMED_RUNS; i++) {
+    const c0 = process.cpuUsage();
+    const t0 = performance.now();
+    await today(record);
+    wall.push(performance.now() - t0);
+    const c = process.cpuUsage(c0);
+    cpu.push((c.user + c.system) / 1000);
+  }
+  const median = (xs: number[]): number => xs.sort((x, y) => x - y)[Math.floor(xs.length / 2)]!;
+  return { wall: median(wall), cpu: median(cpu) };
 }
-times.sort((a, b) => a - b);
-const median = times[Math.floor(times.length / 2)]!;
-console.log(
-  `\nlayout of a 40-part circuit, ${TIMED_RUNS} runs: median ${median.toFixed(1)} ms ` +
-    `(target < ${TARGET_MEDIAN_MS} ms: ${median < TARGET_MEDIAN_MS ? "met" : "NOT met"})`,
-);
+
+// Wall time is the target; CPU time is printed beside it because on a shared machine the wall
+// clock also counts the time other processes held the cores.
+for (const [name, record] of [
+  ["generated 40-part circuit", generatedCircuit(40, 7)],
+  ["40-part ladder", ladderRecord(9)],
+] as const) {
+  const t = await timing(record);
+  console.log(
+    `layout of a ${name} (${record.parts.length} parts), ${TIMED_RUNS} runs: median ${t.wall.toFixed(1)} ms wall, ` +
+      `${t.cpu.toFixed(1)} ms CPU (target < ${TARGET_MEDIAN_MS} ms: ${t.wall < TARGET_MEDIAN_MS ? "met" : "NOT met"})`,
+  );
+}
 console.log(`hard faults in today's layout: ${faults}`);
 process.exitCode = faults > 0 ? 1 : 0;

@@ -26,6 +26,8 @@ export interface LayeredSettings {
   paddingPx: number;
   labelGapPx: number;
   randomSeed: number;
+  /** How hard ELK's crossing minimisation tries (its default is 7). */
+  thoroughness: number;
 }
 
 /** A node after layout: absolute box, absolute port points by port id, label boxes in order. */
@@ -62,6 +64,7 @@ const OPT = {
   labelLabel: "org.eclipse.elk.spacing.labelLabel",
   padding: "org.eclipse.elk.padding",
   randomSeed: "org.eclipse.elk.randomSeed",
+  thoroughness: "org.eclipse.elk.layered.thoroughness",
   separateComponents: "org.eclipse.elk.separateConnectedComponents",
   portConstraints: "org.eclipse.elk.portConstraints",
   layerConstraint: "org.eclipse.elk.layered.layering.layerConstraint",
@@ -105,6 +108,7 @@ export function elkRootOptions(s: LayeredSettings): LayoutOptions {
     [OPT.labelLabel]: "1",
     [OPT.padding]: `[top=${p},left=${p},bottom=${p},right=${p}]`,
     [OPT.randomSeed]: String(s.randomSeed),
+    [OPT.thoroughness]: String(s.thoroughness),
     // One layered graph for everything, so a stray part cannot be packed left of the supply.
     [OPT.separateComponents]: "false",
   };

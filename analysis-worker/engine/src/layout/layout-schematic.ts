@@ -43,6 +43,12 @@ const DOT_CLEAR_RADIUS_PX = 4;
 const LABEL_GAP_PX = 3;
 /** ELK's own seed; fixed so runs repeat (the layered algorithm uses it for tie-breaking). */
 const ELK_RANDOM_SEED = 1;
+/**
+ * ELK's crossing-minimisation effort. Its default (7) took about twice the time on 40-part
+ * circuits for about 3% fewer crossings (measured with the layout-quality bench); 3 keeps a
+ * 40-part layout well inside its time budget.
+ */
+const ELK_THOROUGHNESS = 3;
 /** Largest spacing accepted from a caller; beyond it the drawing is useless anyway. */
 const MAX_SPACING_PX = 1000;
 
@@ -78,6 +84,7 @@ function settingsFrom(opts: SchematicLayoutOptions): LayeredSettings | Invalid {
     edgeNodeSpacingPx: EDGE_NODE_SPACING_PX,
     labelGapPx: LABEL_GAP_PX,
     randomSeed: ELK_RANDOM_SEED,
+    thoroughness: ELK_THOROUGHNESS,
   };
 }
 
