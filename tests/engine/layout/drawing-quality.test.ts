@@ -19,6 +19,7 @@ import {
 import { projectRoot } from "@teardown/db";
 import { checkDrawing, hardFaults } from "../../support/drawing-check.js";
 import { generatedCircuitSet } from "../../support/generated-circuits.js";
+import { ALL_TEST_CIRCUITS } from "../../support/circuits/all-test-circuits.js";
 import { LAYOUT_CIRCUITS } from "./layout-circuits.js";
 
 const RECORDS = path.join(projectRoot(), "seed-demo", "records");
@@ -132,7 +133,8 @@ describe("the drawing checker catches each fault it claims to", () => {
 });
 
 describe("report-grade drawings", () => {
-  const circuits = [...demo, ...LAYOUT_CIRCUITS, ...generated];
+  const library = ALL_TEST_CIRCUITS.map((c) => ({ name: `library ${c.name}`, record: c.record }));
+  const circuits = [...demo, ...LAYOUT_CIRCUITS, ...library, ...generated];
 
   it.each(circuits.map((c) => [c.name, c.record] as const))(
     "%s: no hard fault in the drawing",
