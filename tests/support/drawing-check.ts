@@ -11,7 +11,8 @@
  * - a wire of one net never ends on, bends on or passes a pin of another net (that would read
  *   as a connection);
  * - no part or terminal box overlaps another, no wire runs through one;
- * - labels (refs, values, net names, captions) touch no wire, no dot, no box, no other label.
+ * - labels (refs, values, net names, captions) touch no wire, no dot, no box, no other label;
+ * - an isolation boundary crosses no part but its own transformer, and touches no label.
  */
 import type { Box, Point, SchematicLayout } from "@teardown/engine";
 
@@ -301,6 +302,17 @@ export function checkDrawing(layout: SchematicLayout): DrawingReport {
       };
       if (interiorOverlap(l, dot, 0)) fault("labelsTouching", `label "${l.text}" covers a dot`);
     }
+  }
+
+  // An isolation boundary crosses only its own transformer and touches no label.
+  for (const b of layout.barriers ?? []) {
+    const line: Segment = { net: "", horizontal: false, c: b.x, lo: b.y1, hi: b.y2 };
+    for (const body of bodies)
+      if (body.name !== b.ref && segmentInBox(line, body, 0.5))
+        fault("boxOverlaps", `the isolation boundary of ${b.ref} runs through ${body.name}`);
+    for (const l of labels)
+      if (segmentInBox(line, l, -0.75))
+        fault("labelsTouching", `label "${l.text}" touches the isolation boundary of ${b.ref}`);
   }
 
   // Every net drawn as one connected piece joining all of its pins.

@@ -65,6 +65,8 @@ const OPT = {
   padding: "org.eclipse.elk.padding",
   randomSeed: "org.eclipse.elk.randomSeed",
   thoroughness: "org.eclipse.elk.layered.thoroughness",
+  partitioning: "org.eclipse.elk.partitioning.activate",
+  partition: "org.eclipse.elk.partitioning.partition",
   separateComponents: "org.eclipse.elk.separateConnectedComponents",
   portConstraints: "org.eclipse.elk.portConstraints",
   layerConstraint: "org.eclipse.elk.layered.layering.layerConstraint",
@@ -118,6 +120,7 @@ function toElkNode(node: GraphNode): ElkNode {
   const layoutOptions: LayoutOptions = { [OPT.portConstraints]: "FIXED_POS" };
   const layer = layerConstraint(node);
   if (layer !== null) layoutOptions[OPT.layerConstraint] = layer;
+  if (node.partition !== null) layoutOptions[OPT.partition] = String(node.partition);
   const placement = LABEL_PLACEMENT[node.labelSide];
   return {
     id: node.id,
@@ -143,9 +146,12 @@ function toElkNode(node: GraphNode): ElkNode {
 
 /** Our graph as ELK's JSON graph (pure). */
 export function toElkGraph(graph: LayoutGraph, settings: LayeredSettings): ElkNode {
+  const layoutOptions = elkRootOptions(settings);
+  // Column groups (an isolating transformer's two sides) keep their left-to-right order.
+  if (graph.nodes.some((n) => n.partition !== null)) layoutOptions[OPT.partitioning] = "true";
   return {
     id: "root",
-    layoutOptions: elkRootOptions(settings),
+    layoutOptions,
     children: graph.nodes.map(toElkNode),
     edges: graph.edges.map((e): ElkExtendedEdge => ({
       id: e.id,

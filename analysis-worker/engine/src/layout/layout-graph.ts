@@ -8,6 +8,7 @@ import type { NetRole, Part, TeardownRecord } from "../record/types.js";
 import type { Rotation, Side, SymbolName } from "./layout-types.js";
 import { bridgePorts, BRIDGE_SIZE_PX, findBridges, type BridgeMatch } from "./bridge-block.js";
 import { rotateSymbol, rotationFor, symbolFor } from "./symbol-table.js";
+import { isolationSides, type IsolationSide } from "./isolation-sides.js";
 import { labelSize } from "./text-size.js";
 
 /** Vertical pitch of the ports on a terminal. */
@@ -53,6 +54,11 @@ export interface GraphNode {
    * the last one, loads in the layer before it.
    */
   layer: "first" | "last" | "free";
+  /**
+   * Column group when an isolating transformer splits the drawing: 0 primary side, 1 the
+   * transformer, 2 the secondary side; null when nothing is split.
+   */
+  partition: IsolationSide | null;
   ports: GraphPort[];
   labels: GraphLabel[];
   /** The side of the box where the labels go: one with no pins when there is one. */
@@ -120,6 +126,7 @@ function terminalNode(
     width,
     height,
     layer: kind === "supply" ? "first" : "last",
+    partition: null,
     ports,
     labels: [{ text: caption, ...text, of: "caption" }],
     labelSide: "NORTH",
@@ -147,6 +154,7 @@ function partNode(id: string, part: Part, neutralNets: ReadonlySet<string>): Gra
     width: geometry.width,
     height: geometry.height,
     layer: "free",
+    partition: null,
     ports,
     labels,
     labelSide: freeLabelSide(ports),
@@ -161,6 +169,7 @@ function bridgeNode(id: string, bridge: BridgeMatch): GraphNode {
     width: BRIDGE_SIZE_PX,
     height: BRIDGE_SIZE_PX,
     layer: "free",
+    partition: null,
     ports: bridgePorts(bridge).map((p) => ({
       id: `${id}.${p.key}`,
       net: p.net,
@@ -291,5 +300,23 @@ export function buildLayoutGraph(record: TeardownRecord): LayoutGraph {
       if (end !== root)
         edges.push({ id: `e${edges.length}`, net, source: root.port.id, target: end.port.id });
   });
+  // An isolated secondary: primary parts left of the transformer, the rest right of it.
+  const sides = record.device.tags.some((t) => t.trim().toLowerCase() === "isolated")
+    ? isolationSides(record)
+    : null;
+  if (sides !== null)
+    for (const node of nodes) {
+      const o = node.origin;
+      node.partition =
+        o.type === "terminal"
+          ? o.kind === "supply"
+            ? 0
+            : 2
+          : o.type === "part"
+            ? sides.get(o.part.ref)!
+            : sides.get(o.bridge.topLeft.ref)!;
+      // A load left of the transformer cannot be in the last column.
+      if (o.type === "part" && node.layer === "last" && node.partition !== 2) node.layer = "free";
+    }
   return { nodes, edges, netRoles };
 }

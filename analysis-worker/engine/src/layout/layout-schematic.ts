@@ -184,6 +184,7 @@ function assemble(
   graph: LayoutGraph,
   placed: PlacedGraph,
   labelNets: boolean,
+  isolated: boolean,
 ): Omit<SchematicLayout, "width" | "height"> {
   const space = new FreeSpace();
   const parts: PlacedPart[] = [];
@@ -229,6 +230,10 @@ function assemble(
   ];
   const junctions = junctionDots(wires, allPins);
   for (const j of junctions) space.addSolid(dotBox(j));
+  // Isolation boundaries go in before any label, so no label is placed across one.
+  const barriers = isolated ? barriersFor(graph, placed) : [];
+  for (const b of barriers)
+    space.addWire({ start: { x: b.x, y: b.y1 }, end: { x: b.x, y: b.y2 }, bends: [] });
 
   for (const node of graph.nodes) {
     const at = placed.nodes.get(node.id)!;
@@ -321,7 +326,15 @@ function assemble(
       netLabels.push({ ...box, net, text: net });
     }
   }
-  return { parts, terminals, junctions, wires, netLabels };
+  const body: Omit<SchematicLayout, "width" | "height"> = {
+    parts,
+    terminals,
+    junctions,
+    wires,
+    netLabels,
+  };
+  if (isolated) body.barriers = barriers;
+  return body;
 }
 
 function shiftPoint(p: Point, dx: number, dy: number): Point {
@@ -339,6 +352,7 @@ function normalise(
     ...body.netLabels,
     ...body.wires.flatMap((w) => w.sections.flatMap(sectionBoxes)),
     ...body.junctions.map((j) => ({ x: j.x, y: j.y, width: 0, height: 0 })),
+    ...(body.barriers ?? []).map((b) => ({ x: b.x, y: b.y1, width: 0, height: b.y2 - b.y1 })),
   ];
   const bounds = boundsOf(boxes) ?? { x: padding, y: padding, width: 0, height: 0 };
   const dx = padding - bounds.x;
@@ -359,6 +373,11 @@ function normalise(
     })),
     junctions: body.junctions.map(move),
     netLabels: body.netLabels.map(move),
+    ...(body.barriers
+      ? {
+          barriers: body.barriers.map((b) => ({ ...b, x: b.x + dx, y1: b.y1 + dy, y2: b.y2 + dy })),
+        }
+      : {}),
     wires: body.wires.map((w) => ({
       ...w,
       sections: w.sections.map((s) => ({
@@ -370,22 +389,38 @@ function normalise(
   };
 }
 
-/** Whether the record calls its secondary isolated (the device tag `isolated`). */
-function saysIsolated(record: TeardownRecord): boolean {
-  const tags = record.device.tags.map((t) => t.trim().toLowerCase());
-  return tags.includes("isolated") && !tags.includes("non-isolated");
-}
+/** How far an isolation boundary reaches past the parts and wires above and below. */
+const BARRIER_OVERHANG_PX = 10;
 
-/** A dashed boundary through each transformer, between its windings, the drawing's full height. */
-function barriersFor(layout: SchematicLayout, padding: number): PlacedBarrier[] {
-  return layout.parts
-    .filter((p) => p.symbol === "transformer")
-    .map((p) => ({
-      ref: p.ref,
-      x: p.x + p.width / 2,
-      y1: padding / 2,
-      y2: layout.height - padding / 2,
-    }));
+/**
+ * A dashed boundary through each transformer, between its windings, from above the highest
+ * part or wire to below the lowest one.
+ */
+function barriersFor(graph: LayoutGraph, placed: PlacedGraph): PlacedBarrier[] {
+  const extent = boundsOf([
+    ...[...placed.nodes.values()].map(boxOf),
+    ...[...placed.edges.values()].flat().flatMap(sectionBoxes),
+  ]);
+  if (extent === null) return [];
+  return graph.nodes.flatMap((n) => {
+    if (n.origin.type !== "part" || n.partition !== 1) return [];
+    const at = placed.nodes.get(n.id)!;
+    const x = at.x + at.width / 2;
+    // Should ELK ever put another box across the line, draw no boundary rather than a false one.
+    const crossed = graph.nodes.some((m) => {
+      const b = placed.nodes.get(m.id)!;
+      return m !== n && b.x < x && x < b.x + b.width;
+    });
+    if (crossed) return [];
+    return [
+      {
+        ref: n.origin.part.ref,
+        x,
+        y1: extent.y - BARRIER_OVERHANG_PX,
+        y2: extent.y + extent.height + BARRIER_OVERHANG_PX,
+      },
+    ];
+  });
 }
 
 /**
@@ -401,8 +436,7 @@ export async function layoutSchematic(
   const graph = buildLayoutGraph(record);
   const run = await runElkLayered(graph, settings);
   if (!run.ok) return run;
-  const body = assemble(graph, run.placed, opts.labelNets ?? true);
-  const layout = normalise(body, settings.paddingPx);
-  if (saysIsolated(record)) layout.barriers = barriersFor(layout, settings.paddingPx);
-  return { ok: true, layout };
+  const isolated = graph.nodes.some((n) => n.partition === 1);
+  const body = assemble(graph, run.placed, opts.labelNets ?? true, isolated);
+  return { ok: true, layout: normalise(body, settings.paddingPx) };
 }
