@@ -223,3 +223,23 @@ describe("a bridge rectifier is drawn as a diamond", () => {
     expect(at(b).map((p) => p.role)).toEqual(["anode", "anode"]);
   });
 });
+
+describe("an isolated secondary is drawn apart from the mains side", () => {
+  const isolated = [...demo, ...generated].filter((c) => c.record.device.tags.includes("isolated"));
+  it.each(isolated.map((c) => [c.name, c.record] as const))("%s", async (_name, record) => {
+    const layout = await laidOut(record);
+    expect(layout.barriers).toHaveLength(1);
+    const b = layout.barriers![0]!;
+    const mains = new Set(
+      Object.entries(record.nets)
+        .filter(([, n]) => n.role === "line" || n.role === "neutral")
+        .map(([name]) => name),
+    );
+    // Every mains wire stays left of the boundary; the output terminal is right of it.
+    for (const w of layout.wires.filter((x) => mains.has(x.net)))
+      for (const s of w.sections)
+        for (const p of [s.start, ...s.bends, s.end]) expect(p.x).toBeLessThanOrEqual(b.x);
+    const output = layout.terminals.find((t) => t.kind === "output");
+    if (output) expect(output.x).toBeGreaterThan(b.x);
+  });
+});
