@@ -1,5 +1,6 @@
 /**
- * `npm run analyze -- FILE [--json] [--supply 120/60]`: the engine on one file, no database.
+ * `npm run analyze -- FILE [--json] [--layout] [--supply 120/60]`: the engine on one file, no
+ * database. `--layout` prints the schematic layout JSON (what the app draws) instead.
  * Exit 0 on success; 1 on invalid input, with every error (file:line:column path: message) on
  * stderr and never a stack trace.
  */
@@ -16,7 +17,7 @@ function fail(lines: string[]): never {
 async function main(): Promise<void> {
   const parsedArgs = parseAnalyzeArgs(process.argv.slice(2));
   if (!parsedArgs.ok) fail([parsedArgs.message]);
-  const { file, json, supply } = parsedArgs.args;
+  const { file, json, layout, supply } = parsedArgs.args;
   let text: string;
   try {
     text = readFileSync(file, "utf8");
@@ -41,6 +42,10 @@ async function main(): Promise<void> {
   });
   if (!outcome.ok)
     fail([`${file}: the analysis failed at the ${outcome.stage} stage: ${outcome.message}`]);
+  if (layout) {
+    process.stdout.write(JSON.stringify(outcome.output.layout, null, 2) + "\n");
+    return;
+  }
   process.stdout.write(
     json
       ? JSON.stringify(outcome.output.result, null, 2) + "\n"

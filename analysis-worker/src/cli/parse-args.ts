@@ -1,25 +1,29 @@
-/** The analyze command's arguments: FILE [--json] [--supply V/HZ]. */
+/** The analyze command's arguments: FILE [--json] [--layout] [--supply V/HZ]. */
 import type { Supply } from "@teardown/engine";
 
 export interface AnalyzeArgs {
   file: string;
   json: boolean;
+  /** Print the schematic layout (the SchematicLayout JSON the app draws) instead of the report. */
+  layout: boolean;
   supply: Supply | null;
 }
 
 export type ArgsResult = { ok: true; args: AnalyzeArgs } | { ok: false; message: string };
 
 export const USAGE =
-  "usage: npm run analyze -- FILE [--json] [--supply VRMS/HZ]   (FILE: a record .yaml/.json, a netlist deck, or a .csv parts list)";
+  "usage: npm run analyze -- FILE [--json] [--layout] [--supply VRMS/HZ]   (FILE: a record .yaml/.json, a netlist deck, or a .csv parts list)";
 
 /** Reads argv (without node and script); a bad argument is a message, not an exception. */
 export function parseAnalyzeArgs(argv: string[]): ArgsResult {
   let file: string | null = null;
   let json = false;
+  let layout = false;
   let supply: Supply | null = null;
   for (let i = 0; i < argv.length; i++) {
     const a = argv[i]!;
     if (a === "--json") json = true;
+    else if (a === "--layout") layout = true;
     else if (a === "--supply" || a.startsWith("--supply=")) {
       const v = a.includes("=") ? a.slice(a.indexOf("=") + 1) : argv[++i];
       const m = /^(\d+(?:\.\d+)?)\s*\/\s*(\d+(?:\.\d+)?)$/.exec(v ?? "");
@@ -34,5 +38,5 @@ export function parseAnalyzeArgs(argv: string[]): ArgsResult {
     else return { ok: false, message: `one FILE only (got "${file}" and "${a}")\n${USAGE}` };
   }
   if (!file) return { ok: false, message: USAGE };
-  return { ok: true, args: { file, json, supply } };
+  return { ok: true, args: { file, json, layout, supply } };
 }

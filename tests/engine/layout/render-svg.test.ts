@@ -108,4 +108,44 @@ describe("renderSchematicSvg", () => {
     expect(xmlProblem("<svg></svg><svg></svg>")).not.toBeNull();
     expect(xmlProblem('<svg><rect x="1"/></svg>')).toBeNull();
   });
+
+  it("marks touchable terminals and draws the isolation boundary of an isolated transformer", async () => {
+    const r = record(
+      [
+        part("T1", "transformer", { p1: "L", p2: "N", s1: "S1", s2: "G0" }),
+        part("R1", "resistor", ["S1", "G0"], 100),
+      ],
+      { G0: { accessible: true } },
+      {},
+    );
+    r.device.tags = ["isolated"];
+    const { svg, layout } = await svgOf(r);
+    expect(xmlProblem(svg)).toBeNull();
+    expect(svg).toContain('data-touchable="G0"');
+    const t1 = layout.parts.find((p) => p.ref === "T1")!;
+    // The boundary runs through the transformer's middle, between its windings.
+    expect(layout.barriers).toEqual([
+      { ref: "T1", x: t1.x + t1.width / 2, y1: expect.any(Number), y2: expect.any(Number) },
+    ]);
+    expect(svg).toMatch(/<line data-isolation="T1"[^>]*stroke-dasharray/);
+    r.device.tags = ["non-isolated"];
+    expect((await svgOf(r)).layout.barriers).toBeUndefined();
+  });
+
+  it("draws a diagonal bridge diode corner to corner of its square box", async () => {
+    const r = record([
+      part("D1", "diode", { anode: "L", cathode: "P" }),
+      part("D2", "diode", { anode: "N", cathode: "P" }),
+      part("D3", "diode", { anode: "M", cathode: "L" }),
+      part("D4", "diode", { anode: "M", cathode: "N" }),
+      part("R1", "resistor", ["P", "M"], 1000),
+    ]);
+    const { svg, layout } = await svgOf(r);
+    const d1 = layout.parts.find((p) => p.ref === "D1")!;
+    expect(d1.rotation % 90).not.toBe(0);
+    // The leads end at +-half the box diagonal from the centre: sqrt(2) * width / 2.
+    const half = (d1.width * Math.SQRT2) / 2;
+    const group = svg.slice(svg.indexOf('data-ref="D1"'));
+    expect(group).toContain(`x1="${-Math.round(half * 100) / 100}"`);
+  });
 });

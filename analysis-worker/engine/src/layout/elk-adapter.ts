@@ -26,6 +26,8 @@ export interface LayeredSettings {
   paddingPx: number;
   labelGapPx: number;
   randomSeed: number;
+  /** How hard ELK's crossing minimisation tries (its default is 7). */
+  thoroughness: number;
 }
 
 /** A node after layout: absolute box, absolute port points by port id, label boxes in order. */
@@ -62,6 +64,9 @@ const OPT = {
   labelLabel: "org.eclipse.elk.spacing.labelLabel",
   padding: "org.eclipse.elk.padding",
   randomSeed: "org.eclipse.elk.randomSeed",
+  thoroughness: "org.eclipse.elk.layered.thoroughness",
+  partitioning: "org.eclipse.elk.partitioning.activate",
+  partition: "org.eclipse.elk.partitioning.partition",
   separateComponents: "org.eclipse.elk.separateConnectedComponents",
   portConstraints: "org.eclipse.elk.portConstraints",
   layerConstraint: "org.eclipse.elk.layered.layering.layerConstraint",
@@ -105,6 +110,7 @@ export function elkRootOptions(s: LayeredSettings): LayoutOptions {
     [OPT.labelLabel]: "1",
     [OPT.padding]: `[top=${p},left=${p},bottom=${p},right=${p}]`,
     [OPT.randomSeed]: String(s.randomSeed),
+    [OPT.thoroughness]: String(s.thoroughness),
     // One layered graph for everything, so a stray part cannot be packed left of the supply.
     [OPT.separateComponents]: "false",
   };
@@ -114,6 +120,7 @@ function toElkNode(node: GraphNode): ElkNode {
   const layoutOptions: LayoutOptions = { [OPT.portConstraints]: "FIXED_POS" };
   const layer = layerConstraint(node);
   if (layer !== null) layoutOptions[OPT.layerConstraint] = layer;
+  if (node.partition !== null) layoutOptions[OPT.partition] = String(node.partition);
   const placement = LABEL_PLACEMENT[node.labelSide];
   return {
     id: node.id,
@@ -139,9 +146,12 @@ function toElkNode(node: GraphNode): ElkNode {
 
 /** Our graph as ELK's JSON graph (pure). */
 export function toElkGraph(graph: LayoutGraph, settings: LayeredSettings): ElkNode {
+  const layoutOptions = elkRootOptions(settings);
+  // Column groups (an isolating transformer's two sides) keep their left-to-right order.
+  if (graph.nodes.some((n) => n.partition !== null)) layoutOptions[OPT.partitioning] = "true";
   return {
     id: "root",
-    layoutOptions: elkRootOptions(settings),
+    layoutOptions,
     children: graph.nodes.map(toElkNode),
     edges: graph.edges.map((e): ElkExtendedEdge => ({
       id: e.id,

@@ -1,8 +1,9 @@
 /**
- * Finding room for a label: a set of boxes nothing may cover (parts, terminals, junctions,
- * labels already placed) and thin boxes along the wires that a label should avoid when it
- * can. A label takes the first candidate that is clear; when none is, a widening search
- * around its anchor always ends, because past the drawing's edge everything is clear.
+ * Finding room for a label: a set of boxes nothing may cover (parts, terminals, junction dots,
+ * labels already placed) and thin boxes along the wires, which a label may not touch either (a
+ * name sitting on a wire reads as belonging to it). A label takes the first candidate that is
+ * clear; when none is, a widening search around its anchor always ends, because past the
+ * drawing's edge everything is clear.
  */
 import type { Box, Point, WireSection } from "./layout-types.js";
 
@@ -77,24 +78,21 @@ export class FreeSpace {
     }
   }
 
-  /** Whether a box could go here: clear of solids, and of wires too when `avoidWires`. */
-  isClear(box: Box, avoidWires: boolean): boolean {
+  /** Whether a box could go here: clear of solids and wires, with a little air. */
+  isClear(box: Box): boolean {
     const padded = inflate(box, LABEL_CLEARANCE_PX);
     if (this.solid.some((s) => boxesOverlap(padded, s))) return false;
-    return !avoidWires || !this.wires.some((w) => boxesOverlap(box, w));
+    return !this.wires.some((w) => boxesOverlap(padded, w));
   }
 
   /**
    * Places a box of the given size at the first clear candidate (top-left corners, in order of
-   * preference), first avoiding wires, then only solids, then by a widening search around
-   * `anchor`; the placed box becomes solid.
+   * preference), else by a widening search around `anchor`; the placed box becomes solid.
    */
   place(width: number, height: number, candidates: readonly Point[], anchor: Point): Box {
     const at = (p: Point): Box => ({ x: p.x, y: p.y, width, height });
-    for (const avoidWires of [true, false]) {
-      for (const c of candidates) {
-        if (this.isClear(at(c), avoidWires)) return this.take(at(c));
-      }
+    for (const c of candidates) {
+      if (this.isClear(at(c))) return this.take(at(c));
     }
     const reach =
       this.extent === null ? 0 : Math.max(this.extent.width, this.extent.height) + width + height;
@@ -107,7 +105,7 @@ export class FreeSpace {
           x: Math.round(anchor.x + r * Math.cos(angle) - width / 2),
           y: Math.round(anchor.y - r * Math.sin(angle) - height / 2),
         });
-        if (this.isClear(box, false)) return this.take(box);
+        if (this.isClear(box)) return this.take(box);
       }
     }
     // Past the last ring the box is outside everything placed so far, so this cannot happen.

@@ -6,11 +6,11 @@
  */
 import type { NetRole, Part, TeardownRecord } from "../record/types.js";
 import type { Rotation, Side, SymbolName } from "./layout-types.js";
+import { bridgePorts, BRIDGE_SIZE_PX, findBridges, type BridgeMatch } from "./bridge-block.js";
 import { rotateSymbol, rotationFor, symbolFor } from "./symbol-table.js";
+import { isolationSides, type IsolationSide } from "./isolation-sides.js";
 import { labelSize } from "./text-size.js";
 
-/** Side length of the junction box; the dot is drawn at its centre. */
-export const JUNCTION_SIZE_PX = 8;
 /** Vertical pitch of the ports on a terminal. */
 const TERMINAL_PORT_PITCH_PX = 20;
 /** Narrowest terminal box; it widens to fit its longest net name. */
@@ -26,6 +26,8 @@ export interface GraphPort {
   /** Relative to the node's top-left corner. */
   x: number;
   y: number;
+  /** Terminal ports only: the record says a person can touch this net. */
+  accessible?: boolean;
 }
 
 /** A text ELK keeps room for beside its node. */
@@ -40,9 +42,9 @@ export interface GraphLabel {
 export type NodeOrigin =
   | { type: "part"; part: Part; symbol: SymbolName; rotation: Rotation }
   | { type: "terminal"; kind: "supply" | "output" }
-  | { type: "junction"; net: string };
+  | { type: "bridge"; bridge: BridgeMatch };
 
-/** A box to place: a part, a terminal or a junction. */
+/** A box to place: a part, a terminal or a bridge rectifier drawn as one diamond. */
 export interface GraphNode {
   id: string;
   width: number;
@@ -52,6 +54,11 @@ export interface GraphNode {
    * the last one, loads in the layer before it.
    */
   layer: "first" | "last" | "free";
+  /**
+   * Column group when an isolating transformer splits the drawing: 0 primary side, 1 the
+   * transformer, 2 the secondary side; null when nothing is split.
+   */
+  partition: IsolationSide | null;
   ports: GraphPort[];
   labels: GraphLabel[];
   /** The side of the box where the labels go: one with no pins when there is one. */
@@ -89,53 +96,37 @@ function freeLabelSide(ports: readonly GraphPort[]): Side {
   return (["NORTH", "EAST", "WEST", "SOUTH"] as const).find((s) => !used.has(s)) ?? "NORTH";
 }
 
+/**
+ * A terminal: the supply entry (its nets leave on the right, line above neutral, so both
+ * enter the drawing from the left) or the output (nets enter on its left).
+ */
 function terminalNode(
   id: string,
   kind: "supply" | "output",
-  nets: readonly [string, NetRole][],
+  nets: readonly [string, string][],
   caption: string,
+  accessible: ReadonlySet<string>,
 ): GraphNode {
-  const east = kind === "supply" ? nets.filter(([, r]) => r !== "neutral") : [];
-  const south = kind === "supply" ? nets.filter(([, r]) => r === "neutral") : [];
-  const west = kind === "output" ? nets : [];
   const longest = Math.max(0, ...nets.map(([n]) => labelSize(n).width));
-  const width = Math.max(
-    TERMINAL_MIN_WIDTH_PX,
-    Math.ceil((longest + 10) / 10) * 10,
-    south.length * TERMINAL_PORT_PITCH_PX,
-  );
-  const rows = Math.max(1, east.length, west.length) + (south.length > 0 ? 1 : 0);
-  const height = rows * TERMINAL_PORT_PITCH_PX;
-  const ports: GraphPort[] = [];
-  const column = (list: readonly [string, NetRole][], side: Side, x: number): void =>
-    list.forEach(([net, role], i) =>
-      ports.push({
-        id: `${id}.${ports.length}`,
-        net,
-        role,
-        side,
-        x,
-        y: TERMINAL_PORT_PITCH_PX / 2 + i * TERMINAL_PORT_PITCH_PX,
-      }),
-    );
-  column(east, "EAST", width);
-  column(west, "WEST", 0);
-  south.forEach(([net, role], i) =>
-    ports.push({
-      id: `${id}.${ports.length}`,
-      net,
-      role,
-      side: "SOUTH",
-      x: ((i + 1) * width) / (south.length + 1),
-      y: height,
-    }),
-  );
+  const width = Math.max(TERMINAL_MIN_WIDTH_PX, Math.ceil((longest + 10) / 10) * 10);
+  const height = Math.max(1, nets.length) * TERMINAL_PORT_PITCH_PX;
+  const side: Side = kind === "supply" ? "EAST" : "WEST";
+  const ports = nets.map(([net, role], i): GraphPort => ({
+    id: `${id}.${i}`,
+    net,
+    role,
+    side,
+    x: side === "EAST" ? width : 0,
+    y: TERMINAL_PORT_PITCH_PX / 2 + i * TERMINAL_PORT_PITCH_PX,
+    accessible: accessible.has(net),
+  }));
   const text = labelSize(caption);
   return {
     id,
     width,
     height,
     layer: kind === "supply" ? "first" : "last",
+    partition: null,
     ports,
     labels: [{ text: caption, ...text, of: "caption" }],
     labelSide: "NORTH",
@@ -163,6 +154,7 @@ function partNode(id: string, part: Part, neutralNets: ReadonlySet<string>): Gra
     width: geometry.width,
     height: geometry.height,
     layer: "free",
+    partition: null,
     ports,
     labels,
     labelSide: freeLabelSide(ports),
@@ -170,10 +162,32 @@ function partNode(id: string, part: Part, neutralNets: ReadonlySet<string>): Gra
   };
 }
 
+/** A bridge rectifier as one square box with its four corner ports. */
+function bridgeNode(id: string, bridge: BridgeMatch): GraphNode {
+  return {
+    id,
+    width: BRIDGE_SIZE_PX,
+    height: BRIDGE_SIZE_PX,
+    layer: "free",
+    partition: null,
+    ports: bridgePorts(bridge).map((p) => ({
+      id: `${id}.${p.key}`,
+      net: p.net,
+      role: p.key,
+      side: p.side,
+      x: p.x,
+      y: p.y,
+    })),
+    labels: [],
+    labelSide: "NORTH",
+    origin: { type: "bridge", bridge },
+  };
+}
+
 /**
- * Loads go to the last layer, except where that would wire two last-layer nodes straight
- * together (ELK refuses an edge leaving a last-layer node): a load chained to the output or
- * to an earlier load by a two-ended net, or shorted by its own pins, is left free.
+ * Loads go to the last layer, except where a net would then have every end in the last layer
+ * (its wires must leave some node, and ELK refuses an edge leaving a last-layer node): such a
+ * load is left free, as is a load shorted by its own pins.
  */
 function pinLoadsLast(
   nodes: readonly GraphNode[],
@@ -182,12 +196,17 @@ function pinLoadsLast(
   for (const node of nodes) {
     if (node.origin.type !== "part" || node.origin.part.kind !== "load") continue;
     const nets = node.ports.map((p) => p.net);
-    if (new Set(nets).size < nets.length) continue;
-    const chained = nets.some((net) => {
-      const ends = endpointsByNet.get(net)!;
-      return ends.length === 2 && ends.some((e) => e.node !== node && e.node.layer === "last");
-    });
-    if (!chained) node.layer = "last";
+    if (new Set(nets).size === nets.length) node.layer = "last";
+  }
+  for (let changed = true; changed;) {
+    changed = false;
+    for (const ends of endpointsByNet.values()) {
+      if (ends.length < 2 || ends.some((e) => e.node.layer !== "last")) continue;
+      const load = ends.find((e) => e.node.origin.type === "part");
+      if (load === undefined) continue;
+      load.node.layer = "free";
+      changed = true;
+    }
   }
 }
 
@@ -195,18 +214,23 @@ function pinLoadsLast(
 function isSource(end: Endpoint): boolean {
   if (end.node.layer === "first") return true;
   if (end.node.layer === "last") return false;
+  if (end.node.origin.type === "bridge")
+    return end.port.role === "plus" || end.port.role === "minus";
   return end.port.side === "EAST";
 }
 
 /**
- * Whether the wire of a two-ended net runs from `a` to `b`: a first-layer end always feeds and
- * a last-layer end is always fed (ELK insists); otherwise the sides decide, ties go to `a`.
+ * The end a net's wires start from: the supply entry when the net has one (ELK lets nothing
+ * enter a first-layer node), else the first feeding end (a right-hand pin), else the first end
+ * that is not in the last layer (ELK lets nothing leave one).
  */
-function feedsOther(a: Endpoint, b: Endpoint): boolean {
-  if (a.node.layer === "first" || b.node.layer === "last") return true;
-  if (b.node.layer === "first" || a.node.layer === "last") return false;
-  if (a.source !== b.source) return a.source;
-  return true;
+function rootOf(ends: readonly Endpoint[]): Endpoint {
+  return (
+    ends.find((e) => e.node.layer === "first") ??
+    ends.find((e) => e.source) ??
+    ends.find((e) => e.node.layer !== "last") ??
+    ends[0]!
+  );
 }
 
 /** The record's parts, nets and declared roles as a layout graph. */
@@ -222,15 +246,40 @@ export function buildLayoutGraph(record: TeardownRecord): LayoutGraph {
       .map((n) => [n, netRoles.get(n) as NetRole]);
   const neutralNets = new Set(withRole(["neutral"]).map(([n]) => n));
 
+  const accessible = new Set(netNames.filter((n) => record.nets[n]?.accessible === true));
   const nodes: GraphNode[] = [];
-  const supplyNets = withRole(["line", "neutral"]);
+  // Line above neutral, so the neutral is the lower of the two wires entering the drawing.
+  const supplyNets = [...withRole(["line"]), ...withRole(["neutral"])];
   if (supplyNets.length > 0) {
     const { vrms, hz } = record.device.rated_supply;
-    nodes.push(terminalNode("supply", "supply", supplyNets, `${vrms} V ${hz} Hz`));
+    nodes.push(terminalNode("supply", "supply", supplyNets, `${vrms} V ${hz} Hz`, accessible));
   }
-  const outputNets = withRole(["output"]);
-  if (outputNets.length > 0) nodes.push(terminalNode("output", "output", outputNets, "output"));
-  parts.forEach((part, i) => nodes.push(partNode(`p${i}`, part, neutralNets)));
+  // Outputs, and any other net a person can touch, end at terminals on the right.
+  // Declared outputs first (the positive rail usually is one), then nets that are only touchable.
+  const outputNets: [string, string][] = netNames
+    .filter((n) => {
+      const role = netRoles.get(n);
+      return role === "output" || (accessible.has(n) && role !== "line" && role !== "neutral");
+    })
+    .map((n): [string, string] => [n, netRoles.get(n) ?? "touchable"])
+    .sort((a, b) => Number(a[1] !== "output") - Number(b[1] !== "output"));
+  if (outputNets.length > 0) {
+    const touchOnly = outputNets.every(([n, r]) => r !== "output" && accessible.has(n));
+    const caption = outputNets.some(([n]) => accessible.has(n))
+      ? touchOnly
+        ? "touchable"
+        : "output, touchable"
+      : "output";
+    nodes.push(terminalNode("output", "output", outputNets, caption, accessible));
+  }
+  const bridges = findBridges(parts, neutralNets);
+  const inBridge = new Set(
+    bridges.flatMap((b) => [b.topLeft, b.topRight, b.bottomLeft, b.bottomRight]),
+  );
+  parts.forEach((part, i) => {
+    if (!inBridge.has(part)) nodes.push(partNode(`p${i}`, part, neutralNets));
+  });
+  bridges.forEach((bridge, i) => nodes.push(bridgeNode(`b${i}`, bridge)));
 
   const endpointsByNet = new Map<string, Endpoint[]>(netNames.map((n) => [n, []]));
   for (const node of nodes)
@@ -239,45 +288,35 @@ export function buildLayoutGraph(record: TeardownRecord): LayoutGraph {
   pinLoadsLast(nodes, endpointsByNet);
 
   const edges: GraphEdge[] = [];
-  const addEdge = (net: string, source: string, target: string): void => {
-    edges.push({ id: `e${edges.length}`, net, source, target });
-  };
-  netNames.forEach((net, netIndex) => {
+  netNames.forEach((net) => {
     const ends = endpointsByNet.get(net)!;
     for (const end of ends) end.source = isSource(end);
-    if (ends.length === 2) {
-      const [a, b] = ends as [Endpoint, Endpoint];
-      if (feedsOther(a, b)) addEdge(net, a.port.id, b.port.id);
-      else addEdge(net, b.port.id, a.port.id);
-    } else if (ends.length > 2) {
-      // Three or more ends meet at a junction node: wires from the feeding ends enter its left
-      // port, wires to the fed ends leave its right port.
-      const id = `j${netIndex}`;
-      const half = JUNCTION_SIZE_PX / 2;
-      const inPort: GraphPort = { id: `${id}.in`, net, role: "in", side: "WEST", x: 0, y: half };
-      const outPort: GraphPort = {
-        id: `${id}.out`,
-        net,
-        role: "out",
-        side: "EAST",
-        x: JUNCTION_SIZE_PX,
-        y: half,
-      };
-      nodes.push({
-        id,
-        width: JUNCTION_SIZE_PX,
-        height: JUNCTION_SIZE_PX,
-        layer: "free",
-        ports: [inPort, outPort],
-        labels: [],
-        labelSide: "NORTH",
-        origin: { type: "junction", net },
-      });
-      for (const end of ends) {
-        if (end.source) addEdge(net, end.port.id, inPort.id);
-        else addEdge(net, outPort.id, end.port.id);
-      }
-    }
+    if (ends.length < 2) return;
+    // One end feeds the whole net and every other end hangs off it: ELK's orthogonal router
+    // draws edges that share a source port as one branching tree (a hyperedge), so the branch
+    // points are real T-joints rather than a junction box placed somewhere in a column.
+    const root = rootOf(ends);
+    for (const end of ends)
+      if (end !== root)
+        edges.push({ id: `e${edges.length}`, net, source: root.port.id, target: end.port.id });
   });
+  // An isolated secondary: primary parts left of the transformer, the rest right of it.
+  const sides = record.device.tags.some((t) => t.trim().toLowerCase() === "isolated")
+    ? isolationSides(record)
+    : null;
+  if (sides !== null)
+    for (const node of nodes) {
+      const o = node.origin;
+      node.partition =
+        o.type === "terminal"
+          ? o.kind === "supply"
+            ? 0
+            : 2
+          : o.type === "part"
+            ? sides.get(o.part.ref)!
+            : sides.get(o.bridge.topLeft.ref)!;
+      // A load left of the transformer cannot be in the last column.
+      if (o.type === "part" && node.layer === "last" && node.partition !== 2) node.layer = "free";
+    }
   return { nodes, edges, netRoles };
 }

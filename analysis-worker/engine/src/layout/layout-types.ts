@@ -8,8 +8,12 @@ import type { NetRole } from "../record/types.js";
 /** A side of a box; pins sit on one. */
 export type Side = "NORTH" | "EAST" | "SOUTH" | "WEST";
 
-/** Clockwise rotation of a symbol from its drawn orientation, in degrees. */
-export type Rotation = 0 | 90 | 180 | 270;
+/**
+ * Clockwise rotation of a symbol from its drawn orientation, in degrees. The diagonal turns are
+ * for the diodes of a bridge drawn as a diamond; their box is the quadrant of the diamond they
+ * fill.
+ */
+export type Rotation = 0 | 90 | 180 | 270 | 45 | 135 | 225 | 315;
 
 /** A point in drawing pixels. */
 export interface Point {
@@ -59,6 +63,8 @@ export interface PlacedPin {
   x: number;
   y: number;
   side: Side;
+  /** Terminal pins only: a person can touch this net in normal use. */
+  accessible?: boolean;
 }
 
 /** A ref or value text beside a part; its box never covers a part, terminal or other label. */
@@ -77,7 +83,7 @@ export interface PlacedPart extends Box {
   labels: PlacedLabel[];
 }
 
-/** The dot where three or more wires of one net meet (its centre). */
+/** The dot where three or more wire directions of one net meet (its centre). */
 export interface PlacedJunction extends Point {
   net: string;
 }
@@ -113,6 +119,18 @@ export interface PlacedTerminal extends Box {
   caption: Box & { text: string };
 }
 
+/**
+ * The isolation boundary of a transformer whose secondary the record calls isolated: a dashed
+ * line from (x, y1) to (x, y2), through the transformer between its two windings.
+ */
+export interface PlacedBarrier {
+  x: number;
+  y1: number;
+  y2: number;
+  /** The transformer it belongs to. */
+  ref: string;
+}
+
 /** The whole drawing: its size and everything on it, in absolute coordinates. */
 export interface SchematicLayout {
   width: number;
@@ -122,6 +140,8 @@ export interface SchematicLayout {
   wires: PlacedWire[];
   netLabels: PlacedNetLabel[];
   terminals: PlacedTerminal[];
+  /** Isolation boundaries; absent in layouts stored before they existed. */
+  barriers?: PlacedBarrier[];
 }
 
 /** Caller's spacing choices; every field optional, pixels. */

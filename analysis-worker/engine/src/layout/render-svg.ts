@@ -14,6 +14,8 @@ const WIRE_COLOUR = "#3c3c3c";
 const LINE_COLOUR = "#8b1a1a";
 const NEUTRAL_COLOUR = "#1f3a8a";
 const TERMINAL_FILL = "#f2f2f2";
+const TOUCHABLE_FILL = "#c07a00";
+const BARRIER_COLOUR = "#5a5a5a";
 const WIRE_WIDTH_PX = 1.5;
 const JUNCTION_RADIUS_PX = 3.5;
 /** Distance from a label box's bottom edge to the text baseline. */
@@ -61,9 +63,11 @@ function terminalSvg(t: PlacedTerminal): string {
         return `<text x="${fmt(pin.x)}" y="${fmt(pin.y - 5)}" text-anchor="middle" fill="${colour}">${content}</text>`;
     }
   });
-  const pins = t.pins.map(
-    (pin) =>
-      `<circle cx="${fmt(pin.x)}" cy="${fmt(pin.y)}" r="2.5" fill="${BACKGROUND}" stroke="${SYMBOL_STROKE}"/>`,
+  // A net a person can touch gets a filled square terminal instead of the open ring.
+  const pins = t.pins.map((pin) =>
+    pin.accessible
+      ? `<rect data-touchable="${escapeXml(pin.net)}" x="${fmt(pin.x - 3)}" y="${fmt(pin.y - 3)}" width="6" height="6" fill="${TOUCHABLE_FILL}" stroke="${SYMBOL_STROKE}"/>`
+      : `<circle cx="${fmt(pin.x)}" cy="${fmt(pin.y)}" r="2.5" fill="${BACKGROUND}" stroke="${SYMBOL_STROKE}"/>`,
   );
   const caption = text(t.caption.x, t.caption.y, t.caption.height, t.caption.text, SYMBOL_STROKE);
   return `<g data-terminal="${t.kind}">${box}${names.join("")}${pins.join("")}${caption}</g>`;
@@ -78,6 +82,11 @@ export function renderSchematicSvg(layout: SchematicLayout): string {
     `<rect x="0" y="0" width="${w}" height="${h}" fill="${BACKGROUND}"/>`,
   ];
   const roles = new Map(layout.wires.map((wire) => [wire.net, wire.role]));
+  // Isolation boundaries first, under everything: a long-dashed line through the transformer.
+  for (const b of layout.barriers ?? [])
+    out.push(
+      `<line data-isolation="${escapeXml(b.ref)}" x1="${fmt(b.x)}" y1="${fmt(b.y1)}" x2="${fmt(b.x)}" y2="${fmt(b.y2)}" stroke="${BARRIER_COLOUR}" stroke-width="1" stroke-dasharray="8 4"/>`,
+    );
   out.push(...layout.wires.map(wireSvg));
   out.push(
     ...layout.junctions.map(

@@ -188,7 +188,9 @@ export function partSymbolSvg(p: PlacedPart): string {
   if (p.symbol === "connector" || p.symbol === "testpoint" || p.symbol === "generic")
     return `<g ${attrs}>${uprightSymbol(p)}</g>`;
   const quarter = p.rotation === 90 || p.rotation === 270;
-  const drawnWidth = quarter ? p.height : p.width;
+  // A diagonal part (a bridge diode) spans its square box corner to corner.
+  const diagonal = p.rotation % 90 !== 0;
+  const drawnWidth = diagonal ? p.width * Math.SQRT2 : quarter ? p.height : p.width;
   const cx = fmt(p.x + p.width / 2);
   const cy = fmt(p.y + p.height / 2);
   return `<g ${attrs} transform="translate(${cx} ${cy}) rotate(${p.rotation})">${fixedSymbol(p.symbol, drawnWidth, p.rotation)}</g>`;

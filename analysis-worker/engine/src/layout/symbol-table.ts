@@ -166,15 +166,18 @@ export function symbolFor(part: Part): SymbolGeometry {
   return FIXED_SYMBOLS[name];
 }
 
+/** The right-angle turns a fixed symbol takes on its own (diagonals are for bridge diodes). */
+export type QuarterRotation = Extract<Rotation, 0 | 90 | 180 | 270>;
+
 const CLOCKWISE: readonly Side[] = ["NORTH", "EAST", "SOUTH", "WEST"];
 
 /** The side a pin on `side` faces after turning the symbol clockwise by `rotation`. */
-export function rotateSide(side: Side, rotation: Rotation): Side {
+export function rotateSide(side: Side, rotation: QuarterRotation): Side {
   return CLOCKWISE[(CLOCKWISE.indexOf(side) + rotation / 90) % 4]!;
 }
 
 /** The symbol turned clockwise by `rotation` about its box; width and height swap at 90/270. */
-export function rotateSymbol(geometry: SymbolGeometry, rotation: Rotation): SymbolGeometry {
+export function rotateSymbol(geometry: SymbolGeometry, rotation: QuarterRotation): SymbolGeometry {
   const { width: w, height: h } = geometry;
   const turn = (x: number, y: number): [number, number] => {
     switch (rotation) {
@@ -201,7 +204,7 @@ export function rotateSymbol(geometry: SymbolGeometry, rotation: Rotation): Symb
 }
 
 /** Rotations tried in order; the first that puts every neutral pin at the bottom wins. */
-const ROTATION_PREFERENCE: readonly Rotation[] = [0, 90, 270, 180];
+const ROTATION_PREFERENCE: readonly QuarterRotation[] = [0, 90, 270, 180];
 
 /**
  * The rotation that puts all of a part's pins on `neutralNets` on the SOUTH side, so the
@@ -213,11 +216,13 @@ export function rotationFor(
   part: Part,
   geometry: SymbolGeometry,
   neutralNets: ReadonlySet<string>,
-): Rotation {
+): QuarterRotation {
   if (
     geometry.symbol === "connector" ||
     geometry.symbol === "testpoint" ||
-    geometry.symbol === "generic"
+    geometry.symbol === "generic" ||
+    // A transformer keeps its primary on the left and its secondary on the right.
+    geometry.symbol === "transformer"
   )
     return 0;
   const neutralRoles = geometry.pins

@@ -1,0 +1,223 @@
+/**
+ * The one place that talks to ELK (elkjs, run in-process from its bundled build, no web
+ * worker). Typed settings and our layout graph go in; ELK's string option map and JSON graph
+ * are built here; ELK's exceptions come back as a value; its output is turned back into
+ * absolute boxes, port points and wire sections. Everything but the `layout` call is a pure
+ * conversion.
+ */
+import ELK from "elkjs/lib/elk.bundled.js";
+import type {
+  ELK as ElkInstance,
+  ElkExtendedEdge,
+  ElkLabel,
+  ElkNode,
+  ElkPort,
+  LayoutOptions,
+} from "elkjs/lib/elk-api.js";
+import type { Box, Point, Side, WireSection } from "./layout-types.js";
+import type { GraphNode, LayoutGraph } from "./layout-graph.js";
+
+/** Spacing choices for the layered algorithm, in pixels. Direction and routing are fixed. */
+export interface LayeredSettings {
+  nodeSpacingPx: number;
+  layerSpacingPx: number;
+  edgeSpacingPx: number;
+  edgeNodeSpacingPx: number;
+  paddingPx: number;
+  labelGapPx: number;
+  randomSeed: number;
+}
+
+/** A node after layout: absolute box, absolute port points by port id, label boxes in order. */
+export interface PlacedNode extends Box {
+  ports: Map<string, Point>;
+  labels: Box[];
+}
+
+/** The whole graph after layout: drawing size, nodes by id, wire sections by edge id. */
+export interface PlacedGraph {
+  width: number;
+  height: number;
+  nodes: Map<string, PlacedNode>;
+  /** Edge id to its routed sections, absolute. */
+  edges: Map<string, WireSection[]>;
+}
+
+/** ELK's placement, or its refusal as a value. */
+export type ElkRunResult =
+  | { ok: true; placed: PlacedGraph }
+  | { ok: false; code: "layout-engine-failed"; message: string; where: string | null };
+
+const OPT = {
+  algorithm: "org.eclipse.elk.algorithm",
+  direction: "org.eclipse.elk.direction",
+  edgeRouting: "org.eclipse.elk.edgeRouting",
+  nodeNode: "org.eclipse.elk.spacing.nodeNode",
+  betweenLayers: "org.eclipse.elk.layered.spacing.nodeNodeBetweenLayers",
+  edgeEdge: "org.eclipse.elk.spacing.edgeEdge",
+  edgeEdgeBetweenLayers: "org.eclipse.elk.layered.spacing.edgeEdgeBetweenLayers",
+  edgeNode: "org.eclipse.elk.spacing.edgeNode",
+  edgeNodeBetweenLayers: "org.eclipse.elk.layered.spacing.edgeNodeBetweenLayers",
+  labelNode: "org.eclipse.elk.spacing.labelNode",
+  labelLabel: "org.eclipse.elk.spacing.labelLabel",
+  padding: "org.eclipse.elk.padding",
+  randomSeed: "org.eclipse.elk.randomSeed",
+  separateComponents: "org.eclipse.elk.separateConnectedComponents",
+  portConstraints: "org.eclipse.elk.portConstraints",
+  layerConstraint: "org.eclipse.elk.layered.layering.layerConstraint",
+  portSide: "org.eclipse.elk.port.side",
+  labelPlacement: "org.eclipse.elk.nodeLabels.placement",
+} as const;
+
+/** Where ELK puts a node's labels, by the side we chose for them. */
+const LABEL_PLACEMENT: Record<Side, string> = {
+  NORTH: "OUTSIDE V_TOP H_CENTER",
+  SOUTH: "OUTSIDE V_BOTTOM H_CENTER",
+  EAST: "OUTSIDE V_CENTER H_RIGHT",
+  WEST: "OUTSIDE V_CENTER H_LEFT",
+};
+
+/**
+ * ELK's layer constraints. Terminals take the `_SEPARATE` forms, which give them a layer of
+ * their own, so a part with no incoming wire cannot share the supply's column.
+ */
+function layerConstraint(node: GraphNode): string | null {
+  const terminal = node.origin.type === "terminal";
+  if (node.layer === "first") return terminal ? "FIRST_SEPARATE" : "FIRST";
+  if (node.layer === "last") return terminal ? "LAST_SEPARATE" : "LAST";
+  return null;
+}
+
+/** ELK's root option map for our settings: layered, left to right, orthogonal wires. */
+export function elkRootOptions(s: LayeredSettings): LayoutOptions {
+  const p = String(s.paddingPx);
+  return {
+    [OPT.algorithm]: "layered",
+    [OPT.direction]: "RIGHT",
+    [OPT.edgeRouting]: "ORTHOGONAL",
+    [OPT.nodeNode]: String(s.nodeSpacingPx),
+    [OPT.betweenLayers]: String(s.layerSpacingPx),
+    [OPT.edgeEdge]: String(s.edgeSpacingPx),
+    [OPT.edgeEdgeBetweenLayers]: String(s.edgeSpacingPx),
+    [OPT.edgeNode]: String(s.edgeNodeSpacingPx),
+    [OPT.edgeNodeBetweenLayers]: String(s.edgeNodeSpacingPx),
+    [OPT.labelNode]: String(s.labelGapPx),
+    [OPT.labelLabel]: "1",
+    [OPT.padding]: `[top=${p},left=${p},bottom=${p},right=${p}]`,
+    [OPT.randomSeed]: String(s.randomSeed),
+    // One layered graph for everything, so a stray part cannot be packed left of the supply.
+    [OPT.separateComponents]: "false",
+  };
+}
+
+function toElkNode(node: GraphNode): ElkNode {
+  const layoutOptions: LayoutOptions = { [OPT.portConstraints]: "FIXED_POS" };
+  const layer = layerConstraint(node);
+  if (layer !== null) layoutOptions[OPT.layerConstraint] = layer;
+  const placement = LABEL_PLACEMENT[node.labelSide];
+  return {
+    id: node.id,
+    width: node.width,
+    height: node.height,
+    layoutOptions,
+    ports: node.ports.map((p): ElkPort => ({
+      id: p.id,
+      x: p.x,
+      y: p.y,
+      width: 0,
+      height: 0,
+      layoutOptions: { [OPT.portSide]: p.side },
+    })),
+    labels: node.labels.map((l): ElkLabel => ({
+      text: l.text,
+      width: l.width,
+      height: l.height,
+      layoutOptions: { [OPT.labelPlacement]: placement },
+    })),
+  };
+}
+
+/** Our graph as ELK's JSON graph (pure). */
+export function toElkGraph(graph: LayoutGraph, settings: LayeredSettings): ElkNode {
+  return {
+    id: "root",
+    layoutOptions: elkRootOptions(settings),
+    children: graph.nodes.map(toElkNode),
+    edges: graph.edges.map((e): ElkExtendedEdge => ({
+      id: e.id,
+      sources: [e.source],
+      targets: [e.target],
+    })),
+  };
+}
+
+const num = (v: number | undefined): number => v ?? 0;
+
+/** ELK's laid-out graph back as absolute geometry (pure). Edges live in the root, so theirs already are. */
+export function fromElkGraph(laid: ElkNode): PlacedGraph {
+  const nodes = new Map<string, PlacedNode>();
+  for (const child of laid.children ?? []) {
+    const x = num(child.x);
+    const y = num(child.y);
+    const ports = new Map<string, Point>();
+    for (const port of child.ports ?? [])
+      ports.set(port.id, { x: x + num(port.x), y: y + num(port.y) });
+    const labels = (child.labels ?? []).map((l): Box => ({
+      x: x + num(l.x),
+      y: y + num(l.y),
+      width: num(l.width),
+      height: num(l.height),
+    }));
+    nodes.set(child.id, {
+      x,
+      y,
+      width: num(child.width),
+      height: num(child.height),
+      ports,
+      labels,
+    });
+  }
+  const edges = new Map<string, WireSection[]>();
+  for (const edge of laid.edges ?? []) {
+    const sections = ((edge as ElkExtendedEdge).sections ?? []).map((s): WireSection => ({
+      start: { x: s.startPoint.x, y: s.startPoint.y },
+      end: { x: s.endPoint.x, y: s.endPoint.y },
+      bends: (s.bendPoints ?? []).map((b) => ({ x: b.x, y: b.y })),
+    }));
+    edges.set(edge.id, sections);
+  }
+  return { width: num(laid.width), height: num(laid.height), nodes, edges };
+}
+
+// One ELK instance for the process: building it loads the whole compiled layouter.
+let sharedElk: ElkInstance | null = null;
+function elk(): ElkInstance {
+  sharedElk ??= new ELK();
+  return sharedElk;
+}
+
+/** ELK's message without its Java class prefix and stack. */
+function elkMessage(error: unknown): string {
+  const text = error instanceof Error ? error.message : String(error);
+  const firstLine = text.split("\n")[0] ?? text;
+  return firstLine.replace(/^(?:[a-z]+\.)+[A-Za-z]+(?:Exception|Error):\s*/, "");
+}
+
+/** Lays the graph out with ELK's layered algorithm; ELK's refusals come back as a value. */
+export async function runElkLayered(
+  graph: LayoutGraph,
+  settings: LayeredSettings,
+): Promise<ElkRunResult> {
+  let laid: ElkNode;
+  try {
+    laid = await elk().layout(toElkGraph(graph, settings));
+  } catch (error) {
+    return {
+      ok: false,
+      code: "layout-engine-failed",
+      message: `ELK could not lay out the schematic: ${elkMessage(error)}`,
+      where: null,
+    };
+  }
+  return { ok: true, placed: fromElkGraph(laid) };
+}
