@@ -4,6 +4,7 @@
  * (422 with each problem's path). Multipart forms are read through the same capped reader.
  */
 import type { z } from "zod";
+import { MAX_NESTING_DEPTH, nestingExceededAt } from "@teardown/engine";
 import { ApiError, type ProblemDetail } from "./api-error";
 
 /** The largest JSON body accepted, in bytes (a record document plus its envelope). */
@@ -93,32 +94,9 @@ export function validate<S extends z.ZodType>(
   return parsed.data;
 }
 
-/**
- * The deepest nesting of objects and arrays a JSON body may have. A record is a few levels deep;
- * 100k levels would overflow the stack of whatever walks the value next.
- */
-export const MAX_JSON_DEPTH = 64;
-
-/**
- * The nesting depth of JSON text, counted without parsing (brackets outside strings), stopping
- * as soon as it passes `limit`: returns the 0-based character offset where it did, or -1.
- */
-export function depthExceededAt(text: string, limit = MAX_JSON_DEPTH): number {
-  let depth = 0;
-  let inString = false;
-  for (let i = 0; i < text.length; i++) {
-    const c = text.charCodeAt(i);
-    if (inString) {
-      if (c === 0x5c)
-        i++; // backslash: skip the escaped character
-      else if (c === 0x22) inString = false;
-    } else if (c === 0x22) inString = true;
-    else if (c === 0x7b || c === 0x5b) {
-      if (++depth > limit) return i;
-    } else if (c === 0x7d || c === 0x5d) depth--;
-  }
-  return -1;
-}
+/** JSON nesting limits live with the record reader, which refuses deep record files too. */
+export const MAX_JSON_DEPTH = MAX_NESTING_DEPTH;
+export const depthExceededAt = nestingExceededAt;
 
 /** Parses JSON text, or throws 400 (not JSON, or nested deeper than MAX_JSON_DEPTH). */
 export function parseJsonText(text: string, where = "(body)"): unknown {

@@ -5,6 +5,7 @@
 export * from "./record/types.js";
 export * from "./graph/kinds.js";
 export * from "./record/parse-record.js";
+export * from "./record/nesting-depth.js";
 export * from "./record/serialize-record.js";
 export * from "./record/record-json-schema.js";
 export * from "./values/parse-value.js";

@@ -296,3 +296,22 @@ describe("parseRecord never throws", () => {
     }
   });
 });
+
+describe("deeply nested JSON", () => {
+  it("refuses a record file nested 100,000 levels deep before reading it, naming the line", () => {
+    const text = '{\n"parts":\n' + "[".repeat(100_000) + "]".repeat(100_000) + "\n}";
+    const result = parseRecord(text, { filename: "deep.json" });
+    expect(result.ok).toBe(false);
+    if (result.ok) return;
+    expect(result.errors).toHaveLength(1);
+    expect(result.errors[0]!.code).toBe("too-deep");
+    // the 65th bracket opens on line 3 (the object's brace is level 1)
+    expect(result.errors[0]!.line).toBe(3);
+  });
+
+  it("still reads JSON nested as deep as a record is", () => {
+    const result = parseRecord(JSON.stringify({ a: [[[[{ b: [1] }]]]] }), { filename: "x.json" });
+    expect(result.ok).toBe(false);
+    if (!result.ok) expect(result.errors.map((e) => e.code)).not.toContain("too-deep");
+  });
+});

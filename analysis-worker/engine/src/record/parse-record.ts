@@ -7,6 +7,7 @@ import type { InputError, ParseResult } from "./types.js";
 import { ProblemList, sortByPlace } from "./input-errors.js";
 import { readRecordText } from "./yaml-source.js";
 import { validateRawRecord } from "./validate-record.js";
+import { MAX_NESTING_DEPTH, nestingExceededAt } from "./nesting-depth.js";
 
 /** Largest record text we read, in characters (a traced gadget is a few kilobytes). */
 export const MAX_RECORD_TEXT_CHARS = 2_000_000;
@@ -65,7 +66,14 @@ function parseRecordUnguarded(text: string, opts: ParseRecordOptions): ParseResu
     };
   }
   const source = text.replace(/^\uFEFF/, "");
-  const read = readRecordText(source, recordFormatOf(source, opts.filename));
+  const format = recordFormatOf(source, opts.filename);
+  const deep = format === "json" ? nestingExceededAt(source) : -1;
+  if (deep >= 0) {
+    const line = source.slice(0, deep).split("\n").length;
+    const message = `the file nests objects and arrays more than ${MAX_NESTING_DEPTH} levels deep`;
+    return { ok: false, errors: [{ path: "", code: "too-deep", message, line, column: null }] };
+  }
+  const read = readRecordText(source, format);
   if (!read.ok) return { ok: false, errors: read.errors.map((e) => ({ path: "", ...e })) };
   const problems = new ProblemList(read.locator);
   for (const w of read.warnings) problems.warnAt(w, "", w.code, w.message);
