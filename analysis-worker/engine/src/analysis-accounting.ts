@@ -41,8 +41,7 @@ export function solverGaps(a: CircuitAnalysis, record: TeardownRecord): Gap[] {
   const reported = (a as { gaps?: Gap[] }).gaps;
   if (reported !== undefined) return reported;
   // bridge: until solver-trust lands (CircuitAnalysis.gaps); the notes say "REF: why (left out)".
-  const kinds = Object.fromEntries(record.parts.map((p) => [p.ref, p.kind]));
-  return gapsFromSolverNotes(a.solver.notes, kinds);
+  return gapsFromSolverNotes(a.solver.notes, record.parts);
 }
 
 /** The defaults the solver chose where the record was silent. */

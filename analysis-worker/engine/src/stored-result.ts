@@ -35,29 +35,53 @@ export function parseStoredResult(raw: unknown): StoredResultRead {
   return { ok: true, result: parsed.data, upgradedFrom: upgraded ? (engine ?? "unknown") : null };
 }
 
+/** A part as the note reader needs it. */
+interface PartBrief {
+  ref: string;
+  kind: string;
+  pins: Readonly<Record<string, string>>;
+}
+
 /**
  * The gaps an older engine (or a solver that reports only note strings) wrote as notes: each
- * "REF: why (left out)". Documentation-only parts (connectors, test points) are not gaps: they
- * carry nothing the figures depend on. A net "touches no simulated part" only when every part
- * on it is left out, so the parts already say it.
+ * "REF: why (left out)" or "net N: why (left out)". Documentation-only parts (connectors, test
+ * points) are not gaps: they carry nothing the figures depend on; so a net is a gap only when a
+ * part on it is one (without the parts at hand, nets are skipped).
  */
-export function gapsFromSolverNotes(
-  notes: readonly string[],
-  partKinds: Readonly<Record<string, string>> = {},
-): Gap[] {
+export function gapsFromSolverNotes(notes: readonly string[], parts?: readonly PartBrief[]): Gap[] {
+  const byRef = new Map((parts ?? []).map((p) => [p.ref, p]));
   const gaps: Gap[] = [];
+  const netNotes: Array<{ net: string }> = [];
   for (const note of notes) {
-    const m = /^([^:\s]+): (.*) \(left out\)$/.exec(note);
+    const m = /^(net )?([^:\s]+): (.*) \(left out\)$/.exec(note);
     if (!m) continue;
-    const [, ref, why] = m as unknown as [string, string, string];
+    const [, isNet, name, why] = m as unknown as [string, string | undefined, string, string];
+    if (isNet) {
+      netNotes.push({ net: name });
+      continue;
+    }
     if (/documentation only/.test(why)) continue;
-    const kind = partKinds[ref];
+    const kind = byRef.get(name)?.kind;
     let reason = why;
     if (/^kind ".*" is not simulated$/.test(why))
       reason = kind !== undefined && kindInfo(kind) === null ? `unknown kind "${kind}"` : why;
     else if (/^load without model\.r or model\.c$/.test(why))
       reason = "load without a resistance or capacitance";
-    gaps.push({ part: ref, reason });
+    gaps.push({ part: name, reason });
+  }
+  // A net whose every simulated part was left out has no figures worth showing (the solver
+  // holds it at the reference through gmin), whether or not a note said so.
+  const gapParts = new Set(gaps.map((g) => g.part));
+  const nets = new Set([
+    ...netNotes.map((n) => n.net),
+    ...(parts ?? []).flatMap((p) => Object.values(p.pins)),
+  ]);
+  for (const net of [...nets].sort()) {
+    const onNet = (parts ?? []).filter(
+      (p) => Object.values(p.pins).includes(net) && kindInfo(p.kind)?.documentationOnly !== true,
+    );
+    if (onNet.length > 0 && onNet.every((p) => gapParts.has(p.ref)))
+      gaps.push({ net, reason: "reaches only parts left out, so it has no figures" });
   }
   return gaps;
 }
