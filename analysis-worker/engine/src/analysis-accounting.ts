@@ -8,6 +8,7 @@ import type { RiskAssessment } from "./flags/flag-types.js";
 import type { Assumption, Gap } from "./record/gaps-and-assumptions.js";
 import type { TeardownRecord } from "./record/types.js";
 import type { CircuitAnalysis } from "./solver/analyze-circuit.js";
+import { compileCircuit } from "./solver/circuit-model.js";
 import { evidenceList, gapsFromSolverNotes, withoutInternalMarks } from "./stored-result.js";
 
 /** Why the record has no supply to solve against, or null when it has a line and a neutral net. */
@@ -80,5 +81,29 @@ export function storedFlag(flag: RiskAssessment["flags"][number]): StoredFlag {
     evidence: evidenceList(f.evidence),
     source: withoutInternalMarks(String(f.source)) || "common practice",
     source_id: typeof f.source_id === "string" ? f.source_id : f.code,
+  };
+}
+
+/** What an analysis of this record would leave out, known before solving (for the form editor). */
+export interface ExpectedGaps {
+  /** Why it could not be solved at all (no line or neutral, a structural fault), else null. */
+  notSolvable: string | null;
+  gaps: Gap[];
+}
+
+/**
+ * The parts and nets the solver would leave out of this record, from compiling it (cheap: no
+ * time stepping), so an editor can ask for what is missing before the record is saved.
+ */
+export function expectedGaps(record: TeardownRecord): ExpectedGaps {
+  const missing = missingSupplyRole(record);
+  if (missing !== null) return { notSolvable: missing, gaps: [] };
+  const compiled = compileCircuit(record, record.device.rated_supply);
+  if (!compiled.ok) return { notSolvable: compiled.error.message, gaps: [] };
+  const reported = (compiled.value as { gaps?: Gap[] }).gaps;
+  // bridge: until solver-trust lands (compileCircuit reports Gap[]); read its notes meanwhile.
+  return {
+    notSolvable: null,
+    gaps: reported ?? gapsFromSolverNotes(compiled.value.notes, record.parts),
   };
 }

@@ -31,6 +31,7 @@ export * from "./analyze.js";
 export * from "./analysis-result.js";
 export * from "./stored-result.js";
 export * from "./state-line.js";
+export { expectedGaps, type ExpectedGaps } from "./analysis-accounting.js";
 export * from "./record/gaps-and-assumptions.js";
 export * from "./search-columns.js";
 export * from "./solver/solver-error.js";

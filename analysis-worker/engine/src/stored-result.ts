@@ -136,12 +136,16 @@ export function evidenceList(evidence: unknown): Evidence[] {
  */
 export function withoutInternalMarks(text: string): string {
   return text
-    .replace(/\(?\b(?:mark\s+)?(?:FOUND|MEMORY|DERIVED)\b\)?/g, "")
-    .replace(/(?:\.\.\/)?(?:shared\/)?[\w-]+\.md(?:\s*§\s*[\w.]+)?/g, "")
-    .replace(/\s*[;,]\s*(?=[;,]|$)/g, "")
+    .replace(/\b(?:mark\s+)?(?:FOUND|MEMORY|DERIVED)\b/g, "")
+    .replace(/(?:\bper\s+)?(?:\.\.\/)?(?:shared\/)?[\w-]+\.md(?:\s*§\s*[\w.]+)?/g, "")
+    .replace(/\(\s*(?:[,;]\s*)+/g, "(")
+    .replace(/(?:\s*[,;])+\s*\)/g, ")")
+    .replace(/\s*\(\s*\)/g, "")
+    .replace(/\(\s+/g, "(")
+    .replace(/\s+([,;:)])/g, "$1")
+    .replace(/([,;])(?:\s*[,;])+/g, "$1")
     .replace(/\s{2,}/g, " ")
-    .replace(/^[\s;,:]+|[\s;,:]+$/g, "")
-    .trim();
+    .replace(/^[\s,;:]+|[\s,;:]+$/g, "");
 }
 
 const arrayOr = (x: unknown): unknown[] => (Array.isArray(x) ? x : []);
