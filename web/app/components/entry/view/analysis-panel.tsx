@@ -50,10 +50,20 @@ export function AnalysisStateLine({ analysis }: { analysis: AnalysisView | null 
         : state === "running"
           ? `started ${when(analysis.startedAt)}`
           : `finished ${when(analysis.finishedAt)}`;
+  // A finished analysis that left something out, or found no solution, is never a clean "done".
+  const status = state === "done" ? (analysis?.result?.status ?? null) : null;
+  const outcomeCls =
+    status === "not-solved" ? css.stateFailed : status === "partial" ? css.statePartial : cls;
   return (
     <div className={css.row}>
-      <span className={`${css.state} ${cls}`}>
+      <span className={`${css.state} ${status !== null ? outcomeCls : cls}`}>
         Analysis: <span data-testid="analysis-state">{state}</span>
+        {status !== null ? (
+          <span data-testid="analysis-outcome">
+            {" "}
+            · {status === "not-solved" ? "not solved" : status}
+          </span>
+        ) : null}
       </span>
       <span className={css.meta}>
         {detail}
