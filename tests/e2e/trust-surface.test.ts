@@ -99,6 +99,8 @@ describe.skipIf(missing)("browser: the analysis states what it left out", () => 
     await page.getByTestId("open-created-entry").click();
     await page.waitForURL(new RegExp(`/entries/${UUID}$`));
     await textMatching(page.getByTestId("analysis-state"), /done/, ANALYSIS_TIMEOUT_MS);
+    // The badge is not a clean "done": it says partial beside it.
+    await textMatching(page.getByTestId("analysis-outcome"), /partial/);
     const status = page.getByTestId("analysis-status");
     expect(await status.getAttribute("data-status")).toBe("partial");
     expect(await page.getByTestId("analysis-status-line").innerText()).toMatch(
