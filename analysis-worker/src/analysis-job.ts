@@ -13,6 +13,7 @@ import {
   storeDone,
   storeFailed,
 } from "./analysis-store.js";
+import { parseStoredResult } from "@teardown/engine";
 import { withDatabaseRetry } from "./database-faults.js";
 import type { EngineRunner } from "./engine-runner.js";
 import { logger } from "./logger.js";
@@ -90,6 +91,17 @@ export async function runAnalysisJob(
           storeFailed(ctx.db, rev.id, job.engineVersion, outcome.stage, outcome.message),
         );
         return finish("failed", { stage: outcome.stage, reason: outcome.message });
+      }
+      // The stored result is checked against the schema its readers parse it with, so nothing
+      // is stored that the web app would refuse to show.
+      const checked = parseStoredResult(JSON.parse(JSON.stringify(outcome.output.result)));
+      if (!checked.ok || checked.upgradedFrom !== null) {
+        const reason = `the engine's result does not match its schema: ${checked.ok ? "it lacks a status" : checked.message}`;
+        await db("store failed", () =>
+          storeFailed(ctx.db, rev.id, job.engineVersion, "engine", reason),
+        );
+        log.error({ reason }, "engine result refused");
+        return finish("failed", { stage: "engine", reason });
       }
       await db("store done", () => storeDone(ctx.db, rev, job.engineVersion, outcome.output));
       return finish("done", { timings: outcome.output.timings });

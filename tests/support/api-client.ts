@@ -17,6 +17,7 @@ type RouteModule = Partial<Record<"GET" | "POST" | "PATCH" | "PUT" | "DELETE", H
 const ROUTES: [string, () => Promise<RouteModule>][] = [
   ["/api/auth/*all", () => import("@/app/api/auth/[...all]/route")],
   ["/api/health", () => import("@/app/api/health/route")],
+  ["/api/schema/:file", () => import("@/app/api/schema/[file]/route")],
   ["/api/me", () => import("@/app/api/me/route")],
   ["/api/tokens", () => import("@/app/api/tokens/route")],
   ["/api/tokens/:tokenId", () => import("@/app/api/tokens/[tokenId]/route")],

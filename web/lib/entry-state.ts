@@ -5,7 +5,7 @@
  */
 import { and, desc, eq, ne } from "drizzle-orm";
 import { schema, type Database } from "@teardown/db";
-import { ENGINE_VERSION } from "@teardown/engine";
+import { ENGINE_VERSION, parseStoredResult, type AnalysisResult } from "@teardown/engine";
 import type { EntryRow, Role } from "./access";
 import { revisionByNumber } from "./revisions";
 
@@ -20,7 +20,11 @@ export type AnalysisView =
       engineVersion: string;
       startedAt: Date | null;
       finishedAt: Date | null;
-      result: unknown;
+      /** The parsed result; null when the stored one cannot be read (then `resultProblem` says why). */
+      result: AnalysisResult | null;
+      /** Set when the stored result was written by an older engine and upgraded for reading. */
+      upgradedFrom: string | null;
+      resultProblem: string | null;
       layout: unknown;
       timings: unknown;
     }
@@ -44,16 +48,21 @@ export function analysisView(row: AnalysisRow): AnalysisView {
         queuedAt: row.queuedAt,
         startedAt: row.startedAt,
       };
-    case "done":
+    case "done": {
+      // Read back through the engine's schema: the page gets a typed result or a reason.
+      const read = parseStoredResult(row.result);
       return {
         state: "done",
         engineVersion: row.engineVersion,
         startedAt: row.startedAt,
         finishedAt: row.finishedAt,
-        result: row.result,
+        result: read.ok ? read.result : null,
+        upgradedFrom: read.ok ? read.upgradedFrom : null,
+        resultProblem: read.ok ? null : read.message,
         layout: row.layout,
         timings: row.timings,
       };
+    }
     case "failed":
       return {
         state: "failed",

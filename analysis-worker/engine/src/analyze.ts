@@ -1,7 +1,9 @@
 /**
  * The engine's whole analysis of one stored record, stage by stage: validate, check, blocks,
- * solve and figures, flags, fingerprint, layout. Each stage's expected failure is returned as a
- * value naming the stage; the worker stores it as the analysis's failure reason.
+ * solve and figures, flags, fingerprint, layout. An invalid record or a layout failure is returned
+ * as a value naming the stage (the worker stores it as the failure reason); a record that cannot
+ * be solved is still an analysis, `not-solved`, that keeps its layout, blocks and checks and says
+ * why. A solved one is `partial` when it left anything out (its gaps), else `complete`.
  */
 import { parseRecord } from "./record/parse-record.js";
 import type { InputError, Supply, TeardownRecord } from "./record/types.js";
@@ -15,6 +17,15 @@ import { searchColumnsFor, type SearchColumns } from "./search-columns.js";
 import { analyzeCircuit } from "./solver/analyze-circuit.js";
 import { selectStoredWaveforms } from "./stored-waveforms.js";
 import { assessRisks } from "./flags/assess-risks.js";
+import type { AnalysisResult } from "./analysis-result.js";
+import {
+  missingSupplyRole,
+  notSolved,
+  riskAssumptions,
+  solverAssumptions,
+  solverGaps,
+  storedFlag,
+} from "./analysis-accounting.js";
 
 export type AnalysisStage =
   "validate" | "check" | "blocks" | "solve" | "flags" | "fingerprint" | "layout";
@@ -29,8 +40,8 @@ export interface AnalysisOptions {
 }
 
 export interface AnalysisOutput {
-  /** The result of shared/record-format.md section 2 (fields as far as the engine computes them). */
-  result: Record<string, unknown>;
+  /** The stored result (analysis-result.ts): complete, partial or not solved, with its gaps. */
+  result: AnalysisResult;
   layout: unknown;
   search: SearchColumns;
   /** Milliseconds per stage. */
@@ -97,58 +108,55 @@ export async function analyzeRecord(
   if (!layout.ok)
     return { ok: false, stage: "layout", code: layout.code, message: layout.message, errors: [] };
   const supply = opts.supply ?? record.device.rated_supply;
-  const result: Record<string, unknown> = { engine: ENGINE_VERSION, supply };
-  const hasSupply =
-    Object.values(record.nets).some((n) => n.role === "line") &&
-    Object.values(record.nets).some((n) => n.role === "neutral");
-  if (hasSupply) {
+  const kept = { engine: ENGINE_VERSION, supply, blocks, checks, series: seriesMembership(record) };
+  const missingRole = missingSupplyRole(record);
+  let result: AnalysisResult;
+  if (missingRole !== null) {
+    // A board fragment with no line or neutral: drawn and checked, nothing computed, and the
+    // result says so rather than "done" with empty figures.
+    result = notSolved(
+      kept,
+      missingRole,
+      null,
+      record.parts.map((p) => ({
+        part: p.ref,
+        reason: "not simulated: there is no supply to solve against",
+      })),
+    );
+  } else {
     const t1 = now();
     const solved = analyzeCircuit(record, { supply, now, budgetMs: opts.budgetMs });
     timings.solve = now() - t1;
     if (!solved.ok) {
-      const where = [
-        ...solved.error.where.nets.map((n) => `net ${n}`),
-        ...solved.error.where.parts.map((p) => `part ${p}`),
-      ].join(", ");
-      return {
-        ok: false,
-        stage: "solve",
-        code: solved.error.code,
-        message: where ? `${solved.error.message} (${where})` : solved.error.message,
-        errors: [],
+      const { code, message, where } = solved.error;
+      result = notSolved(kept, message, code, [
+        ...where.parts.map((part) => ({ part, reason: message })),
+        ...where.nets.map((net) => ({ net, reason: message })),
+      ]);
+    } else {
+      const a = solved.value;
+      const t2 = now();
+      const risks = assessRisks(record, a, { now, budgetMs: opts.budgetMs });
+      timings.flags = now() - t2;
+      const gaps = solverGaps(a, record);
+      result = {
+        ...kept,
+        status: gaps.length > 0 ? "partial" : "complete",
+        gaps,
+        assumptions: [...solverAssumptions(a), ...riskAssumptions(risks)],
+        input: a.input,
+        parts: a.parts,
+        nets: a.nets,
+        triggers: a.triggers,
+        waveforms: selectStoredWaveforms(record, a.waveforms, a.nets, a.parts),
+        linear: a.linear,
+        solver: a.solver,
+        flags: risks.flags.map(storedFlag),
+        comparisons: risks.comparisons,
+        risk_notes: risks.notes,
       };
     }
-    const a = solved.value;
-    const t2 = now();
-    const risks = assessRisks(record, a, { now, budgetMs: opts.budgetMs });
-    timings.flags = now() - t2;
-    Object.assign(result, {
-      input: a.input,
-      parts: a.parts,
-      nets: a.nets,
-      triggers: a.triggers,
-      waveforms: selectStoredWaveforms(record, a.waveforms, a.nets, a.parts),
-      linear: a.linear,
-      solver: a.solver,
-      flags: risks.flags,
-      comparisons: risks.comparisons,
-      risk_notes: risks.notes,
-    });
-  } else {
-    // A board fragment with no declared line and neutral: documented, drawn, not solved.
-    result.solver = {
-      skipped:
-        "the record declares no net with role line and one with role neutral, so there is no supply to solve against",
-    };
   }
-  result.flags ??= [];
-  Object.assign(result, {
-    blocks,
-    // Additions to the documented result: the checks of the traced graph, and each valued
-    // part's IEC 60063 series (null when the value is on none).
-    checks,
-    series: seriesMembership(record),
-  });
   return {
     ok: true,
     output: {

@@ -2,6 +2,7 @@
  * What the worker writes into an entry's search columns from one analysis: block kinds, flag
  * codes, fingerprint features, facet figures and the text that full-text search reads.
  */
+import type { AnalysisResult } from "./analysis-result.js";
 import type { TeardownRecord } from "./record/types.js";
 
 export interface SearchColumns {
@@ -16,16 +17,12 @@ export interface SearchColumns {
 /** The search columns of a record and its analysis result. */
 export function searchColumnsFor(
   record: TeardownRecord,
-  result: Record<string, unknown>,
+  result: AnalysisResult,
   features: number[],
 ): SearchColumns {
-  const blocks = [
-    ...new Set(((result.blocks as { kind: string }[] | undefined) ?? []).map((b) => b.kind)),
-  ].sort();
-  const flags = [
-    ...new Set(((result.flags as { code: string }[] | undefined) ?? []).map((f) => f.code)),
-  ].sort();
-  const input = (result.input as Record<string, number | null> | undefined) ?? {};
+  const blocks = [...new Set(result.blocks.map((b) => b.kind))].sort();
+  const flags = [...new Set(result.flags.map((f) => f.code))].sort();
+  const input = result.status === "not-solved" ? null : result.input;
   const text = [
     record.summary ?? "",
     record.device.tags.join(" "),
@@ -45,8 +42,9 @@ export function searchColumnsFor(
       supply_vrms: record.device.rated_supply.vrms,
       supply_hz: record.device.rated_supply.hz,
       parts: record.parts.length,
-      input_power_w: input.power ?? null,
-      input_current_a: input.current_rms ?? null,
+      input_power_w: input?.power ?? null,
+      input_current_a: input?.current_rms ?? null,
+      analysis_status: result.status,
     },
     text,
   };

@@ -3,7 +3,7 @@
  * and checks, then whatever figures, triggers, flags and comparisons the engine computed, and
  * the safety caution whenever a safety figure is shown.
  */
-import type { TeardownRecord } from "@teardown/engine";
+import { analysisStateLine, type AnalysisResult, type TeardownRecord } from "@teardown/engine";
 import { eng, textTable } from "./text-table.js";
 
 /** The caution printed next to every safety figure (same words as the web app). */
@@ -65,14 +65,37 @@ export function evidenceSentence(e: { label: string; value: unknown; unit: strin
 }
 
 /** The whole readable report for one analysed record. */
-export function readableReport(record: TeardownRecord, result: Result): string {
+export function readableReport(record: TeardownRecord, typed: AnalysisResult): string {
+  const result = typed as unknown as Result;
   const out: string[] = [];
-  const supply = result.supply as { vrms: number; hz: number };
+  const supply = typed.supply;
+  // The state first: a reader must know what the figures below leave out before reading them.
   out.push(
     `${record.title}`,
-    `category: ${record.device.category ?? "—"}   supply analysed: ${supply.vrms} V / ${supply.hz} Hz   engine ${String(result.engine)}`,
+    `analysis ${analysisStateLine(typed)}`,
+    `category: ${record.device.category ?? "—"}   supply analysed: ${supply.vrms} V / ${supply.hz} Hz   engine ${typed.engine}`,
     "",
   );
+  if (typed.gaps.length > 0)
+    out.push(
+      "Left out of the analysis",
+      ...typed.gaps.map((g) => `  ${g.part ?? `net ${g.net}`}: ${g.reason}`),
+      "",
+    );
+  if (typed.assumptions.length > 0)
+    out.push(
+      "Assumed where the record is silent",
+      textTable(
+        ["part", "field", "value", "why"],
+        typed.assumptions.map((a) => [
+          a.part,
+          a.field,
+          typeof a.value === "number" ? String(Number(a.value.toPrecision(4))) : a.value,
+          a.why,
+        ]),
+      ),
+      "",
+    );
   const series = (result.series as Record<string, string | null> | undefined) ?? {};
   out.push(
     "Parts",
@@ -94,6 +117,7 @@ export function readableReport(record: TeardownRecord, result: Result): string {
   const pinCount = new Map<string, number>();
   for (const p of record.parts)
     for (const n of Object.values(p.pins)) pinCount.set(n, (pinCount.get(n) ?? 0) + 1);
+  const gapNets = new Set(typed.gaps.flatMap((g) => (g.net !== undefined ? [g.net] : [])));
   const netFigures =
     (result.nets as Record<string, { dc: Num; rms: Num; peak: Num }> | undefined) ?? {};
   out.push(
@@ -107,9 +131,13 @@ export function readableReport(record: TeardownRecord, result: Result): string {
           info.role ?? "",
           info.accessible ? "yes" : "",
           pinCount.get(name) ?? 0,
-          eng(netFigures[name]?.dc, "V"),
-          eng(netFigures[name]?.rms, "V"),
-          eng(netFigures[name]?.peak, "V"),
+          ...(gapNets.has(name) || typed.status === "not-solved"
+            ? ["not computed", "", ""]
+            : [
+                eng(netFigures[name]?.dc, "V"),
+                eng(netFigures[name]?.rms, "V"),
+                eng(netFigures[name]?.peak, "V"),
+              ]),
         ]),
     ),
     "",
@@ -132,8 +160,9 @@ export function readableReport(record: TeardownRecord, result: Result): string {
     "",
   );
 
-  const input = result.input as Record<string, Num> | undefined;
+  const input = typed.status === "not-solved" ? undefined : typed.input;
   let safetyShown = false;
+  if (typed.status === "not-solved") out.push(`Figures: not computed (${typed.reason})`, "");
   if (input) {
     safetyShown = true;
     out.push(

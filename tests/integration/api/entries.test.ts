@@ -438,11 +438,14 @@ describe("public entries, archive, state and exports", () => {
     });
     const got = await call("GET", `/api/entries/${entryId}`, { as: viewer.as });
     expect(got.body.analysis.state).toBe("queued");
+    // A stored result too old to read is not guessed at: the reader gets why, and no figures.
     expect(got.body.olderAnalysis).toMatchObject({
       state: "done",
       engineVersion: "0.9.0",
-      result: { engine: "0.9.0" },
+      result: null,
+      upgradedFrom: null,
     });
+    expect(got.body.olderAnalysis.resultProblem).toMatch(/supply/);
     expect(
       (await call("GET", `/api/entries/${entryId}/export/analysis.json`, { as: viewer.as })).status,
     ).toBe(409);
@@ -469,8 +472,53 @@ describe("public entries, archive, state and exports", () => {
     const done = await call("GET", `/api/entries/${entryId}`, { as: viewer.as });
     expect(done.body.analysis.state).toBe("done");
     expect(done.body.analysis.result.engine).toBe(ENGINE_VERSION);
-    expect(done.body.analysis.layout).toBeTruthy();
+    expect(done.body.analysis.result.status).toBe("complete");
+    expect(done.body.analysis.result.gaps).toEqual([]);
+    // The layout draws every part of the record once, each inside the drawing at finite
+    // coordinates, with one placed pin per pin of the record.
+    const layout = done.body.analysis.layout as {
+      width: number;
+      height: number;
+      parts: Array<{
+        ref: string;
+        x: number;
+        y: number;
+        width: number;
+        height: number;
+        pins: unknown[];
+      }>;
+    };
+    const doc = nightLightDoc(30);
+    const refs = (doc.parts as Array<{ ref: string; pins: unknown }>).map((p) => p.ref);
+    expect(layout.parts.map((p) => p.ref).sort()).toEqual([...refs].sort());
+    for (const p of layout.parts) {
+      for (const v of [p.x, p.y, p.width, p.height]) expect(Number.isFinite(v)).toBe(true);
+      expect(p.width).toBeGreaterThan(0);
+      expect(p.x).toBeGreaterThanOrEqual(0);
+      expect(p.y).toBeGreaterThanOrEqual(0);
+      expect(p.x + p.width).toBeLessThanOrEqual(layout.width);
+      expect(p.y + p.height).toBeLessThanOrEqual(layout.height);
+      const recordPins = (doc.parts as Array<{ ref: string; pins: unknown }>).find(
+        (q) => q.ref === p.ref,
+      )!.pins;
+      const count = Array.isArray(recordPins)
+        ? recordPins.length
+        : Object.keys(recordPins as object).length;
+      expect(p.pins).toHaveLength(count);
+    }
     expect(done.body.olderAnalysis).toBeNull();
+  });
+
+  it("serves the record's JSON Schema and the analysis result's, and 404 for any other", async () => {
+    const rec = await call("GET", "/api/schema/record-v1.schema.json");
+    expect(rec.status).toBe(200);
+    expect(rec.headers.get("content-type")).toContain("application/schema+json");
+    const schemaDoc = JSON.parse(rec.text) as { $id: string; properties: Record<string, unknown> };
+    expect(schemaDoc.$id).toBe("record-v1.schema.json");
+    expect(Object.keys(schemaDoc.properties)).toEqual(expect.arrayContaining(["parts", "nets"]));
+    const result = await call("GET", "/api/schema/analysis-result-v1.schema.json");
+    expect(JSON.parse(result.text).$id).toBe("analysis-result-v1.schema.json");
+    expect((await call("GET", "/api/schema/passwords.json")).status).toBe(404);
   });
 
   it("exports the record as YAML and JSON, the analysis as JSON and the schematic as SVG", async () => {

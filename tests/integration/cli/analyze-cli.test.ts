@@ -98,6 +98,44 @@ describe("npm run analyze", () => {
     expect(result.blocks.map((b) => b.kind)).toContain("bridge-rectifier");
   });
 
+  it("prints status, gaps and assumptions with --json, and starts the report with the state", () => {
+    const file = path.join(dir, "partial.yaml");
+    writeFileSync(
+      file,
+      [
+        "record: 1",
+        "title: Partial heater",
+        "parts:",
+        "  - { ref: R1, kind: resistor, value: 23k, pins: [L, N] }",
+        "  - { ref: HT1, kind: load, pins: [L, A] }",
+        "  - { ref: U1, kind: widget, pins: { a: A, b: N } }",
+        "nets:",
+        "  L: { role: line }",
+        "  N: { role: neutral }",
+        "",
+      ].join("\n"),
+    );
+    const r = analyze(file, "--json");
+    expect(r.code).toBe(0);
+    const result = JSON.parse(r.stdout) as {
+      status: string;
+      gaps: Array<{ part?: string; net?: string; reason: string }>;
+      assumptions: unknown[];
+      input: { current_rms: number };
+    };
+    expect(result.status).toBe("partial");
+    expect(result.gaps.map((g) => g.part ?? g.net)).toEqual(["HT1", "U1", "A"]);
+    expect(Array.isArray(result.assumptions)).toBe(true);
+    // Only R1 is simulated: 230 V / 23 kΩ = 10 mA by Ohm's law.
+    expect(result.input.current_rms).toBeCloseTo(0.01, 5);
+    // The reader's warning about the unknown kind names its line.
+    expect(r.stderr).toMatch(/partial\.yaml:6:\d+ warning parts\[2\]\.kind/);
+    const readable = analyze(file);
+    expect(readable.stdout.split("\n")[1]).toBe(
+      'analysis partial: 2 parts and 1 net left out (HT1: load without a resistance or capacitance; U1: unknown kind "widget"; net A: reaches only parts left out, so it has no figures)',
+    );
+  });
+
   it("refuses a malformed --supply", () => {
     const r = analyze("seed-demo/records/glowmoth-night-light.yaml", "--supply", "120V");
     expect(r.code).toBe(1);

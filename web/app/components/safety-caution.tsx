@@ -1,4 +1,4 @@
-/** The caution shown next to every safety figure (see shared/engine.md, "Cautions"). */
+/** The caution shown next to every safety figure (the command line prints the same words). */
 export const SAFETY_CAUTION =
   "Mains circuits and their outputs can kill, and capacitors can stay charged after unplugging; ozone and high voltage are hazards too. " +
   "Every figure here is an estimate computed from a traced netlist, not a measurement or a compliance verdict. Local codes and licensed practice decide.";

@@ -5,6 +5,7 @@
  * invalidates exactly what it changed.
  */
 import { useQuery } from "@tanstack/react-query";
+import type { AnalysisResult } from "@teardown/engine";
 import { getJson } from "./api-client";
 
 export type Role = "owner" | "editor" | "viewer";
@@ -16,7 +17,12 @@ export interface AnalysisView {
   queuedAt?: string;
   startedAt?: string | null;
   finishedAt?: string | null;
-  result?: unknown;
+  /** The parsed result (done); null when the stored one could not be read. */
+  result?: AnalysisResult | null;
+  /** The older engine an upgraded result came from, else null. */
+  upgradedFrom?: string | null;
+  /** Why a stored result could not be read. */
+  resultProblem?: string | null;
   layout?: unknown;
   timings?: unknown;
   error?: string;

@@ -1,6 +1,6 @@
 "use client";
 /**
- * The problems of an uploaded file, by line: each with its place (line, column, field path)
+ * The problems of an uploaded file (or the warnings of an accepted one), by line: each with its place (line, column, field path)
  * and the lines of the file around it, so the person sees the very text the reader refused.
  */
 import type { ApiProblem } from "./api-client";
@@ -27,17 +27,24 @@ export function ProblemList({
   problems,
   text,
   title,
+  warnings = false,
 }: {
   problems: ApiProblem[];
   text: string | null;
   title: string;
+  /** Warnings of an accepted file rather than the problems of a refused one. */
+  warnings?: boolean;
 }) {
   const lines = text === null ? [] : text.split(/\r?\n/);
   const sorted = [...problems].sort(
     (a, b) => (a.line ?? Infinity) - (b.line ?? Infinity) || (a.column ?? 0) - (b.column ?? 0),
   );
   return (
-    <div className={css.errorBox} role="alert" data-testid="upload-problems">
+    <div
+      className={warnings ? css.notice : css.errorBox}
+      role={warnings ? "status" : "alert"}
+      data-testid={warnings ? "upload-warnings" : "upload-problems"}
+    >
       <strong>{title}</strong>
       <ul>
         {sorted.map((p, i) => (

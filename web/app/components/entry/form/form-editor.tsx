@@ -1,10 +1,13 @@
 "use client";
 /**
  * The form editor shared by the new-entry and edit pages: device, parts, nets, measurements
- * and board spacings, checked live by the engine with each problem beside its field. The page
- * owns the state (so it can keep the editor's edits across a stale save) and the submit.
+ * and board spacings, checked live by the engine with each problem beside its field. Before
+ * saving it asks for what the solver needs (line and neutral roles, a load's resistance or
+ * capacitance) and says what would be left out; saving anyway takes a second, explicit click.
+ * The page owns the state (so it can keep the editor's edits across a stale save) and the submit.
  */
-import type { ReactNode } from "react";
+import { useState, type ReactNode } from "react";
+import { gapsText, type ExpectedGaps } from "@teardown/engine";
 import type { FormState } from "./form-state";
 import { FieldProblems, hasProblem } from "./field-problems";
 import { MeasurementsEditor } from "./measurements-editor";
@@ -44,6 +47,9 @@ export function FormEditor(props: FormEditorProps) {
   const places = placeProblems(problems, fieldPaths(state));
   const warnings = placeProblems(live.warnings, []).unplaced;
   const set = (change: Partial<FormState>) => update((s) => ({ ...s, ...change }));
+  // The left-out list the person agreed to save with; a changed list asks again.
+  const [acceptedGaps, setAcceptedGaps] = useState<string | null>(null);
+  const shortfall = solverShortfall(live.expected);
 
   return (
     <form
@@ -54,7 +60,14 @@ export function FormEditor(props: FormEditorProps) {
         e.preventDefault();
         // The live check may lag the last keystroke (it is deferred): judge the state as it is now.
         const now = checkForm(state);
-        if (now.errors.length === 0) props.onSubmit(now.document, props.message);
+        if (now.errors.length > 0) return;
+        const missing = solverShortfall(now.expected);
+        if (missing !== null && missing !== acceptedGaps) {
+          setAcceptedGaps(missing);
+          document.getElementById(`${props.id}-solver-needs`)?.scrollIntoView({ block: "center" });
+          return;
+        }
+        props.onSubmit(now.document, props.message);
       }}
     >
       <div
@@ -170,6 +183,24 @@ export function FormEditor(props: FormEditorProps) {
         </fieldset>
       ) : null}
 
+      {shortfall !== null ? (
+        <fieldset
+          className={css.fieldset}
+          id={`${props.id}-solver-needs`}
+          data-testid="solver-needs"
+          role="status"
+        >
+          <legend>What the analysis will not cover</legend>
+          <p className={css.warning}>{shortfall}</p>
+          <p>
+            Give each load a resistance (model r) or a capacitance (model c), a value to every
+            resistor, capacitor and inductor, and one net the line role and one the neutral role.
+            {acceptedGaps === shortfall
+              ? " Saving now stores the entry with these left out; its analysis will say so."
+              : ""}
+          </p>
+        </fieldset>
+      ) : null}
       {props.children}
       <div className={css.submitRow}>
         <label className={css.label}>
@@ -182,9 +213,19 @@ export function FormEditor(props: FormEditorProps) {
           />
         </label>
         <button type="submit" className={css.submit} disabled={props.busy}>
-          {props.submitLabel}
+          {shortfall !== null && acceptedGaps === shortfall
+            ? `${props.submitLabel} anyway`
+            : props.submitLabel}
         </button>
       </div>
     </form>
   );
+}
+
+/** One sentence on what an analysis would not cover, or null when it would cover everything. */
+function solverShortfall(expected: ExpectedGaps | null): string | null {
+  if (expected === null) return null;
+  if (expected.notSolvable !== null) return `Nothing will be computed: ${expected.notSolvable}.`;
+  if (expected.gaps.length === 0) return null;
+  return `Left out of the analysis: ${gapsText(expected.gaps)}.`;
 }

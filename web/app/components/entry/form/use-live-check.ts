@@ -7,8 +7,10 @@
 import { useDeferredValue, useMemo } from "react";
 import {
   checkCircuit,
+  expectedGaps,
   parseRecord,
   type CircuitIssue,
+  type ExpectedGaps,
   type InputError,
   type TeardownRecord,
 } from "@teardown/engine";
@@ -21,19 +23,30 @@ export interface LiveCheck {
   errors: InputError[];
   warnings: InputError[];
   issues: CircuitIssue[];
+  /** What the solver would leave out of this record, or why it could not solve it; null while invalid. */
+  expected: ExpectedGaps | null;
 }
 
 /** Reads a form state with the engine. */
 export function checkForm(state: FormState): LiveCheck {
   const document = documentFromForm(state);
   const read = parseRecord(JSON.stringify(document, null, 2), { filename: "form.json" });
-  if (!read.ok) return { document, record: null, errors: read.errors, warnings: [], issues: [] };
+  if (!read.ok)
+    return {
+      document,
+      record: null,
+      errors: read.errors,
+      warnings: [],
+      issues: [],
+      expected: null,
+    };
   return {
     document,
     record: read.record,
     errors: [],
     warnings: read.warnings,
     issues: checkCircuit(read.record),
+    expected: expectedGaps(read.record),
   };
 }
 

@@ -58,10 +58,13 @@ export function PartFiguresTable({
   result,
   record,
   onComment,
+  leftOut = new Map(),
 }: {
   result: Obj;
   record: Obj;
   onComment?: (ref: string) => void;
+  /** Parts the analysis left out, with why: their figures read "left out", not blank or zero. */
+  leftOut?: ReadonlyMap<string, string>;
 }) {
   const figures = obj(result.parts);
   const series = obj(result.series);
@@ -77,6 +80,7 @@ export function PartFiguresTable({
             <th>E series</th>
             <th className={css.num}>Peak voltage</th>
             <th className={css.num}>RMS current</th>
+            <th className={css.num}>Mean (DC) current</th>
             <th className={css.num}>Dissipation</th>
             <th>Rating</th>
             {onComment ? <th /> : null}
@@ -104,9 +108,18 @@ export function PartFiguresTable({
                 <td>{String(p.kind ?? "")}</td>
                 <td>{p.value === undefined || p.value === null ? "—" : String(p.value)}</td>
                 <td>{has(series, ref) ? String(series[ref]) : ref in series ? "none" : "—"}</td>
-                <Cell>{si(f.voltage_peak, "V")}</Cell>
-                <Cell>{si(f.current_rms, "A")}</Cell>
-                <Cell>{si(f.power, "W")}</Cell>
+                {leftOut.has(ref) ? (
+                  <td colSpan={4} className={css.missing} data-testid="left-out">
+                    left out: {leftOut.get(ref)}
+                  </td>
+                ) : (
+                  <>
+                    <Cell>{si(f.voltage_peak, "V")}</Cell>
+                    <Cell>{si(f.current_rms, "A")}</Cell>
+                    <Cell>{si(f.current_dc, "A")}</Cell>
+                    <Cell>{si(f.power, "W")}</Cell>
+                  </>
+                )}
                 <td>{ratingText || "—"}</td>
                 {onComment ? (
                   <td>
@@ -125,7 +138,16 @@ export function PartFiguresTable({
 }
 
 /** One row per net: role, touchable, DC, RMS and peak against the reference. */
-export function NetFiguresTable({ result, record }: { result: Obj; record: Obj }) {
+export function NetFiguresTable({
+  result,
+  record,
+  leftOut = new Map(),
+}: {
+  result: Obj;
+  record: Obj;
+  /** Nets the analysis left out, with why. */
+  leftOut?: ReadonlyMap<string, string>;
+}) {
   const figures = obj(result.nets);
   const declared = obj(record.nets);
   const names = new Set<string>([...Object.keys(declared)]);
@@ -158,9 +180,17 @@ export function NetFiguresTable({ result, record }: { result: Obj; record: Obj }
                 <td>
                   {info.accessible === true ? <strong className={css.danger}>yes</strong> : "no"}
                 </td>
-                <Cell>{si(f.dc, "V")}</Cell>
-                <Cell>{si(f.rms, "V")}</Cell>
-                <Cell>{si(f.peak, "V")}</Cell>
+                {leftOut.has(n) ? (
+                  <td colSpan={3} className={css.missing}>
+                    left out: {leftOut.get(n)}
+                  </td>
+                ) : (
+                  <>
+                    <Cell>{si(f.dc, "V")}</Cell>
+                    <Cell>{si(f.rms, "V")}</Cell>
+                    <Cell>{si(f.peak, "V")}</Cell>
+                  </>
+                )}
               </tr>
             );
           })}
