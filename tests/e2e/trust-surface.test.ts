@@ -104,7 +104,7 @@ describe.skipIf(missing)("browser: the analysis states what it left out", () => 
     const status = page.getByTestId("analysis-status");
     expect(await status.getAttribute("data-status")).toBe("partial");
     expect(await page.getByTestId("analysis-status-line").innerText()).toMatch(
-      /^partial: 2 parts and 1 net left out \(HT1: load without a resistance or capacitance; U1: unknown kind "widget"; net A: /,
+      /^partial: 2 parts and 1 net left out \(HT1: load without a resistance or capacitance \(model\.r or model\.c\); U1: unknown kind "widget"; net A: /,
     );
     // The state comes before the figures: it is the first thing of the results on the page.
     const statusTop = (await status.boundingBox())!.y;

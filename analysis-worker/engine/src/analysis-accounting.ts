@@ -3,13 +3,10 @@
  * the parts and nets it left out (gaps) and the defaults it chose (assumptions), from the solver
  * and the risk assessment. analyze.ts decides the status from these.
  */
-import type { NotSolvedResult, StoredFlag } from "./analysis-result.js";
-import type { RiskAssessment } from "./flags/flag-types.js";
-import type { Assumption, Gap } from "./record/gaps-and-assumptions.js";
+import type { NotSolvedResult } from "./analysis-result.js";
+import type { Gap } from "./record/gaps-and-assumptions.js";
 import type { TeardownRecord } from "./record/types.js";
-import type { CircuitAnalysis } from "./solver/analyze-circuit.js";
 import { compileCircuit } from "./solver/circuit-model.js";
-import { evidenceList, gapsFromSolverNotes, withoutInternalMarks } from "./stored-result.js";
 
 /** Why the record has no supply to solve against, or null when it has a line and a neutral net. */
 export function missingSupplyRole(record: TeardownRecord): string | null {
@@ -37,53 +34,6 @@ export function notSolved(
   };
 }
 
-/** The solver's gaps: its own list once it reports one, else read from its notes. */
-export function solverGaps(a: CircuitAnalysis, record: TeardownRecord): Gap[] {
-  const reported = (a as { gaps?: Gap[] }).gaps;
-  if (reported !== undefined) return reported;
-  // bridge: until solver-trust lands (CircuitAnalysis.gaps); the notes say "REF: why (left out)".
-  return gapsFromSolverNotes(a.solver.notes, record.parts);
-}
-
-/** The defaults the solver chose where the record was silent. */
-export function solverAssumptions(a: CircuitAnalysis): Assumption[] {
-  const reported = (a as { assumptions?: Assumption[] }).assumptions;
-  if (reported !== undefined) return reported;
-  // bridge: until solver-trust lands (CircuitAnalysis.assumptions); today only strings
-  // "REF: what value" (the gmin line is the method, not a part default, and is left out).
-  const out: Assumption[] = [];
-  for (const s of a.solver.assumptions) {
-    const m = /^([^:\s]+): (.+)$/.exec(s);
-    if (m)
-      out.push({
-        part: m[1]!,
-        field: "model",
-        value: m[2]!,
-        why: "the record does not give it; a typical value",
-      });
-  }
-  return out;
-}
-
-/** The defaults the risk assessment chose (ratings by package and the like). */
-export function riskAssumptions(risks: RiskAssessment): Assumption[] {
-  // bridge: until flags-trust lands (RiskAssessment.assumptions)
-  return (risks as { assumptions?: Assumption[] }).assumptions ?? [];
-}
-
-/** A flag as stored: evidence as labelled quantities and a citation id. */
-export function storedFlag(flag: RiskAssessment["flags"][number]): StoredFlag {
-  const f = flag as unknown as Record<string, unknown> & { code: StoredFlag["code"] };
-  // bridge: until flags-trust lands (Evidence[], source_id, sources from the citations table);
-  // once it has, these are no-ops.
-  return {
-    ...(flag as unknown as StoredFlag),
-    evidence: evidenceList(f.evidence),
-    source: withoutInternalMarks(String(f.source)) || "common practice",
-    source_id: typeof f.source_id === "string" ? f.source_id : f.code,
-  };
-}
-
 /** What an analysis of this record would leave out, known before solving (for the form editor). */
 export interface ExpectedGaps {
   /** Why it could not be solved at all (no line or neutral, a structural fault), else null. */
@@ -100,10 +50,5 @@ export function expectedGaps(record: TeardownRecord): ExpectedGaps {
   if (missing !== null) return { notSolvable: missing, gaps: [] };
   const compiled = compileCircuit(record, record.device.rated_supply);
   if (!compiled.ok) return { notSolvable: compiled.error.message, gaps: [] };
-  const reported = (compiled.value as { gaps?: Gap[] }).gaps;
-  // bridge: until solver-trust lands (compileCircuit reports Gap[]); read its notes meanwhile.
-  return {
-    notSolvable: null,
-    gaps: reported ?? gapsFromSolverNotes(compiled.value.notes, record.parts),
-  };
+  return { notSolvable: null, gaps: compiled.value.gaps };
 }

@@ -48,8 +48,7 @@ const InputFiguresSchema = z.object({
 const PartFiguresSchema = z.object({
   voltage_peak: Figure,
   current_rms: Figure,
-  // bridge: until solver-trust lands (then every solved part has its mean current)
-  current_dc: Figure.optional(),
+  current_dc: Figure,
   power: Figure,
 });
 

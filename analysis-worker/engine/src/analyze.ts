@@ -18,14 +18,7 @@ import { analyzeCircuit } from "./solver/analyze-circuit.js";
 import { selectStoredWaveforms } from "./stored-waveforms.js";
 import { assessRisks } from "./flags/assess-risks.js";
 import type { AnalysisResult } from "./analysis-result.js";
-import {
-  missingSupplyRole,
-  notSolved,
-  riskAssumptions,
-  solverAssumptions,
-  solverGaps,
-  storedFlag,
-} from "./analysis-accounting.js";
+import { missingSupplyRole, notSolved } from "./analysis-accounting.js";
 
 export type AnalysisStage =
   "validate" | "check" | "blocks" | "solve" | "flags" | "fingerprint" | "layout";
@@ -138,12 +131,12 @@ export async function analyzeRecord(
       const t2 = now();
       const risks = assessRisks(record, a, { now, budgetMs: opts.budgetMs });
       timings.flags = now() - t2;
-      const gaps = solverGaps(a, record);
+      const gaps = a.gaps;
       result = {
         ...kept,
         status: gaps.length > 0 ? "partial" : "complete",
         gaps,
-        assumptions: [...solverAssumptions(a), ...riskAssumptions(risks)],
+        assumptions: [...a.assumptions, ...risks.assumptions],
         input: a.input,
         parts: a.parts,
         nets: a.nets,
@@ -151,7 +144,7 @@ export async function analyzeRecord(
         waveforms: selectStoredWaveforms(record, a.waveforms, a.nets, a.parts),
         linear: a.linear,
         solver: a.solver,
-        flags: risks.flags.map(storedFlag),
+        flags: risks.flags.map((f) => ({ ...f })),
         comparisons: risks.comparisons,
         risk_notes: risks.notes,
       };

@@ -81,7 +81,7 @@ export function gapsFromSolverNotes(notes: readonly string[], parts?: readonly P
       (p) => Object.values(p.pins).includes(net) && kindInfo(p.kind)?.documentationOnly !== true,
     );
     if (onNet.length > 0 && onNet.every((p) => gapParts.has(p.ref)))
-      gaps.push({ net, reason: "reaches only parts left out, so it has no figures" });
+      gaps.push({ net, reason: "no simulated part reaches it, so it has no figures" });
   }
   return gaps;
 }
@@ -188,7 +188,13 @@ function upgradeOlderResult(raw: Obj): Obj {
     status: gaps.length > 0 ? "partial" : "complete",
     gaps,
     input: raw.input,
-    parts: raw.parts ?? {},
+    // an older engine reported no mean current: unknown, not zero
+    parts: Object.fromEntries(
+      Object.entries(isObj(raw.parts) ? raw.parts : {}).map(([ref, figures]) => [
+        ref,
+        { current_dc: null, ...(isObj(figures) ? figures : {}) },
+      ]),
+    ),
     nets: raw.nets ?? {},
     triggers: arrayOr(raw.triggers),
     waveforms: raw.waveforms ?? { t: [], series: {} },

@@ -132,7 +132,7 @@ describe("npm run analyze", () => {
     expect(r.stderr).toMatch(/partial\.yaml:6:\d+ warning parts\[2\]\.kind/);
     const readable = analyze(file);
     expect(readable.stdout.split("\n")[1]).toBe(
-      'analysis partial: 2 parts and 1 net left out (HT1: load without a resistance or capacitance; U1: unknown kind "widget"; net A: reaches only parts left out, so it has no figures)',
+      'analysis partial: 2 parts and 1 net left out (HT1: load without a resistance or capacitance (model.r or model.c); U1: unknown kind "widget"; net A: no simulated part reaches it, so it has no figures)',
     );
   });
 

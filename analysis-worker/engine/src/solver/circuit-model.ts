@@ -160,10 +160,8 @@ export function compileCircuit(rec: TeardownRecord, supply: Supply): SolverOutco
       leaveOut(p.ref, `unknown kind "${p.kind}"`);
       continue;
     }
-    if (info.documentationOnly) {
-      leaveOut(p.ref, `a ${p.kind} is documentation only`);
-      continue;
-    }
+    // Connectors and test points carry nothing the figures depend on: not a gap.
+    if (info.documentationOnly) continue;
     const pinNets =
       p.kind === "capacitor" && p.polarised
         ? [p.pins.plus, p.pins.minus]
@@ -173,6 +171,7 @@ export function compileCircuit(rec: TeardownRecord, supply: Supply): SolverOutco
       continue;
     }
     const nets = pinNets as string[];
+    const gapsBefore = gaps.length;
     for (const n of nets) node(n);
     const t = nets.map((n) => nodeOf.get(n)!);
     const base = { ref: p.ref, terminals: t, nets };
@@ -229,7 +228,7 @@ export function compileCircuit(rec: TeardownRecord, supply: Supply): SolverOutco
         if (p.model.r !== undefined) resistance(p.model.r);
         else if (p.model.c !== undefined)
           add("capacitor", 0, (mem) => ({ ...base, mem, type: "capacitor", c: p.model.c! }), 0);
-        else leaveOut(p.ref, "load without a resistance (model.r) or capacitance (model.c)");
+        else leaveOut(p.ref, "load without a resistance or capacitance (model.r or model.c)");
         break;
       case "inductor":
         if (p.value === null) leaveOut(p.ref, "an inductor without a value");
@@ -319,12 +318,14 @@ export function compileCircuit(rec: TeardownRecord, supply: Supply): SolverOutco
       default:
         leaveOut(p.ref, `a ${p.kind} is not simulated`);
     }
-    for (const n of nets) usedNets.add(n);
+    // a part left out simulates nothing: its nets count as used only through other parts
+    if (gaps.length === gapsBefore) for (const n of nets) usedNets.add(n);
   }
   const nodeCount = nodeNames.length;
   const devices = pending.map((d) => d.build(nodeCount));
   for (const n of netNames)
-    if (!usedNets.has(n)) gaps.push({ net: n, reason: "touches no simulated part" });
+    if (!usedNets.has(n))
+      gaps.push({ net: n, reason: "no simulated part reaches it, so it has no figures" });
 
   const structural = checkStructure(devices, line, reference);
   if (structural !== null) return structural;
