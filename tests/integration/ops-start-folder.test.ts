@@ -40,7 +40,7 @@ describe("finding 14: a start whose data folder the postgres user cannot enter",
       const closed = path.join(tmp, "home-of-root");
       mkdirSync(closed);
       chmodSync(closed, 0o700);
-      const env = {
+      const env: NodeJS.ProcessEnv = {
         ...process.env,
         TEARDOWN_DATA_DIR: path.join(closed, "data"),
         PORT: String(await findFreePort()),

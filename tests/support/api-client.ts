@@ -6,6 +6,7 @@
  */
 import { closeDatabase } from "@/lib/database";
 import { closeQueue } from "@/lib/queue";
+import { closeRecordParsePool } from "@/lib/record-parse/record-parse-pool";
 
 /** The origin every request claims, matching the default APP_URL (better-auth checks it). */
 export const TEST_ORIGIN = "http://localhost:3000";
@@ -167,6 +168,7 @@ export async function signIn(email: string, password: string): Promise<{ status:
 
 /** Closes the web code's pool and queue at the end of a test file. */
 export async function closeWebApp(): Promise<void> {
+  await closeRecordParsePool();
   await closeQueue();
   await closeDatabase();
 }
@@ -189,6 +191,8 @@ export async function openTestWebApp(): Promise<TestWebApp> {
   process.env.DATABASE_URL = db.url;
   process.env.TEARDOWN_DATA_DIR = dataDir;
   delete process.env.BETTER_AUTH_SECRET;
+  // API tests make entries far faster than a person; the upload limit has its own test.
+  process.env.RECORD_SUBMISSION_BURST ??= "100000";
   return {
     db,
     dataDir,

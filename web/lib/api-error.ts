@@ -51,7 +51,13 @@ export function errorResponse(err: ApiError): NextResponse {
   const body: Record<string, unknown> = { code: err.code, message: err.message, ...rest };
   if (path !== undefined) body.path = path;
   if (errors !== undefined) body.errors = errors;
-  return NextResponse.json({ error: body }, { status: err.status });
+  // A refusal that passes (busy, rate-limited, database restarting) says when to come back.
+  const retry = rest.retryAfterSeconds;
+  const headers = typeof retry === "number" ? { "retry-after": String(retry) } : undefined;
+  return NextResponse.json(
+    { error: body },
+    { status: err.status, ...(headers ? { headers } : {}) },
+  );
 }
 
 // Postgres: invalid text for a type (a malformed uuid that slipped past validation).
