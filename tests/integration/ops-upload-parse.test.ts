@@ -29,9 +29,9 @@ afterAll(async () => {
   await app?.close();
 });
 
-/** A valid ladder record padded with part notes to about UPLOAD_BYTES of YAML. */
+/** A valid ladder record padded with part notes to about UPLOAD_BYTES of JSON. */
 function bigRecord(rungs: number, i: number): string {
-  const doc = { ...ladderDoc(rungs), title: `Big ladder ${i}` };
+  const doc: Record<string, unknown> = { ...ladderDoc(rungs), title: `Big ladder ${i}` };
   const parts = doc.parts as Array<Record<string, unknown>>;
   const pad = Math.floor((UPLOAD_BYTES - JSON.stringify(doc, null, 1).length) / parts.length) - 12;
   // JSON: a YAML writer takes seconds over 1.6 MB, and the reader takes either.
