@@ -29,6 +29,8 @@ const ROUTES: [string, () => Promise<RouteModule>][] = [
   ],
   ["/api/teams/:teamId/invites", () => import("@/app/api/teams/[teamId]/invites/route")],
   ["/api/teams/:teamId/entries", () => import("@/app/api/teams/[teamId]/entries/route")],
+  ["/api/teams/:teamId/export", () => import("@/app/api/teams/[teamId]/export/route")],
+  ["/api/teams/:teamId/import", () => import("@/app/api/teams/[teamId]/import/route")],
   ["/api/invites/:token", () => import("@/app/api/invites/[token]/route")],
   ["/api/entries", () => import("@/app/api/entries/route")],
   ["/api/entries/:entryId", () => import("@/app/api/entries/[entryId]/route")],
