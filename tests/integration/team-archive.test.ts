@@ -146,7 +146,10 @@ beforeAll(async () => {
       if (outcome.ok) await storeDone(source.db.db, loaded!, ENGINE_VERSION, outcome.output);
     }
     const form = new FormData();
-    form.set("file", new File([png(3 + i, 2, 40 * i)], "board.png", { type: "image/png" }));
+    form.set(
+      "file",
+      new File([new Uint8Array(png(3 + i, 2, 40 * i))], "board.png", { type: "image/png" }),
+    );
     form.set("side", "component");
     form.set("caption", `board ${i}`);
     expect(
