@@ -3,6 +3,7 @@
  * that turns a thrown ApiError (or an unexpected failure) into a response.
  */
 import { NextResponse } from "next/server";
+import { isTransientDatabaseError } from "@teardown/db";
 
 /** One problem inside a request or an uploaded file. */
 export interface ProblemDetail {
@@ -70,6 +71,18 @@ export function toErrorResponse(err: unknown): NextResponse {
     (err as { code?: string; cause?: { code?: string } }).code ??
     (err as { cause?: { code?: string } }).cause?.code;
   if (code === PG_INVALID_TEXT) return errorResponse(notFound("object"));
+  // The database restarting or unreachable is not a bug of the request: say so, and when to retry.
+  if (isTransientDatabaseError(err))
+    return errorResponse(
+      new ApiError(
+        503,
+        "database-unavailable",
+        "the database is unavailable for a moment; try again shortly",
+        {
+          retryAfterSeconds: 5,
+        },
+      ),
+    );
   // An unexpected failure is a bug: say so without leaking internals, and keep the detail in the log.
   console.error("api: unexpected failure", err);
   return errorResponse(new ApiError(500, "internal", "the server failed to answer this request"));
