@@ -7,7 +7,8 @@ import { createTestDatabase, type TestDatabase } from "./../support/test-databas
 
 let t: TestDatabase;
 const uncaught: string[] = [];
-const onUncaught = (err: unknown) => uncaught.push(err instanceof Error ? err.message : String(err));
+const onUncaught = (err: unknown) =>
+  uncaught.push(err instanceof Error ? err.message : String(err));
 
 beforeAll(async () => {
   t = await createTestDatabase();
