@@ -88,12 +88,13 @@ describe("npm start as a service", () => {
     );
     expect(await healthy(port)).toBe(true);
 
-    const web = childOf("next start")!;
+    // Next renames its process title to "next-server (vX)".
+    const web = childOf("next-server")!;
     process.kill(web.pid, "SIGKILL");
     await waitFor(
       "the web server restarted and healthy",
       async () => {
-        const now = childOf("next start");
+        const now = childOf("next-server");
         return now !== undefined && now.pid !== web.pid && (await healthy(port));
       },
       120_000,
