@@ -17,7 +17,9 @@ export function analysisQueue(): Promise<PgBoss> {
     // call itself still rejects to its request, which answers 503; the handle reconnects.
     boss.on("error", (err: Error) => {
       if (process.env.NODE_ENV !== "test")
-        process.stderr.write(`teardown-ledger web: queue connection error (retrying): ${err.message}\n`);
+        process.stderr.write(
+          `teardown-ledger web: queue connection error (retrying): ${err.message}\n`,
+        );
     });
     const started = startQueue(boss).then(() => boss);
     // A failed start must not stick: the next request tries again.
