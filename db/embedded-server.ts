@@ -58,6 +58,33 @@ function runAsIds(): { uid?: number; gid?: number } {
   }
 }
 
+/** Whether a user (uid, primary gid) may enter `dir`, by its owner/group/other search bits. */
+function mayEnter(dir: string, ids: { uid: number; gid: number }): boolean {
+  const st = statSync(dir);
+  if (st.uid === ids.uid) return (st.mode & 0o100) !== 0;
+  if (st.gid === ids.gid) return (st.mode & 0o010) !== 0;
+  return (st.mode & 0o001) !== 0;
+}
+
+/**
+ * The first folder on the way to `target` (or its nearest existing ancestor) that the server's
+ * user cannot enter, or null. Under root the server runs as `postgres`, which cannot reach a
+ * checkout in root's home: initdb then died with a bare "spawn EACCES".
+ */
+function firstClosedFolder(target: string, ids: { uid?: number; gid?: number }): string | null {
+  if (ids.uid === undefined || ids.gid === undefined) return null;
+  let existing = path.resolve(target);
+  while (!existsSync(existing)) existing = path.dirname(existing);
+  const chain: string[] = [];
+  for (let d = existing; ; d = path.dirname(d)) {
+    chain.unshift(d);
+    if (path.dirname(d) === d) break;
+  }
+  for (const dir of chain)
+    if (statSync(dir).isDirectory() && !mayEnter(dir, { uid: ids.uid, gid: ids.gid })) return dir;
+  return null;
+}
+
 function chownTree(dir: string, ids: { uid?: number; gid?: number }): void {
   if (ids.uid === undefined || ids.gid === undefined) return;
   chownSync(dir, ids.uid, ids.gid);
@@ -148,6 +175,14 @@ export async function startEmbeddedServer(opts: {
   }
   const bin = await binaryDir();
   const ids = runAsIds();
+  for (const target of [bin, dataDir]) {
+    const closed = firstClosedFolder(target, ids);
+    if (closed)
+      throw new Error(
+        `the database runs as the system user "postgres" (Postgres refuses to run as root), which cannot enter ${closed}; ` +
+          `move the project to a folder every user may enter (e.g. under /opt or /srv), run as a normal user, or set DATABASE_URL to a server of your own`,
+      );
+  }
   mkdirSync(dataDir, { recursive: true });
   if (!existsSync(path.join(dataDir, "PG_VERSION"))) {
     if (readdirSync(dataDir).length > 0) rmSync(dataDir, { recursive: true, force: true }); // a half-made folder from an interrupted initdb

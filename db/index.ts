@@ -2,6 +2,7 @@
 export * from "./client.js";
 export * from "./pool-guard.js";
 export * from "./errors.js";
+export * from "./transient-errors.js";
 export * from "./migrate.js";
 export * as schema from "./schema/index.js";
 export * from "./queue.js";

@@ -1,8 +1,10 @@
 /**
  * `npm start`: the whole app on one machine. Starts Postgres (embedded unless DATABASE_URL is
  * set), applies migrations, loads the demo data once, builds the web app if needed, starts one
- * worker and the web server, prints the URL, and stops everything on Ctrl-C or SIGTERM.
- * A crash of the database, the worker or the web server stops the whole start (exit 1).
+ * worker and the web server, prints the URL, and stops everything on Ctrl-C or SIGTERM (also when
+ * sent by npm, a process manager or a container runtime, and when its parent goes away).
+ * A crashed worker or web server is restarted, with the reason logged, up to a limit
+ * (`start/restart-policy.ts`); a crash of the database stops the whole start (exit 1).
  */
 import path from "node:path";
 import { fileURLToPath } from "node:url";
@@ -18,6 +20,13 @@ import { loadDemoData } from "@teardown/seed-demo";
 import { buildWebIfStale } from "./start/build-web.js";
 import { startChild, type ManagedChild } from "./start/child-processes.js";
 import { portProblem } from "./start/port-check.js";
+import {
+  describeExit,
+  MAX_RESTARTS,
+  RestartBudget,
+  RESTART_WINDOW_MS,
+  restartDelayMs,
+} from "./start/restart-policy.js";
 
 const ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "..");
 /** How long the web server may take to answer its health check after it starts. */
@@ -80,6 +89,13 @@ async function main(): Promise<void> {
   process.on("SIGINT", () => void shutdown(0));
   process.on("SIGTERM", () => void shutdown(0));
   process.on("SIGHUP", () => void shutdown(0));
+  // Orphaned (npm or a wrapper shell was killed without passing the signal on): stop too, so
+  // nothing is left running that no one can stop.
+  const parentAtStart = process.ppid;
+  setInterval(() => {
+    if (process.ppid !== parentAtStart)
+      void shutdown(0, "the process that ran the start went away");
+  }, 1000).unref();
 
   try {
     log(
@@ -113,29 +129,48 @@ async function main(): Promise<void> {
     NODE_ENV: "production",
     NEXT_TELEMETRY_DISABLED: "1",
   };
-  const worker = startChild(
-    "worker",
-    ["--import", "tsx", "analysis-worker/src/main.ts"],
-    env,
-    ROOT,
-  );
-  const web = startChild(
-    "web",
-    [
-      path.join(ROOT, "node_modules", "next", "dist", "bin", "next"),
-      "start",
-      "web",
-      "-p",
-      String(port),
-    ],
-    env,
-    ROOT,
-  );
-  children.push(worker, web);
-  for (const c of children)
-    void c.exited.then(({ code, signal }) =>
-      shutdown(1, `the ${c.name} process exited (code ${code}, signal ${signal})`),
-    );
+  const specs: Array<{ name: string; args: string[] }> = [
+    { name: "worker", args: ["--import", "tsx", "analysis-worker/src/main.ts"] },
+    {
+      name: "web",
+      args: [
+        path.join(ROOT, "node_modules", "next", "dist", "bin", "next"),
+        "start",
+        "web",
+        "-p",
+        String(port),
+      ],
+    },
+  ];
+  // Each child is restarted when it dies on its own, with the reason logged, until its budget of
+  // restarts is spent; the database under the other child is never stopped for it.
+  const supervise = (
+    spec: { name: string; args: string[] },
+    budget: RestartBudget,
+  ): ManagedChild => {
+    const child = startChild(spec.name, spec.args, env, ROOT);
+    children.push(child);
+    void child.exited.then(async ({ code, signal }) => {
+      if (shuttingDown) return;
+      children.splice(children.indexOf(child), 1);
+      const how = describeExit(code, signal);
+      const n = budget.take(Date.now());
+      if (n === null)
+        return shutdown(
+          1,
+          `the ${spec.name} process exited (${how}) after ${MAX_RESTARTS} restarts within ${RESTART_WINDOW_MS / 60_000} minutes`,
+        );
+      const delay = restartDelayMs(n);
+      process.stderr.write(
+        `teardown-ledger: the ${spec.name} process exited (${how}); restarting it in ${delay / 1000} s (restart ${n} of at most ${MAX_RESTARTS} within ${RESTART_WINDOW_MS / 60_000} minutes)\n`,
+      );
+      await new Promise((r) => setTimeout(r, delay));
+      if (!shuttingDown) supervise(spec, budget);
+    });
+    return child;
+  };
+  supervise(specs[0]!, new RestartBudget());
+  const web = supervise(specs[1]!, new RestartBudget());
 
   const url = `http://localhost:${port}`;
   try {

@@ -9,48 +9,9 @@
 const FIRST_RETRY_DELAY_MS = 250;
 const MAX_RETRY_DELAY_MS = 4_000;
 
-/** SQLSTATEs that mean "the connection or server is away, try again", not "this query is wrong". */
-const TRANSIENT_SQLSTATES = new Set([
-  "57P01",
-  "57P02",
-  "57P03",
-  "53300",
-  "08000",
-  "08001",
-  "08003",
-  "08004",
-  "08006",
-]);
-/** Socket-level error codes of an unreachable or vanished server. */
-const TRANSIENT_NET_CODES = new Set([
-  "ECONNREFUSED",
-  "ECONNRESET",
-  "ETIMEDOUT",
-  "EPIPE",
-  "EHOSTUNREACH",
-  "ENETUNREACH",
-  "EAI_AGAIN",
-]);
-/** node-postgres reports a dropped or refused connection with these messages and no code. */
-const TRANSIENT_MESSAGE =
-  /connection terminated|connection timeout|timeout exceeded when trying to connect|not queryable|server closed the connection/i;
-
-/** True when `err` (or any error in its cause chain) is a lost or refused database connection. */
-export function isTransientDatabaseError(err: unknown, depth = 0): boolean {
-  if (!err || typeof err !== "object" || depth > 5) return false;
-  const e = err as { code?: unknown; message?: unknown; cause?: unknown; errors?: unknown };
-  if (
-    typeof e.code === "string" &&
-    (TRANSIENT_SQLSTATES.has(e.code) || TRANSIENT_NET_CODES.has(e.code))
-  )
-    return true;
-  if (typeof e.message === "string" && TRANSIENT_MESSAGE.test(e.message)) return true;
-  // node's happy-eyeballs connect wraps several attempts in an AggregateError
-  if (Array.isArray(e.errors) && e.errors.some((x) => isTransientDatabaseError(x, depth + 1)))
-    return true;
-  // drizzle wraps the driver's error in its own, with the driver's as the cause
-  return isTransientDatabaseError(e.cause, depth + 1);
-}
+// Which errors count as "the database is away" is shared with the web app (503 answers).
+import { isTransientDatabaseError } from "@teardown/db";
+export { isTransientDatabaseError };
 
 export interface RetryOptions {
   /** Stop retrying once this long has passed since the first attempt, and throw the last error. */

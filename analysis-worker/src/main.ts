@@ -5,6 +5,7 @@
  * period, else releases them to the queue.
  */
 import {
+  analysisWorkOptions,
   ANALYSIS_QUEUE,
   applyMigrations,
   createQueue,
@@ -55,10 +56,8 @@ async function main(): Promise<void> {
   };
   await boss.work<AnalysisJob>(
     ANALYSIS_QUEUE,
-    {
-      localConcurrency: concurrency,
-      pollingIntervalSeconds: Number(process.env.QUEUE_POLL_SECONDS ?? 0.5),
-    },
+    // Per-team limit and heartbeat renewal: see analysisWorkOptions.
+    analysisWorkOptions(concurrency),
     async ([job]) => {
       if (!job) return;
       await runAnalysisJob(ctx, job.id, job.data);

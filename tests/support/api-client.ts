@@ -6,6 +6,7 @@
  */
 import { closeDatabase } from "@/lib/database";
 import { closeQueue } from "@/lib/queue";
+import { closeRecordParsePool } from "@/lib/record-parse/record-parse-pool";
 
 /** The origin every request claims, matching the default APP_URL (better-auth checks it). */
 export const TEST_ORIGIN = "http://localhost:3000";
@@ -30,6 +31,8 @@ const ROUTES: [string, () => Promise<RouteModule>][] = [
   ["/api/teams/:teamId/invites", () => import("@/app/api/teams/[teamId]/invites/route")],
   ["/api/teams/:teamId/entries", () => import("@/app/api/teams/[teamId]/entries/route")],
   ["/api/teams/:teamId/audit", () => import("@/app/api/teams/[teamId]/audit/route")],
+  ["/api/teams/:teamId/export", () => import("@/app/api/teams/[teamId]/export/route")],
+  ["/api/teams/:teamId/import", () => import("@/app/api/teams/[teamId]/import/route")],
   ["/api/invites/:token", () => import("@/app/api/invites/[token]/route")],
   ["/api/entries", () => import("@/app/api/entries/route")],
   ["/api/entries/:entryId", () => import("@/app/api/entries/[entryId]/route")],
@@ -175,6 +178,7 @@ export async function signIn(email: string, password: string): Promise<{ status:
 
 /** Closes the web code's pool and queue at the end of a test file. */
 export async function closeWebApp(): Promise<void> {
+  await closeRecordParsePool();
   await closeQueue();
   await closeDatabase();
 }
@@ -197,6 +201,8 @@ export async function openTestWebApp(): Promise<TestWebApp> {
   process.env.DATABASE_URL = db.url;
   process.env.TEARDOWN_DATA_DIR = dataDir;
   delete process.env.BETTER_AUTH_SECRET;
+  // API tests make entries far faster than a person; the upload limit has its own test.
+  process.env.RECORD_SUBMISSION_BURST ??= "100000";
   return {
     db,
     dataDir,

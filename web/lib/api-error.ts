@@ -3,6 +3,7 @@
  * that turns a thrown ApiError (or an unexpected failure) into a response.
  */
 import { NextResponse } from "next/server";
+import { isTransientDatabaseError } from "@teardown/db";
 
 /** One problem inside a request or an uploaded file. */
 export interface ProblemDetail {
@@ -51,7 +52,13 @@ export function errorResponse(err: ApiError): NextResponse {
   const body: Record<string, unknown> = { code: err.code, message: err.message, ...rest };
   if (path !== undefined) body.path = path;
   if (errors !== undefined) body.errors = errors;
-  return NextResponse.json({ error: body }, { status: err.status });
+  // A refusal that passes (busy, rate-limited, database restarting) says when to come back.
+  const retry = rest.retryAfterSeconds;
+  const headers = typeof retry === "number" ? { "retry-after": String(retry) } : undefined;
+  return NextResponse.json(
+    { error: body },
+    { status: err.status, ...(headers ? { headers } : {}) },
+  );
 }
 
 // Postgres: invalid text for a type (a malformed uuid that slipped past validation).
@@ -64,6 +71,18 @@ export function toErrorResponse(err: unknown): NextResponse {
     (err as { code?: string; cause?: { code?: string } }).code ??
     (err as { cause?: { code?: string } }).cause?.code;
   if (code === PG_INVALID_TEXT) return errorResponse(notFound("object"));
+  // The database restarting or unreachable is not a bug of the request: say so, and when to retry.
+  if (isTransientDatabaseError(err))
+    return errorResponse(
+      new ApiError(
+        503,
+        "database-unavailable",
+        "the database is unavailable for a moment; try again shortly",
+        {
+          retryAfterSeconds: 5,
+        },
+      ),
+    );
   // An unexpected failure is a bug: say so without leaking internals, and keep the detail in the log.
   console.error("api: unexpected failure", err);
   return errorResponse(new ApiError(500, "internal", "the server failed to answer this request"));

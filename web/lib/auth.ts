@@ -10,6 +10,7 @@ import { drizzleAdapter } from "better-auth/adapters/drizzle";
 import { schema } from "@teardown/db";
 import { authSecret } from "./auth-secret";
 import { database } from "./database";
+import { loopbackAliases } from "./loopback-origins";
 
 /** The shortest password accepted. */
 export const MIN_PASSWORD_CHARS = 10;
@@ -37,7 +38,8 @@ export function trustedOrigins(): string[] {
     .split(",")
     .map((s) => s.trim())
     .filter(Boolean);
-  return [appUrl(), ...extra];
+  // The start prints a localhost address; 127.0.0.1 and [::1] reach the same server.
+  return [appUrl(), ...loopbackAliases(appUrl()), ...extra];
 }
 
 function makeAuth() {

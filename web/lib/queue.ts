@@ -12,6 +12,15 @@ const globalForQueue = globalThis as unknown as { teardownQueue?: Promise<PgBoss
 export function analysisQueue(): Promise<PgBoss> {
   if (!globalForQueue.teardownQueue) {
     const boss = createQueue(database().url, { supervise: false });
+    // pg-boss is an EventEmitter: an "error" with no listener (57P01 when the database restarts
+    // under an idle connection) would be thrown as uncaught and end the web process. The failed
+    // call itself still rejects to its request, which answers 503; the handle reconnects.
+    boss.on("error", (err: Error) => {
+      if (process.env.NODE_ENV !== "test")
+        process.stderr.write(
+          `teardown-ledger web: queue connection error (retrying): ${err.message}\n`,
+        );
+    });
     const started = startQueue(boss).then(() => boss);
     // A failed start must not stick: the next request tries again.
     started.catch(() => {

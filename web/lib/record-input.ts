@@ -5,13 +5,10 @@
  * What is stored is the normalised record written back as a record document.
  */
 import { z } from "zod";
-import {
-  MAX_RECORD_TEXT_CHARS,
-  readCircuitFile,
-  serializeRecord,
-  type TeardownRecord,
-} from "@teardown/engine";
+import { MAX_RECORD_TEXT_CHARS, type TeardownRecord } from "@teardown/engine";
 import { ApiError } from "./api-error";
+import { readRecordOffThread } from "./record-parse/record-parse-pool";
+import { takeUploadAllowance } from "./record-parse/upload-rate";
 import {
   MAX_JSON_BODY_BYTES,
   MAX_JSON_DEPTH,
@@ -42,8 +39,12 @@ export interface AcceptedRecord {
 /** The largest uploaded circuit file, in bytes (the engine reads at most this many characters). */
 export const MAX_CIRCUIT_FILE_BYTES = MAX_RECORD_TEXT_CHARS;
 
-/** Reads circuit-file text with the engine: the accepted record, or 422 with every error. */
-export function acceptRecordText(text: string, filename?: string): AcceptedRecord {
+/**
+ * Reads circuit-file text with the engine, in a reader thread (see record-parse-pool): the
+ * accepted record, or 422 with every error; 503 when the readers are all busy. NUL bytes and
+ * absurd nesting are refused first, without a thread.
+ */
+export async function acceptRecordText(text: string, filename?: string): Promise<AcceptedRecord> {
   const nul = text.indexOf("\u0000");
   if (nul >= 0) {
     const line = text.slice(0, nul).split("\n").length;
@@ -79,7 +80,27 @@ export function acceptRecordText(text: string, filename?: string): AcceptedRecor
       );
     }
   }
-  const read = readCircuitFile(text, filename === undefined ? {} : { filename });
+  const read = await readRecordOffThread(text, filename);
+  switch (read.kind) {
+    case "busy":
+      throw new ApiError(
+        503,
+        "busy",
+        "the server is reading other uploads; try again in a few seconds",
+        { retryAfterSeconds: 5 },
+      );
+    case "timeout":
+      throw new ApiError(
+        422,
+        "record-too-slow",
+        `the record took longer than ${read.budgetMs / 1000} s to read; split it or simplify it`,
+        { path: "record" },
+      );
+    case "crash":
+      throw new Error(`record reader failed: ${read.message}`);
+    case "read":
+      break;
+  }
   if (!read.ok) {
     const first = read.errors[0];
     const where = first
@@ -100,9 +121,8 @@ export function acceptRecordText(text: string, filename?: string): AcceptedRecor
       },
     );
   }
-  const document = JSON.parse(serializeRecord(read.record, "json")) as Record<string, unknown>;
-  checkStoredSize(document);
-  return { record: read.record, document, warnings: read.warnings };
+  checkStoredSize(read.document);
+  return { record: read.record, document: read.document, warnings: read.warnings };
 }
 
 /**
@@ -123,7 +143,7 @@ export function checkStoredSize(document: Record<string, unknown>): void {
 }
 
 /** Reads a record document given as a JSON value (pretty-printed first, so errors carry lines). */
-export function acceptRecordDocument(doc: unknown): AcceptedRecord {
+export function acceptRecordDocument(doc: unknown): Promise<AcceptedRecord> {
   return acceptRecordText(JSON.stringify(doc, null, 2), "record.json");
 }
 
@@ -142,13 +162,16 @@ const jsonSubmission = submissionFields.extend({ record: z.record(z.string(), z.
 /** A record with its fields, from a JSON body (`{ record, ...fields }`) or a form (`file` + fields). */
 export async function readRecordSubmission(
   req: Request,
+  callerKey: string,
 ): Promise<{ accepted: AcceptedRecord; fields: SubmissionFields; filename: string | null }> {
+  // Before the body is read: reading records is the costly part of a request.
+  takeUploadAllowance(callerKey);
   const type = mediaType(req);
   if (type === "application/json") {
     const bytes = await readBytes(req, MAX_JSON_BODY_BYTES);
     const body = validate(jsonSubmission, parseJsonText(new TextDecoder().decode(bytes)));
     const { record, ...fields } = body;
-    return { accepted: acceptRecordDocument(record), fields, filename: null };
+    return { accepted: await acceptRecordDocument(record), fields, filename: null };
   }
   if (type === "multipart/form-data") {
     const form = await readForm(
@@ -176,7 +199,7 @@ export async function readRecordSubmission(
     }
     const fields = validate(submissionFields, raw);
     return {
-      accepted: acceptRecordText(text, file.name || undefined),
+      accepted: await acceptRecordText(text, file.name || undefined),
       fields,
       filename: file.name || null,
     };

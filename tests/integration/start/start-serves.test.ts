@@ -143,26 +143,8 @@ describe("npm start with DATABASE_URL", () => {
     expect(await second.exit).toBe(0);
   }, 300_000);
 
-  // In the same file as the build above, so no two tests run `next build` at once.
-  it("stops everything with exit 1 when the worker dies while it runs", async () => {
-    const port = await findFreePort();
-    const run = start({ DATABASE_URL: target.url, PORT: String(port) });
-    await waitFor(() => /is running at/.test(run.output()) || run.child.exitCode !== null, 240_000);
-    const worker = (await childPids(run.child.pid!)).find((c) =>
-      c.cmd.includes("analysis-worker/src/main.ts"),
-    );
-    expect(worker).toBeDefined();
-    process.kill(worker!.pid, "SIGKILL");
-    expect(await run.exit).toBe(1);
-    expect(run.output()).toMatch(
-      /the worker process exited \(code null, signal SIGKILL\); stopping everything/,
-    );
-    const health = await fetch(`http://localhost:${port}/api/health`).then(
-      (r) => r.status,
-      () => "refused",
-    );
-    expect(health).toBe("refused");
-  }, 300_000);
+  // A worker or web server that dies is now restarted, not the end of the start: see
+  // tests/integration/ops-start-supervision.test.ts.
 
   it("stops everything with exit 1 when the embedded database dies while it runs", async () => {
     const { mkdtempSync, chmodSync, rmSync } = await import("node:fs");

@@ -6,6 +6,7 @@ import { getTeam } from "@/lib/teams";
 import { requirePageCaller } from "../../components/current-caller";
 import { EntryBrowser } from "../../components/entry-browser";
 import { InviteForm } from "./invite-form";
+import { TeamArchivePanel } from "./team-archive-panel";
 import { MembersPanel, type Member } from "./members-panel";
 
 export const metadata = { title: "Team · Teardown Ledger" };
@@ -69,6 +70,12 @@ export default async function TeamPage(props: { params: Promise<{ teamId: string
           <section className="card">
             <h2>Invite someone</h2>
             <InviteForm teamId={team.id} />
+          </section>
+        )}
+        {team.role === "owner" && (
+          <section className="card">
+            <h2>Move the team</h2>
+            <TeamArchivePanel teamId={team.id} />
           </section>
         )}
       </div>

@@ -37,7 +37,7 @@ export function POST(req: Request, ctx: Ctx): Promise<Response> {
     const caller = await requireCaller(req);
     const entryId = uuidParam((await ctx.params).entryId);
     await entryWithRole(database().db, caller, entryId, "editor");
-    const { accepted, fields } = await readRecordSubmission(req);
+    const { accepted, fields } = await readRecordSubmission(req, caller.userId);
     const saved = await reviseEntry(database().db, caller, entryId, accepted, fields);
     return json({ ...saved, warnings: accepted.warnings }, 201);
   });

@@ -30,7 +30,7 @@ export function POST(req: Request, ctx: Ctx): Promise<Response> {
     const teamId = uuidParam((await ctx.params).teamId, "team");
     // The role is checked before the body is read, so a viewer learns 403, not how their file reads.
     await requireTeamRole(database().db, caller, teamId, "editor");
-    const { accepted, fields } = await readRecordSubmission(req);
+    const { accepted, fields } = await readRecordSubmission(req, caller.userId);
     const created = await createTeamEntry(database().db, caller, teamId, accepted, fields);
     return json({ ...created, warnings: accepted.warnings }, 201);
   });
