@@ -65,6 +65,7 @@ const OPT = {
   padding: "org.eclipse.elk.padding",
   randomSeed: "org.eclipse.elk.randomSeed",
   thoroughness: "org.eclipse.elk.layered.thoroughness",
+  modelOrder: "org.eclipse.elk.layered.considerModelOrder.strategy",
   partitioning: "org.eclipse.elk.partitioning.activate",
   partition: "org.eclipse.elk.partitioning.partition",
   separateComponents: "org.eclipse.elk.separateConnectedComponents",
@@ -111,6 +112,10 @@ export function elkRootOptions(s: LayeredSettings): LayoutOptions {
     [OPT.padding]: `[top=${p},left=${p},bottom=${p},right=${p}]`,
     [OPT.randomSeed]: String(s.randomSeed),
     [OPT.thoroughness]: String(s.thoroughness),
+    // Ties in crossing minimisation follow the graph's order (supply first, then the record's
+    // parts in their order): on the generated 5-60-part set this gave fewer crossings, bends
+    // and wire (907 -> 901, 3360 -> 3338, 411 -> 398 px per part) at no measurable extra time.
+    [OPT.modelOrder]: "NODES_AND_EDGES",
     // One layered graph for everything, so a stray part cannot be packed left of the supply.
     [OPT.separateComponents]: "false",
   };
