@@ -9,7 +9,7 @@ import { ENGINE_VERSION } from "../engine-version.js";
 import type { CycleFigures, FiringFigures } from "../figures/circuit-figures.js";
 import { cycleFigures, firingFigures } from "../figures/circuit-figures.js";
 import type { AcSolution } from "./ac-phasor.js";
-import { solveAcCircuit } from "./ac-phasor.js";
+import { solveAcCircuit, windingStartMem } from "./ac-phasor.js";
 import type { Circuit } from "./circuit-model.js";
 import { compileCircuit } from "./circuit-model.js";
 import { THERMAL_VOLTAGE_V } from "./device-models.js";
@@ -113,9 +113,16 @@ function steadyAt(
     lu: opts.lu ?? "sparse",
     maxNewtonIterations: opts.maxNewtonIterations ?? MAX_NEWTON_ITERATIONS,
   });
-  const start = warm ? warm.mem.map((v) => v * warm.scale) : undefined;
-  if (start)
-    for (const d of circuit.devices) if (d.type === "switching") start[d.mem] = warm!.mem[d.mem]!;
+  let start: Float64Array | undefined;
+  if (warm) {
+    start = warm.mem.map((v) => v * warm.scale);
+    for (const d of circuit.devices) if (d.type === "switching") start[d.mem] = warm.mem[d.mem]!;
+  } else if (circuit.devices.some((d) => d.type === "coupled")) {
+    // Windings start on their AC orbit, not at zero current (see windingStartMem).
+    const wound = windingStartMem(circuit, opts.lu ?? "sparse");
+    if (!wound.ok) return wound;
+    start = wound.value;
+  }
   const steady = periodicSteadyState(solver, budget, start, {
     toleranceScale,
     maxCycles,
