@@ -82,7 +82,13 @@ export interface CircuitAnalysis {
     /** Free-text remarks on how parts were modelled. */
     notes: string[];
     kcl_residual_amps: number;
+    /** Estimated distance from the periodic steady state, in tolerances (≤ 1: settled). */
     periodic_residual: number;
+    /**
+     * False when the cycles did not settle within the cycle cap: the figures are those of the
+     * last cycles, not of a steady state, and the analysis must say so rather than show them as such.
+     */
+    converged: boolean;
     gmin_siemens: number;
   };
 }
@@ -274,6 +280,7 @@ export function analyzeCircuit(
         notes: circuit.notes,
         kcl_residual_amps: figures.kclResidualAmps,
         periodic_residual: steady.residual,
+        converged: steady.converged,
         gmin_siemens: GMIN_SIEMENS,
       },
     },

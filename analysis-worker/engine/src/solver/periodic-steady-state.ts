@@ -24,6 +24,11 @@ export const PSS_RELTOL = 1e-5;
 /** ...plus these floors: a fraction of the supply peak for voltages, amps for currents. */
 export const PSS_VOLT_ABSTOL_PER_VPK = 1e-6;
 export const PSS_AMP_ABSTOL_A = 1e-8;
+/**
+ * Below this normalised change (1% of the tolerance) a cycle-to-cycle change is the map's own
+ * noise, and the ratio of two such changes says nothing about a slow mode.
+ */
+export const PSS_NOISE_CHANGE = 0.01;
 /** Cap on plain cycles. */
 export const PSS_MAX_CYCLES = 300;
 /** Plain cycles before deciding whether shooting is worth it. */
@@ -32,6 +37,13 @@ export const PSS_WARMUP_CYCLES = 3;
 export const SHOOTING_MAX_ITERATIONS = 25;
 /** Relative finite-difference perturbation of a state for the Jacobian (well above the map's noise). */
 export const SHOOTING_FD_RELATIVE = 1e-4;
+/**
+ * The same for a winding current, larger: a winding's DC (flux) offset decays only through its
+ * resistance, by a fraction R·T/L per cycle (2e-4 for 10 H and 0.1 Ω), and the one-cycle map
+ * shows so small a decay above its noise only for a perturbation of about 1% of the current.
+ * The offset is linear (the winding is), so the larger step costs no accuracy.
+ */
+export const SHOOTING_FD_RELATIVE_AMP = 1e-2;
 /** A one-cycle shot waits at most this many cycles (three times the longest repeat looked for) for a varying firing pattern to show its repeat. */
 export const PSS_SUBHARMONIC_WAIT_CYCLES = 24;
 /** Cycles a shot with a borrowed Jacobian is reckoned to take (one evaluation per Newton step). */
@@ -54,8 +66,15 @@ export interface SteadyState {
   /** The recorded steady cycle. */
   run: CycleRun;
   startMem: Float64Array;
-  /** Largest normalised cycle-to-cycle change of the final cycle (1 = at tolerance). */
+  /**
+   * Estimated distance of the start state from the periodic steady state, normalised (1 = at
+   * tolerance): the Newton step that shooting would still take, or for plain cycles the last
+   * change over (1 − its contraction per cycle), since a slowly decaying mode (a winding's DC
+   * offset) changes little per cycle while far from settled.
+   */
   residual: number;
+  /** True when the residual is within tolerance; false: the figures are not a steady state. */
+  converged: boolean;
   /** Mains cycles in the repeating window (1, or k for an orbit that repeats every k cycles); the run spans them all. */
   periodCycles: number;
   /** Jacobian of the one-cycle mismatch over the continuous states (row-major), when one-cycle shooting ran. */
@@ -159,11 +178,24 @@ export function periodicSteadyState(
   const borrowed = opts.jacobian !== undefined && opts.jacobian.length === cont.length ** 2;
   const warmup = borrowed ? 1 : PSS_WARMUP_CYCLES;
   const shotCost = borrowed ? BORROWED_SHOT_CYCLES : cont.length + 4;
+  // Distance to the steady state from the latest changes (see SteadyState.residual).
+  const distance = (): number => {
+    const d = history[history.length - 1]!;
+    const prev = history[history.length - 2];
+    if (d <= PSS_NOISE_CHANGE || !Number.isFinite(d)) return d;
+    // One cycle alone shows no contraction: it is taken as slow until a second cycle says otherwise.
+    if (prev === undefined || !Number.isFinite(prev) || prev <= 0) return Infinity;
+    const rho = d / prev;
+    return rho < 1 ? d / (1 - rho) : Infinity;
+  };
+  let residual = Infinity;
+  let capped = false;
   for (;;) {
     const r = cycle(mem, true);
     if (!r.ok) return r;
     const d = change(mem, r.run.endMem);
     history.push(d);
+    residual = distance();
     x = r.run.endX;
     mem = r.run.endMem;
     states.push(mem);
@@ -172,7 +204,7 @@ export function periodicSteadyState(
       states.shift();
       recent.shift();
     }
-    if (d <= 1) break;
+    if (d <= 1 && residual <= 1) break;
     // A repeat after k > 1 cycles, at tolerance: a subharmonic orbit.
     const back = (k: number) =>
       states.length > k ? change(states[states.length - 1 - k]!, mem) : Infinity;
@@ -180,9 +212,11 @@ export function periodicSteadyState(
     for (let k = 2; k <= PSS_MAX_SUBHARMONIC && repeat === 0; k++) if (back(k) <= 1) repeat = k;
     if (repeat > 0) {
       period = repeat;
+      residual = back(repeat);
       break;
     }
     if (cycles >= (opts.maxCycles ?? PSS_MAX_CYCLES)) {
+      capped = true;
       // Not settled (a long or irregular firing pattern): record the repeat length that came
       // closest, so the means are at least taken over the window nearest to repeating.
       let best = d;
@@ -207,7 +241,8 @@ export function periodicSteadyState(
       if (likely === 1 && eventsVary && cycles < PSS_SUBHARMONIC_WAIT_CYCLES) continue;
       const prev = history[history.length - 2]!;
       const rho = Number.isFinite(prev) && prev > 0 ? d / prev : 1;
-      const predicted = rho < 1 ? Math.log(d) / -Math.log(rho) : Infinity;
+      // Cycles until the distance (not merely the change) is within tolerance.
+      const predicted = rho < 1 ? Math.log(residual) / -Math.log(rho) : Infinity;
       if (!tried.has(likely) && (likely > 1 || predicted > shotCost)) {
         tried.add(likely);
         const found = shoot(
@@ -222,6 +257,7 @@ export function periodicSteadyState(
         if (likely === 1) jacobian = found.jac;
         if (found.mem !== null) {
           mem = found.mem;
+          residual = found.distance;
           method = "shooting";
           period = likely;
           shot = true;
@@ -252,6 +288,7 @@ export function periodicSteadyState(
       break;
     }
   }
+  const final = Math.max(residual, change(mem, run.endMem));
   return {
     ok: true,
     value: {
@@ -259,7 +296,8 @@ export function periodicSteadyState(
       cycles,
       run,
       startMem: mem,
-      residual: change(mem, run.endMem),
+      residual: final,
+      converged: !capped && final <= 1,
       periodCycles: period,
       ...(jacobian ? { jacobian } : {}),
     },
@@ -284,9 +322,27 @@ function shoot(
   change: (a: Float64Array, b: Float64Array) => number,
   jac0: Float64Array | null,
 ):
-  | { ok: true; mem: Float64Array | null; best: Float64Array; jac: Float64Array }
+  | {
+      ok: true;
+      mem: Float64Array | null;
+      best: Float64Array;
+      jac: Float64Array;
+      /** Normalised size of the Newton step still left at the returned state. */
+      distance: number;
+    }
   | { ok: false; error: SolverError } {
   const m = cont.length;
+  // The size of a step in tolerances, as `change` measures a cycle's change.
+  const stepSize = (at: Float64Array, step: Float64Array): number => {
+    let worst = 0;
+    cont.forEach((slot, k) => {
+      const tol =
+        PSS_RELTOL * Math.abs(at[k]!) +
+        (slot.kind === "volt" ? PSS_VOLT_ABSTOL_PER_VPK * vpk : PSS_AMP_ABSTOL_A);
+      worst = Math.max(worst, Math.abs(step[k]!) / tol);
+    });
+    return worst;
+  };
   let latches = base.slice();
   const inject = (s: Float64Array): Float64Array => {
     const mem = latches.slice();
@@ -309,8 +365,9 @@ function shoot(
   const differences = (): { ok: true } | { ok: false; error: SolverError } => {
     for (let k = 0; k < m; k++) {
       const delta =
-        SHOOTING_FD_RELATIVE *
-        Math.max(Math.abs(s[k]!), cont[k]!.kind === "volt" ? 0.01 * vpk : 1e-3);
+        cont[k]!.kind === "volt"
+          ? SHOOTING_FD_RELATIVE * Math.max(Math.abs(s[k]!), 0.01 * vpk)
+          : SHOOTING_FD_RELATIVE_AMP * Math.max(Math.abs(s[k]!), 1e-3);
       const sp = s.slice();
       sp[k]! += delta;
       const fp = evalF(sp);
@@ -333,9 +390,10 @@ function shoot(
   const rows = Int32Array.from({ length: m * m }, (_, q) => Math.floor(q / m));
   const cols = Int32Array.from({ length: m * m }, (_, q) => q % m);
   const lu = new DenseLu(m, rows, cols);
+  let distance = Infinity;
   for (let iter = 0; iter < SHOOTING_MAX_ITERATIONS; iter++) {
-    if (change(cur.start, cur.end) <= 1) return { ok: true, mem: cur.start, best: cur.end, jac };
-    if (change(cur.start, cur.end) === Infinity) {
+    const settled = change(cur.start, cur.end);
+    if (settled === Infinity) {
       // A latch ends the cycle in another state than it started: start from the end's latches.
       latches = cur.end.slice();
       const again = evalF(s);
@@ -344,12 +402,18 @@ function shoot(
       continue;
     }
     if (!lu.factor(jac).ok) {
-      if (!borrowed) return { ok: true, mem: null, best: cur.end, jac };
+      // No Newton step to measure: a cycle within tolerance is taken as it stands.
+      if (settled <= 1) return { ok: true, mem: cur.start, best: cur.end, jac, distance: settled };
+      if (!borrowed) return { ok: true, mem: null, best: cur.end, jac, distance };
       const fd = replace();
       if (!fd.ok) return fd;
       continue;
     }
     const step = lu.solve(cur.f.map((v: number) => -v));
+    // Settled when the cycle changes within tolerance and Newton has no step left to take: a
+    // slow mode changes little per cycle yet may still be far from its fixed point.
+    distance = Math.max(settled, stepSize(s, step));
+    if (distance <= 1) return { ok: true, mem: cur.start, best: cur.end, jac, distance };
     let lambda = 1;
     let next: Eval | null = null;
     let sNext = s;
@@ -358,7 +422,9 @@ function shoot(
       sNext = s.map((v, k) => v + lambda * step[k]!);
       const trial = evalF(sNext);
       if (!trial.ok) return trial;
-      if (norm(trial.f) < norm(cur.f)) {
+      // Near the fixed point the mismatch is at the map's noise and need not fall; a step
+      // that keeps the cycle within tolerance still closes in on the slow mode.
+      if (norm(trial.f) < norm(cur.f) || (settled <= 1 && change(trial.start, trial.end) <= 1)) {
         next = trial;
         break;
       }
@@ -367,7 +433,7 @@ function shoot(
     // No step along the Newton direction reduces the mismatch: the map has no fixed point
     // near here (often a subharmonic orbit); plain cycling takes over.
     if (next === null) {
-      if (!borrowed) return { ok: true, mem: null, best: cur.end, jac };
+      if (!borrowed) return { ok: true, mem: null, best: cur.end, jac, distance };
       const fd = replace();
       if (!fd.ok) return fd;
       continue;
@@ -387,10 +453,6 @@ function shoot(
     s = sNext;
     cur = next;
   }
-  return {
-    ok: true,
-    mem: change(cur.start, cur.end) <= 1 ? cur.start : null,
-    best: cur.end,
-    jac,
-  };
+  // Out of iterations: the last state counts only when it also leaves no step to take.
+  return { ok: true, mem: distance <= 1 ? cur.start : null, best: cur.end, jac, distance };
 }
