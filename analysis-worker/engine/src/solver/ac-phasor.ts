@@ -72,7 +72,7 @@ export function solveAcCircuit(c: Circuit, lu: LuChoice = "sparse"): SolverOutco
  * current at t = 0 (the imaginary part of its phasor). A winding started from zero against a
  * sine supply carries a DC flux offset of V/(ωL) that only its own resistance takes away, over
  * L/R (minutes for a mains transformer), so the cycles would never settle; started on its AC
- * orbit it has no offset to lose. Capacitors keep their power-on zero: behind a rectifier the
+ * orbit it has no offset to lose (only windings with L/R above a cycle need it). Capacitors keep their power-on zero: behind a rectifier the
  * linear view says nothing about their DC charge.
  */
 export function windingStartMem(c: Circuit, lu: LuChoice = "sparse"): SolverOutcome<Float64Array> {
@@ -81,8 +81,15 @@ export function windingStartMem(c: Circuit, lu: LuChoice = "sparse"): SolverOutc
   const { x } = solved.value;
   const n = c.size;
   const mem = new Float64Array(c.memSize);
-  for (const d of c.devices)
-    if (d.type === "coupled") d.branches.forEach((b, k) => (mem[d.mem + 2 * k] = x[b + n]!));
+  const period = 1 / c.supply.hz;
+  for (const d of c.devices) {
+    if (d.type !== "coupled") continue;
+    // A winding whose offset dies within a cycle or two (a pulse transformer) keeps its
+    // power-on start: the cycles settle it anyway, and a relaxation trigger behind it would
+    // be sent down another transient to another (equally valid) firing pattern.
+    const slow = d.branches.some((_, k) => d.l[k]![k]! > d.r[k]! * period);
+    if (slow) d.branches.forEach((b, k) => (mem[d.mem + 2 * k] = x[b + n]!));
+  }
   return { ok: true, value: mem };
 }
 

@@ -190,6 +190,8 @@ export function switchingModel(
  * and turn the integration's tiny volt-second error into a DC primary current of milliamps.
  */
 export const WINDING_TIME_CONSTANT_S = 0.05;
+/** ...but never below this (Ω): a small pulse transformer's winding of a few turns still measures about this much. */
+export const WINDING_MIN_OHMS = 0.1;
 
 /**
  * Transformer windings as coupled inductors. `ratio` is the turns ratio Np/Ns (20 steps 230 V
@@ -213,7 +215,8 @@ export function transformerModel(
     });
   const ls = lp / (ratio * ratio);
   const byTau = `not in the record; a small mains transformer's winding (L/R = ${WINDING_TIME_CONSTANT_S * 1000} ms)`;
-  const rp = param(p, "rp", lp / WINDING_TIME_CONSTANT_S, assumptions, byTau);
-  const rs = param(p, "rs", ls / WINDING_TIME_CONSTANT_S, assumptions, byTau);
+  const byL = (l: number) => Math.max(WINDING_MIN_OHMS, l / WINDING_TIME_CONSTANT_S);
+  const rp = param(p, "rp", byL(lp), assumptions, byTau);
+  const rs = param(p, "rs", byL(ls), assumptions, byTau);
   return { lp, ls, m: k * Math.sqrt(lp * ls), rp, rs };
 }
