@@ -89,7 +89,7 @@ export function fusedTransformerSupply(): TeardownRecord {
       part("J1", "connector", ["L", "N"]),
       part("F1", "fuse", ["L", "L1"], 0.1),
       part("T1", "transformer", { p1: "L1", p2: "N", s1: "S1", s2: "S2" }, null, {
-        model: { lp: 10, ratio: 0.05, k: 0.98 },
+        model: { lp: 10, ratio: 20, k: 0.98 },
       }),
       part("D1", "diode", { anode: "S1", cathode: "P" }),
       part("D2", "diode", { anode: "S2", cathode: "P" }),
@@ -113,7 +113,7 @@ export function varistorProtectedInput(): TeardownRecord {
       part("CX", "capacitor", ["L1", "N"], 100e-9, { rating: { class: "X2" } }),
       part("RX", "resistor", ["L1", "N"], 1e6),
       part("T1", "transformer", { p1: "L1", p2: "N", s1: "S1", s2: "S2" }, null, {
-        model: { lp: 10, ratio: 0.05, k: 0.98 },
+        model: { lp: 10, ratio: 20, k: 0.98 },
       }),
       part("D1", "diode", { anode: "S1", cathode: "P" }),
       part("C1", "capacitor", { plus: "P", minus: "S2" }, 1e-3, POLARISED),

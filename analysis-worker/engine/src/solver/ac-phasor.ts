@@ -47,6 +47,57 @@ const G_OPEN = 1 / OFF_STATE_OHMS;
 
 /** Solves the compiled circuit in phasors. */
 export function solveAcCircuit(c: Circuit, lu: LuChoice = "sparse"): SolverOutcome<AcSolution> {
+  const solved = phasorUnknowns(c, lu);
+  if (!solved.ok) return solved;
+  const { x, linearised } = solved.value;
+  const n = c.size;
+  const w = 2 * Math.PI * c.supply.hz;
+  const v = (node: number): [number, number] => (node < 0 ? [0, 0] : [x[node]!, x[node + n]!]);
+  const nets: Record<string, Phasor> = { [c.reference]: phasor(0, 0) };
+  c.nodeNames.forEach((name, i) => {
+    if (!name.includes("#")) nets[name] = phasor(x[i]!, x[i + n]!);
+  });
+  const parts: Record<string, Phasor> = {};
+  let input = phasor(0, 0);
+  for (const d of c.devices) {
+    const cur = acCurrent(d, v, x, n, w);
+    if (d.type === "supply") input = phasor(cur[0], cur[1]);
+    else parts[d.ref] = phasor(cur[0], cur[1]);
+  }
+  return { ok: true, value: { supply: c.supply, input_current: input, nets, parts, linearised } };
+}
+
+/**
+ * The start of the transient's first cycle taken from the phasor solution: every winding's
+ * current at t = 0 (the imaginary part of its phasor). A winding started from zero against a
+ * sine supply carries a DC flux offset of V/(ωL) that only its own resistance takes away, over
+ * L/R (minutes for a mains transformer), so the cycles would never settle; started on its AC
+ * orbit it has no offset to lose (only windings with L/R above a cycle need it). Capacitors keep their power-on zero: behind a rectifier the
+ * linear view says nothing about their DC charge.
+ */
+export function windingStartMem(c: Circuit, lu: LuChoice = "sparse"): SolverOutcome<Float64Array> {
+  const solved = phasorUnknowns(c, lu);
+  if (!solved.ok) return solved;
+  const { x } = solved.value;
+  const n = c.size;
+  const mem = new Float64Array(c.memSize);
+  const period = 1 / c.supply.hz;
+  for (const d of c.devices) {
+    if (d.type !== "coupled") continue;
+    // A winding whose offset dies within a cycle or two (a pulse transformer) keeps its
+    // power-on start: the cycles settle it anyway, and a relaxation trigger behind it would
+    // be sent down another transient to another (equally valid) firing pattern.
+    const slow = d.branches.some((_, k) => d.l[k]![k]! > d.r[k]! * period);
+    if (slow) d.branches.forEach((b, k) => (mem[d.mem + 2 * k] = x[b + n]!));
+  }
+  return { ok: true, value: mem };
+}
+
+/** The phasor system's solution: real parts at [0, n), imaginary parts at [n, 2n). */
+function phasorUnknowns(
+  c: Circuit,
+  lu: LuChoice,
+): SolverOutcome<{ x: Float64Array; linearised: string[] }> {
   const n = c.size;
   const p = new MnaPattern(2 * n);
   const entries: Array<[number, number, number, number]> = []; // row, col, G, B
@@ -133,20 +184,7 @@ export function solveAcCircuit(c: Circuit, lu: LuChoice = "sparse"): SolverOutco
       nets: [owner],
     });
   }
-  const x = solver.solve(rhs);
-  const v = (node: number): [number, number] => (node < 0 ? [0, 0] : [x[node]!, x[node + n]!]);
-  const nets: Record<string, Phasor> = { [c.reference]: phasor(0, 0) };
-  c.nodeNames.forEach((name, i) => {
-    if (!name.includes("#")) nets[name] = phasor(x[i]!, x[i + n]!);
-  });
-  const parts: Record<string, Phasor> = {};
-  let input = phasor(0, 0);
-  for (const d of c.devices) {
-    const cur = acCurrent(d, v, x, n, w);
-    if (d.type === "supply") input = phasor(cur[0], cur[1]);
-    else parts[d.ref] = phasor(cur[0], cur[1]);
-  }
-  return { ok: true, value: { supply: c.supply, input_current: input, nets, parts, linearised } };
+  return { ok: true, value: { x: solver.solve(rhs), linearised } };
 }
 
 function acCurrent(

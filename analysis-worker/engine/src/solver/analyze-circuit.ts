@@ -9,7 +9,7 @@ import { ENGINE_VERSION } from "../engine-version.js";
 import type { CycleFigures, FiringFigures } from "../figures/circuit-figures.js";
 import { cycleFigures, firingFigures } from "../figures/circuit-figures.js";
 import type { AcSolution } from "./ac-phasor.js";
-import { solveAcCircuit } from "./ac-phasor.js";
+import { solveAcCircuit, windingStartMem } from "./ac-phasor.js";
 import type { Circuit } from "./circuit-model.js";
 import { compileCircuit } from "./circuit-model.js";
 import { THERMAL_VOLTAGE_V } from "./device-models.js";
@@ -82,7 +82,13 @@ export interface CircuitAnalysis {
     /** Free-text remarks on how parts were modelled. */
     notes: string[];
     kcl_residual_amps: number;
+    /** Estimated distance from the periodic steady state, in tolerances (≤ 1: settled). */
     periodic_residual: number;
+    /**
+     * False when the cycles did not settle within the cycle cap: the figures are those of the
+     * last cycles, not of a steady state, and the analysis must say so rather than show them as such.
+     */
+    converged: boolean;
     gmin_siemens: number;
   };
 }
@@ -113,9 +119,16 @@ function steadyAt(
     lu: opts.lu ?? "sparse",
     maxNewtonIterations: opts.maxNewtonIterations ?? MAX_NEWTON_ITERATIONS,
   });
-  const start = warm ? warm.mem.map((v) => v * warm.scale) : undefined;
-  if (start)
-    for (const d of circuit.devices) if (d.type === "switching") start[d.mem] = warm!.mem[d.mem]!;
+  let start: Float64Array | undefined;
+  if (warm) {
+    start = warm.mem.map((v) => v * warm.scale);
+    for (const d of circuit.devices) if (d.type === "switching") start[d.mem] = warm.mem[d.mem]!;
+  } else if (circuit.devices.some((d) => d.type === "coupled")) {
+    // Windings start on their AC orbit, not at zero current (see windingStartMem).
+    const wound = windingStartMem(circuit, opts.lu ?? "sparse");
+    if (!wound.ok) return wound;
+    start = wound.value;
+  }
   const steady = periodicSteadyState(solver, budget, start, {
     toleranceScale,
     maxCycles,
@@ -267,6 +280,7 @@ export function analyzeCircuit(
         notes: circuit.notes,
         kcl_residual_amps: figures.kclResidualAmps,
         periodic_residual: steady.residual,
+        converged: steady.converged,
         gmin_siemens: GMIN_SIEMENS,
       },
     },

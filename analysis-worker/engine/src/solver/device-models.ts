@@ -181,7 +181,22 @@ export function switchingModel(
   return { vgt, igt, ih, von, ron, gate };
 }
 
-/** Transformer windings as coupled inductors: Ls = lp / ratio², M = k sqrt(Lp Ls). */
+/**
+ * Default winding time constant L/R (s) where the record gives no winding resistance: about a
+ * Q of 16 at 50 Hz, the order of a small mains transformer's primary (a 10 H primary of a few VA
+ * measures a couple of hundred ohms; common practice). Both windings get the same L/R, since
+ * resistance and inductance both grow with the square of the turns in a shared window. A
+ * near-lossless default (0.1 Ω on 10 H) would keep any DC flux offset for minutes (L/R = 100 s)
+ * and turn the integration's tiny volt-second error into a DC primary current of milliamps.
+ */
+export const WINDING_TIME_CONSTANT_S = 0.05;
+/** ...but never below this (Ω): a small pulse transformer's winding of a few turns still measures about this much. */
+export const WINDING_MIN_OHMS = 0.1;
+
+/**
+ * Transformer windings as coupled inductors. `ratio` is the turns ratio Np/Ns (20 steps 230 V
+ * down to 11.5 V, 0.05 steps it up to 4.6 kV): Ls = lp / ratio², M = k sqrt(Lp Ls).
+ */
 export function transformerModel(
   p: Part,
   assumptions: Assumption[],
@@ -198,8 +213,10 @@ export function transformerModel(
       value: k,
       why: "a coupling of 1 is taken as just below 1, so the windings stay solvable",
     });
-  const rp = param(p, "rp", 0.1, assumptions, small);
-  const rs = param(p, "rs", 0.1, assumptions, small);
   const ls = lp / (ratio * ratio);
+  const byTau = `not in the record; a small mains transformer's winding (L/R = ${WINDING_TIME_CONSTANT_S * 1000} ms)`;
+  const byL = (l: number) => Math.max(WINDING_MIN_OHMS, l / WINDING_TIME_CONSTANT_S);
+  const rp = param(p, "rp", byL(lp), assumptions, byTau);
+  const rs = param(p, "rs", byL(ls), assumptions, byTau);
   return { lp, ls, m: k * Math.sqrt(lp * ls), rp, rs };
 }

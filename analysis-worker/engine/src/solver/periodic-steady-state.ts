@@ -11,10 +11,18 @@
  * over a window that truly repeats.
  */
 import type { CircuitDevice } from "./circuit-model.js";
-import { DenseLu } from "./dense-lu.js";
 import type { SolverError } from "./solver-error.js";
 import type { Budget, CycleRun, TransientSolver } from "./transient.js";
 import { firstCycles, joinCycles, splitEnds } from "./cycle-window.js";
+import type { CycleFn, Slot } from "./shooting.js";
+import { shoot } from "./shooting.js";
+
+export {
+  SHOOTING_FD_RELATIVE,
+  SHOOTING_FD_RELATIVE_AMP,
+  SHOOTING_LINE_SEARCH_TRIES,
+  SHOOTING_MAX_ITERATIONS,
+} from "./shooting.js";
 
 /**
  * A state is settled when its cycle-to-cycle change is below this fraction of its size (the
@@ -24,20 +32,19 @@ export const PSS_RELTOL = 1e-5;
 /** ...plus these floors: a fraction of the supply peak for voltages, amps for currents. */
 export const PSS_VOLT_ABSTOL_PER_VPK = 1e-6;
 export const PSS_AMP_ABSTOL_A = 1e-8;
+/**
+ * Below this normalised change (1% of the tolerance) a cycle-to-cycle change is the map's own
+ * noise, and the ratio of two such changes says nothing about a slow mode.
+ */
+export const PSS_NOISE_CHANGE = 0.01;
 /** Cap on plain cycles. */
 export const PSS_MAX_CYCLES = 300;
 /** Plain cycles before deciding whether shooting is worth it. */
 export const PSS_WARMUP_CYCLES = 3;
-/** Cap on shooting (Newton) iterations. */
-export const SHOOTING_MAX_ITERATIONS = 25;
-/** Relative finite-difference perturbation of a state for the Jacobian (well above the map's noise). */
-export const SHOOTING_FD_RELATIVE = 1e-4;
 /** A one-cycle shot waits at most this many cycles (three times the longest repeat looked for) for a varying firing pattern to show its repeat. */
 export const PSS_SUBHARMONIC_WAIT_CYCLES = 24;
 /** Cycles a shot with a borrowed Jacobian is reckoned to take (one evaluation per Newton step). */
 export const BORROWED_SHOT_CYCLES = 3;
-/** Halvings of a shooting step before the try is given up. */
-export const SHOOTING_LINE_SEARCH_TRIES = 6;
 /** Longest repeat, in mains cycles, that is looked for when the one-cycle map has no fixed point. */
 export const PSS_MAX_SUBHARMONIC = 8;
 /**
@@ -54,17 +61,19 @@ export interface SteadyState {
   /** The recorded steady cycle. */
   run: CycleRun;
   startMem: Float64Array;
-  /** Largest normalised cycle-to-cycle change of the final cycle (1 = at tolerance). */
+  /**
+   * Estimated distance of the start state from the periodic steady state, normalised (1 = at
+   * tolerance): the Newton step that shooting would still take, or for plain cycles the last
+   * change over (1 − its contraction per cycle), since a slowly decaying mode (a winding's DC
+   * offset) changes little per cycle while far from settled.
+   */
   residual: number;
+  /** True when the residual is within tolerance; false: the figures are not a steady state. */
+  converged: boolean;
   /** Mains cycles in the repeating window (1, or k for an orbit that repeats every k cycles); the run spans them all. */
   periodCycles: number;
   /** Jacobian of the one-cycle mismatch over the continuous states (row-major), when one-cycle shooting ran. */
   jacobian?: Float64Array;
-}
-
-interface Slot {
-  index: number;
-  kind: "volt" | "amp" | "latch";
 }
 
 function layout(devices: CircuitDevice[]): Slot[] {
@@ -121,6 +130,17 @@ export function periodicSteadyState(
     }
     return worst;
   };
+  // The size of a shooting step in tolerances, as `change` measures a cycle's change.
+  const stepSize = (at: Float64Array, step: Float64Array): number => {
+    let worst = 0;
+    cont.forEach((slot, k) => {
+      const tol =
+        PSS_RELTOL * Math.abs(at[k]!) +
+        (slot.kind === "volt" ? PSS_VOLT_ABSTOL_PER_VPK * vpk : PSS_AMP_ABSTOL_A);
+      worst = Math.max(worst, Math.abs(step[k]!) / (tol * scale));
+    });
+    return worst;
+  };
   const cycle = (start: Float64Array, record: boolean) => {
     cycles++;
     return solver.runCycle(start, x, record, budget);
@@ -159,11 +179,24 @@ export function periodicSteadyState(
   const borrowed = opts.jacobian !== undefined && opts.jacobian.length === cont.length ** 2;
   const warmup = borrowed ? 1 : PSS_WARMUP_CYCLES;
   const shotCost = borrowed ? BORROWED_SHOT_CYCLES : cont.length + 4;
+  // Distance to the steady state from the latest changes (see SteadyState.residual).
+  const distance = (): number => {
+    const d = history[history.length - 1]!;
+    const prev = history[history.length - 2];
+    if (d <= PSS_NOISE_CHANGE || !Number.isFinite(d)) return d;
+    // One cycle alone shows no contraction: it is taken as slow until a second cycle says otherwise.
+    if (prev === undefined || !Number.isFinite(prev) || prev <= 0) return Infinity;
+    const rho = d / prev;
+    return rho < 1 ? d / (1 - rho) : Infinity;
+  };
+  let residual = Infinity;
+  let capped = false;
   for (;;) {
     const r = cycle(mem, true);
     if (!r.ok) return r;
     const d = change(mem, r.run.endMem);
     history.push(d);
+    residual = distance();
     x = r.run.endX;
     mem = r.run.endMem;
     states.push(mem);
@@ -172,7 +205,7 @@ export function periodicSteadyState(
       states.shift();
       recent.shift();
     }
-    if (d <= 1) break;
+    if (d <= 1 && residual <= 1) break;
     // A repeat after k > 1 cycles, at tolerance: a subharmonic orbit.
     const back = (k: number) =>
       states.length > k ? change(states[states.length - 1 - k]!, mem) : Infinity;
@@ -180,9 +213,11 @@ export function periodicSteadyState(
     for (let k = 2; k <= PSS_MAX_SUBHARMONIC && repeat === 0; k++) if (back(k) <= 1) repeat = k;
     if (repeat > 0) {
       period = repeat;
+      residual = back(repeat);
       break;
     }
     if (cycles >= (opts.maxCycles ?? PSS_MAX_CYCLES)) {
+      capped = true;
       // Not settled (a long or irregular firing pattern): record the repeat length that came
       // closest, so the means are at least taken over the window nearest to repeating.
       let best = d;
@@ -207,7 +242,8 @@ export function periodicSteadyState(
       if (likely === 1 && eventsVary && cycles < PSS_SUBHARMONIC_WAIT_CYCLES) continue;
       const prev = history[history.length - 2]!;
       const rho = Number.isFinite(prev) && prev > 0 ? d / prev : 1;
-      const predicted = rho < 1 ? Math.log(d) / -Math.log(rho) : Infinity;
+      // Cycles until the distance (not merely the change) is within tolerance.
+      const predicted = rho < 1 ? Math.log(residual) / -Math.log(rho) : Infinity;
       if (!tried.has(likely) && (likely > 1 || predicted > shotCost)) {
         tried.add(likely);
         const found = shoot(
@@ -216,12 +252,14 @@ export function periodicSteadyState(
           mem,
           cont,
           change,
+          stepSize,
           likely === 1 ? (opts.jacobian ?? null) : null,
         );
         if (!found.ok) return found;
         if (likely === 1) jacobian = found.jac;
         if (found.mem !== null) {
           mem = found.mem;
+          residual = found.distance;
           method = "shooting";
           period = likely;
           shot = true;
@@ -252,6 +290,7 @@ export function periodicSteadyState(
       break;
     }
   }
+  const final = Math.max(residual, change(mem, run.endMem));
   return {
     ok: true,
     value: {
@@ -259,138 +298,10 @@ export function periodicSteadyState(
       cycles,
       run,
       startMem: mem,
-      residual: change(mem, run.endMem),
+      residual: final,
+      converged: !capped && final <= 1,
       periodCycles: period,
       ...(jacobian ? { jacobian } : {}),
     },
-  };
-}
-
-type CycleFn = (
-  start: Float64Array,
-  record: boolean,
-) => { ok: true; run: CycleRun } | { ok: false; error: SolverError };
-
-/**
- * Newton on F(s) = Phi(s) - s over the continuous states; null mem when it does not succeed.
- * A given Jacobian `jac0` saves the finite-difference one; when its step fails, the
- * finite-difference Jacobian is taken after all.
- */
-function shoot(
-  vpk: number,
-  cycle: CycleFn,
-  base: Float64Array,
-  cont: Slot[],
-  change: (a: Float64Array, b: Float64Array) => number,
-  jac0: Float64Array | null,
-):
-  | { ok: true; mem: Float64Array | null; best: Float64Array; jac: Float64Array }
-  | { ok: false; error: SolverError } {
-  const m = cont.length;
-  let latches = base.slice();
-  const inject = (s: Float64Array): Float64Array => {
-    const mem = latches.slice();
-    cont.forEach((slot, k) => (mem[slot.index] = s[k]!));
-    return mem;
-  };
-  type Eval = { ok: true; f: Float64Array; end: Float64Array; start: Float64Array };
-  const evalF = (s: Float64Array): Eval | { ok: false; error: SolverError } => {
-    const r = cycle(inject(s), false);
-    if (!r.ok) return r;
-    const f = Float64Array.from(cont, (slot, k) => r.run.endMem[slot.index]! - s[k]!);
-    return { ok: true as const, f, end: r.run.endMem, start: inject(s) };
-  };
-  let s: Float64Array = Float64Array.from(cont, (slot) => base[slot.index]!);
-  const first = evalF(s);
-  if (!first.ok) return first;
-  let cur: Eval = first;
-  // Finite-difference Jacobian of F, once; Broyden rank-one updates afterwards.
-  const jac = new Float64Array(m * m);
-  const differences = (): { ok: true } | { ok: false; error: SolverError } => {
-    for (let k = 0; k < m; k++) {
-      const delta =
-        SHOOTING_FD_RELATIVE *
-        Math.max(Math.abs(s[k]!), cont[k]!.kind === "volt" ? 0.01 * vpk : 1e-3);
-      const sp = s.slice();
-      sp[k]! += delta;
-      const fp = evalF(sp);
-      if (!fp.ok) return fp;
-      for (let i = 0; i < m; i++) jac[i * m + k] = (fp.f[i]! - cur.f[i]!) / delta;
-    }
-    return { ok: true };
-  };
-  let borrowed = jac0 !== null && jac0.length === m * m;
-  if (borrowed) jac.set(jac0!);
-  else {
-    const fd = differences();
-    if (!fd.ok) return fd;
-  }
-  // A borrowed Jacobian that gives no useful step is replaced by finite differences, once.
-  const replace = (): { ok: true } | { ok: false; error: SolverError } => {
-    borrowed = false;
-    return differences();
-  };
-  const rows = Int32Array.from({ length: m * m }, (_, q) => Math.floor(q / m));
-  const cols = Int32Array.from({ length: m * m }, (_, q) => q % m);
-  const lu = new DenseLu(m, rows, cols);
-  for (let iter = 0; iter < SHOOTING_MAX_ITERATIONS; iter++) {
-    if (change(cur.start, cur.end) <= 1) return { ok: true, mem: cur.start, best: cur.end, jac };
-    if (change(cur.start, cur.end) === Infinity) {
-      // A latch ends the cycle in another state than it started: start from the end's latches.
-      latches = cur.end.slice();
-      const again = evalF(s);
-      if (!again.ok) return again;
-      cur = again;
-      continue;
-    }
-    if (!lu.factor(jac).ok) {
-      if (!borrowed) return { ok: true, mem: null, best: cur.end, jac };
-      const fd = replace();
-      if (!fd.ok) return fd;
-      continue;
-    }
-    const step = lu.solve(cur.f.map((v: number) => -v));
-    let lambda = 1;
-    let next: Eval | null = null;
-    let sNext = s;
-    const norm = (f: Float64Array) => Math.hypot(...f);
-    for (let tries = 0; tries < SHOOTING_LINE_SEARCH_TRIES; tries++) {
-      sNext = s.map((v, k) => v + lambda * step[k]!);
-      const trial = evalF(sNext);
-      if (!trial.ok) return trial;
-      if (norm(trial.f) < norm(cur.f)) {
-        next = trial;
-        break;
-      }
-      lambda /= 2;
-    }
-    // No step along the Newton direction reduces the mismatch: the map has no fixed point
-    // near here (often a subharmonic orbit); plain cycling takes over.
-    if (next === null) {
-      if (!borrowed) return { ok: true, mem: null, best: cur.end, jac };
-      const fd = replace();
-      if (!fd.ok) return fd;
-      continue;
-    }
-    // Broyden: J += (dF - J ds) ds^T / (ds^T ds).
-    const ds = sNext.map((v, k) => v - s[k]!);
-    const df = next.f.map((v, k) => v - cur.f[k]!);
-    const dsds = ds.reduce((a, v) => a + v * v, 0);
-    if (dsds > 0) {
-      for (let i = 0; i < m; i++) {
-        let jds = 0;
-        for (let k = 0; k < m; k++) jds += jac[i * m + k]! * ds[k]!;
-        const u = (df[i]! - jds) / dsds;
-        for (let k = 0; k < m; k++) jac[i * m + k]! += u * ds[k]!;
-      }
-    }
-    s = sNext;
-    cur = next;
-  }
-  return {
-    ok: true,
-    mem: change(cur.start, cur.end) <= 1 ? cur.start : null,
-    best: cur.end,
-    jac,
   };
 }
