@@ -119,6 +119,8 @@ const SolverInfoSchema = z.object({
   kcl_residual_amps: Figure,
   periodic_residual: Figure,
   gmin_siemens: z.number(),
+  /** False when the periodic steady state was not reached (absent in older results: unknown). */
+  converged: z.boolean().optional(),
 });
 
 /** What every analysis keeps, solved or not. */
@@ -167,18 +169,21 @@ export const NotSolvedResultSchema = z.object({
 export const AnalysisResultSchema = z
   .discriminatedUnion("status", [SolvedResultSchema, NotSolvedResultSchema])
   .superRefine((r, ctx) => {
-    // The status is a statement about the gaps: partial iff something was left out.
-    if (r.status === "complete" && r.gaps.length > 0)
+    // The status is a statement about the gaps and the steady state: partial iff something was
+    // left out or the cycle search did not settle.
+    if (r.status === "not-solved") return;
+    const unsettled = r.solver.converged === false;
+    if (r.status === "complete" && (r.gaps.length > 0 || unsettled))
       ctx.addIssue({
         code: "custom",
         path: ["status"],
-        message: "a complete analysis has no gaps",
+        message: "a complete analysis has no gaps and a settled steady state",
       });
-    if (r.status === "partial" && r.gaps.length === 0)
+    if (r.status === "partial" && r.gaps.length === 0 && !unsettled)
       ctx.addIssue({
         code: "custom",
         path: ["status"],
-        message: "a partial analysis names at least one gap",
+        message: "a partial analysis names at least one gap or an unsettled steady state",
       });
   });
 

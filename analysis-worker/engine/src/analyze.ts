@@ -134,7 +134,8 @@ export async function analyzeRecord(
       const gaps = a.gaps;
       result = {
         ...kept,
-        status: gaps.length > 0 ? "partial" : "complete",
+        // figures of a cycle that had not settled are not the steady state: say so
+        status: gaps.length > 0 || !a.solver.converged ? "partial" : "complete",
         gaps,
         assumptions: [...a.assumptions, ...risks.assumptions],
         input: a.input,

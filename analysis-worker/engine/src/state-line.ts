@@ -31,5 +31,10 @@ export function analysisStateLine(result: AnalysisResult): string {
   ]
     .filter(Boolean)
     .join(" and ");
-  return `partial: ${counted} left out (${gapsText(result.gaps)})${assumed}`;
+  const unsettled =
+    result.solver.converged === false
+      ? "the steady state was not reached within the time budget, so the figures are those of the last cycle computed"
+      : "";
+  const leftOut = counted ? `${counted} left out (${gapsText(result.gaps)})` : "";
+  return `partial: ${[leftOut, unsettled].filter(Boolean).join("; ")}${assumed}`;
 }

@@ -7,6 +7,7 @@
 import { describe, expect, it } from "vitest";
 import {
   AnalysisResultSchema,
+  analysisStateLine,
   analyzeRecord,
   ENGINE_VERSION,
   type AnalysisOutcome,
@@ -90,5 +91,23 @@ describe("analysis status", () => {
     expect(r.solver_code).toBe("voltage-source-loop");
     expect(r.gaps.some((g) => g.part === "R1")).toBe(true);
     expect(r.flags).toEqual([]);
+  });
+});
+
+describe("a steady state that was not reached", () => {
+  it("makes a solved result partial and says so in the state line", async () => {
+    const rec = record([part("R1", "resistor", ["L", "N"], R_OHMS)]);
+    const solved = resultOf(await analyzeRecord(rec, { now }));
+    if (solved.status === "not-solved") throw new Error("unreachable");
+    expect(solved.status).toBe("complete");
+    expect(solved.solver.converged).toBe(true);
+    // The same result as it would be stored had the cycle search run out of budget.
+    const unsettled: AnalysisResult = {
+      ...solved,
+      status: "partial",
+      solver: { ...solved.solver, converged: false },
+    };
+    expect(AnalysisResultSchema.safeParse(unsettled).success).toBe(true);
+    expect(analysisStateLine(unsettled)).toMatch(/^partial: the steady state was not reached/);
   });
 });
