@@ -22,8 +22,8 @@ export default function PageError({
       <div className="notice" role="alert">
         <h1>This page could not be shown</h1>
         <p>
-          If the database is restarting or unreachable, try again in a few seconds. Nothing you
-          saved is lost.
+          If the database is restarting or unreachable, try again in a few seconds. What was saved
+          stays saved; a change sent just now may need sending again.
         </p>
         {error.digest ? <p className="muted small">Reference: {error.digest}</p> : null}
         <div className="actions">

@@ -6,9 +6,10 @@
  * behind page queries and a page never waits behind a ping. Requests arriving while a ping is in
  * flight share that ping's answer, so 50 concurrent page loads cost one round trip, not 50.
  *
- * Cost, measured on loopback (Postgres 15, this machine, 2 000 sequential pings on a warm
- * connection): about 0.1 ms per ping (median 0.09 ms, p95 0.15 ms); concurrent requests share one.
- * See tests/integration/ops-outage-pages.test.ts.
+ * Cost per page request, measured on loopback (Postgres 15, the 2-core dev machine shared with
+ * other jobs, load average 5-6; rounds of 2 000 sequential pings on a warm connection): median
+ * 0.06-0.3 ms, p95 0.1-3 ms depending on the neighbours; 50 concurrent requests shared one ping
+ * and were all answered in 0.5-2.6 ms. tests/integration/ops-outage-pages.test.ts re-measures it.
  */
 import { createPool, isTransientDatabaseError } from "@teardown/db";
 import type pg from "pg";

@@ -41,7 +41,7 @@ a{color:#1d5c63}
 <div class="card" role="alert">
 <h1>Temporarily unavailable</h1>
 <p>${OUTAGE_MESSAGE}</p>
-<p class="muted">Nothing you saved is lost. This page reloads itself; or <a href="">try again now</a>.</p>
+<p class="muted">What was saved stays saved; a change sent just now may need sending again. This page reloads itself, or <a href="">try again now</a>.</p>
 </div>
 </main>
 </body>
