@@ -73,9 +73,9 @@ describe("headers on every answer", () => {
 });
 
 describe("the pages' content security policy", () => {
-  it("gives each page request a fresh nonce, on the request (for Next) and on the answer", () => {
-    const a = proxy(new NextRequest("http://localhost:3000/teams"));
-    const b = proxy(new NextRequest("http://localhost:3000/teams"));
+  it("gives each page request a fresh nonce, on the request (for Next) and on the answer", async () => {
+    const a = await proxy(new NextRequest("http://localhost:3000/teams"));
+    const b = await proxy(new NextRequest("http://localhost:3000/teams"));
     const pa = directives(a.headers.get("content-security-policy")!);
     const pb = directives(b.headers.get("content-security-policy")!);
     const nonceA = pa.get("script-src")!.find((s) => s.startsWith("'nonce-"))!;
@@ -89,9 +89,11 @@ describe("the pages' content security policy", () => {
     );
   });
 
-  it("allows no inline or foreign script, no plugins, no framing and no foreign form targets", () => {
+  it("allows no inline or foreign script, no plugins, no framing and no foreign form targets", async () => {
     const csp = directives(
-      proxy(new NextRequest("http://localhost:3000/")).headers.get("content-security-policy")!,
+      (await proxy(new NextRequest("http://localhost:3000/"))).headers.get(
+        "content-security-policy",
+      )!,
     );
     const script = csp.get("script-src")!;
     expect(script).not.toContain("'unsafe-inline'");
