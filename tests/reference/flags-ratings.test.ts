@@ -77,6 +77,16 @@ describe("resistor limiting element voltage by package, compared with the RMS vo
     );
   });
 
+  it("scales the overload figure of a high-voltage 1/2 W type to its stated rating, by the CFR-50's 700/350", () => {
+    // A 100 MΩ bleeder rated 3500 V in a 1/2 W body on 230 V: its 325 V peak is under 5 % of
+    // 3500 V × 2 = 7000 V, so the package's 700 V overload row must not raise a danger.
+    const r = assessed(acrossMains({ watts: 0.5, volts: 3500 }));
+    expect(voltageFlag(r.flags)).toBeUndefined();
+    expect(r.assumptions).toContainEqual(
+      expect.objectContaining({ part: "R1", field: "rating.overload_volts", value: 7000 }),
+    );
+  });
+
   it("compares a stated resistor rating with the RMS too: 240 V stated passes, 220 V stated is a danger", () => {
     expect(voltageFlag(assessed(acrossMains({ volts: 300 })).flags)).toBeUndefined();
     expect(voltageFlag(assessed(acrossMains({ volts: 240 })).flags)!.severity).toBe("warning");

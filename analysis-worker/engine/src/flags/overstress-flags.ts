@@ -50,7 +50,7 @@ function voltageFlag(ctx: RiskContext, p: Part, peakV: number, currentRms: numbe
   const worst = judged[0];
   if (worst === undefined) return null;
   const others = checks.filter((c) => c !== worst.c);
-  const assumed = checks.some((c) => c.assumption !== null);
+  const assumed = checks.filter((c) => c.assumption !== null).map((c) => c.rating);
   const isResistor = p.kind === "resistor";
   return {
     code: "overstress-voltage",
@@ -60,8 +60,8 @@ function voltageFlag(ctx: RiskContext, p: Part, peakV: number, currentRms: numbe
     message:
       `${p.ref} sees ${checkWords(worst.c)}: the ${worst.c.basis} voltage is compared because the ${worst.c.rating} is stated on that basis.` +
       others.map((c) => ` It sees ${checkWords(c)}.`).join("") +
-      (assumed
-        ? " The rating is a default for its package or power class, not read from the part."
+      (assumed.length > 0
+        ? ` The ${assumed.join(" and the ")} ${assumed.length > 1 ? "are defaults" : "is a default"} for its package or power class, not read from the part.`
         : ""),
     evidence: checks.flatMap((c) => [
       ev(`${c.basis} voltage across the part`, c.stress_v, "V"),

@@ -92,19 +92,24 @@ export function resistorVoltageRating(p: Part): Rated | null {
   };
 }
 
-/** A resistor's short-time overload voltage (a peak figure), known only from its package or power class. */
+/**
+ * A resistor's short-time overload voltage (a peak figure), known only from its package or power
+ * class. When the record states the limiting element voltage, the package's overload-to-limiting
+ * ratio is applied to the stated figure instead: a part rated above its package's row (a
+ * high-voltage type in a 1/2 W body) has an overload figure above it too, never one below its
+ * own continuous rating.
+ */
 export function resistorOverloadRating(p: Part): Rated | null {
   const r = resistorRow(p);
   if (r === null) return null;
-  return {
-    value: r.row.overloadVolts,
-    assumption: {
-      part: p.ref,
-      field: "rating.overload_volts",
-      value: r.row.overloadVolts,
-      why: `short-time overload voltage of ${r.how}, from the ${r.row.family}`,
-    },
-  };
+  const stated = p.rating.volts;
+  const value =
+    stated === undefined ? r.row.overloadVolts : stated * (r.row.overloadVolts / r.row.volts);
+  const why =
+    stated === undefined
+      ? `short-time overload voltage of ${r.how}, from the ${r.row.family}`
+      : `the stated limiting element voltage times the overload-to-limiting ratio (${r.row.overloadVolts / r.row.volts}) of ${r.how}, from the ${r.row.family}`;
+  return { value, assumption: { part: p.ref, field: "rating.overload_volts", value, why } };
 }
 
 /** A part's power rating: the record's, else (resistors) by package; null when unknown. */
