@@ -1,6 +1,6 @@
 /**
  * What block recognition returns, and the facts one block finder hands to the next (rectifier
- * outputs, dropper chains). The kinds are the record format's list (record-format.md, section 2).
+ * outputs, dropper chains). The kinds are the record format's list (docs/analysis-result.md).
  */
 import type { PartNode } from "../graph/circuit-graph.js";
 import type { SupplyChain } from "./supply-path.js";

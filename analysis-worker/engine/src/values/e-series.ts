@@ -1,6 +1,6 @@
 /**
  * The IEC 60063 preferred-number series. E3..E24 are historical two-digit values that do not
- * follow round(10·10^(i/n)) (reference-values.md §3), so they are written out; E48, E96 and
+ * follow round(10·10^(i/n)) (IEC 60063:2015, from memory), so they are written out; E48, E96 and
  * E192 are three-digit values computed as round(100·10^(i/n)), with the one published
  * exception that E192 lists 920 where the formula gives 919.
  */
@@ -31,7 +31,7 @@ function computedThreeDigitSeries(n: number): number[] {
   const values: number[] = [];
   for (let i = 0; i < n; i++) {
     let hundredths = Math.round(100 * 10 ** (i / n));
-    // IEC 60063 publishes 920 in E192 where the formula gives 919 (reference-values.md §3).
+    // IEC 60063 publishes 920 in E192 where the formula gives 919 (IEC 60063:2015, from memory).
     if (n === 192 && hundredths === 919) hundredths = 920;
     values.push(hundredths / 100);
   }

@@ -7,7 +7,7 @@ import type { Uncertainty } from "../record/types.js";
 import { parseValue, type ExpectedUnit } from "./parse-value.js";
 import type { ValueNotation } from "./notation-tables.js";
 
-/** IEC 60062 symmetric tolerance letters as fractions (reference-values.md §4, FOUND). */
+/** IEC 60062 symmetric tolerance letters as fractions (IEC 60062:2016, clause 5). */
 export const TOLERANCE_LETTER_FRACTIONS: Readonly<Record<string, number>> = {
   F: 0.01,
   G: 0.02,
