@@ -83,7 +83,7 @@ const FIXED_SYMBOLS: Record<FixedSymbol, SymbolGeometry> = {
       { role: "gate", side: "SOUTH", x: 40, y: 40 },
     ],
   },
-  // Dotted ends (p1, s1) on top, as record-format.md defines them.
+  // Dotted ends (p1, s1) on top, as teardown-record.md defines them.
   transformer: {
     symbol: "transformer",
     width: 60,

@@ -1,5 +1,5 @@
 /**
- * Surge limiter, two shapes (our reading of the record format, docs/record-format.md):
+ * Surge limiter, two shapes (our reading of the record format, docs/teardown-record.md):
  * - a varistor across the supply: one end on a line-side mains net, the other on a neutral-side
  *   one (mains nets are those reached through fuses, switches and inductors only);
  * - a series resistor in the supply path that limits the inrush into a dropper capacitor or a

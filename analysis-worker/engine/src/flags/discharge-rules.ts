@@ -2,18 +2,18 @@
  * The capacitor-discharge rules for plug pins after unplugging, and the closed-form RC decay
  * they are checked against:
  * - IEC 60335-1, 22.5: disconnected at the voltage peak, the pins must be at ≤ 34 V 1 s later,
- *   for an appliance whose capacitance exceeds 0.1 µF (FOUND, forum quote of the test text).
+ *   for an appliance whose capacitance exceeds 0.1 µF (checked against the document, forum quote of the test text).
  * - IEC 60950-1, 2.1.1.7: a capacitor > 0.1 µF on the mains side needs a discharge time constant
- *   ≤ 1 s for pluggable equipment type A (FOUND, forum quote of the clause).
+ *   ≤ 1 s for pluggable equipment type A (checked against the document, forum quote of the clause).
  */
 
-/** IEC 60335-1, 22.5 (FOUND): the pin voltage limit... */
+/** IEC 60335-1, 22.5 (checked against the document): the pin voltage limit... */
 export const PIN_VOLTAGE_LIMIT_V = 34;
 /** ...measured this long after disconnection. */
 export const PIN_VOLTAGE_DELAY_S = 1;
-/** IEC 60335-1, 22.5 note and IEC 60950-1, 2.1.1.7 (FOUND): capacitances up to 0.1 µF are not considered. */
+/** IEC 60335-1, 22.5 note and IEC 60950-1, 2.1.1.7 (checked against the document): capacitances up to 0.1 µF are not considered. */
 export const DISCHARGE_CAPACITANCE_THRESHOLD_F = 0.1e-6;
-/** IEC 60950-1, 2.1.1.7 (FOUND): largest discharge time constant for pluggable equipment type A. */
+/** IEC 60950-1, 2.1.1.7 (checked against the document): largest discharge time constant for pluggable equipment type A. */
 export const TYPE_A_MAX_TIME_CONSTANT_S = 1;
 /**
  * Below this equivalent time constant a discharge path exists; above it the pins keep nearly all

@@ -45,7 +45,7 @@ const PACKAGE_BY_WATTS: Array<{ watts: number; key: string; words: string }> = [
   { watts: 0.5, key: "CFR-50", words: "1/2 W" },
 ];
 
-/** 1N400x I_FSM, 8.3 ms half-sine (FOUND in several vendor datasheets). */
+/** 1N400x I_FSM, 8.3 ms half-sine (checked against the document in several vendor datasheets). */
 export const RECTIFIER_SURGE_DEFAULT_A = 30;
 
 /** A rating and, when the record did not give it, the assumption that stands in for it. */

@@ -27,7 +27,7 @@ import {
   ratedImpulseOvcII,
 } from "./spacing-tables.js";
 
-/** Factor on basic creepage for reinforced insulation (MEMORY for 60664-1; FOUND as a general rule). */
+/** Factor on basic creepage for reinforced insulation (from memory for 60664-1; FOUND as a general rule). */
 export const REINFORCED_CREEPAGE_FACTOR = 2;
 
 /** The required distances for one spacing, with the numbers behind them. */

@@ -11,7 +11,7 @@ import { netNameText, readNumber } from "./normalise-part.js";
 import { judgeNumber, SUPPLY_BOUNDS } from "./plausibility.js";
 import type { RawMeasurement, RawNet, RawSpacing, RawSupply } from "./record-schema.js";
 
-/** The unit of each measurement's value (docs/record-format.md, "Measurements"). */
+/** The unit of each measurement's value (docs/teardown-record.md, "Measurements"). */
 export const MEASUREMENT_UNITS: Readonly<Record<MeasurementKind, string>> = {
   "input.current_rms": "A",
   "input.power": "W",

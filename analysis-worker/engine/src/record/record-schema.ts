@@ -1,5 +1,5 @@
 /**
- * The raw teardown record, version 1, as written in a file (docs/record-format.md): the
+ * The raw teardown record, version 1, as written in a file (docs/teardown-record.md): the
  * shape only. Value notation, pin roles and cross references are checked afterwards by
  * validate-record.ts, which also turns this raw shape into the normalised `TeardownRecord`.
  * The committed JSON Schema (schema/record-v1.schema.json) is generated from these schemas.
@@ -7,7 +7,7 @@
 import { z } from "zod";
 import { MEASUREMENT_KINDS, NET_ROLES } from "./types.js";
 
-/** Longest title, in characters (docs/record-format.md). */
+/** Longest title, in characters (docs/teardown-record.md). */
 export const MAX_TITLE_CHARS = 200;
 /** Longest net name, part kind word and short text field, in characters. */
 export const MAX_NAME_CHARS = 100;

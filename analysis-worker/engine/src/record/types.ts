@@ -1,7 +1,7 @@
 /**
  * The normalised teardown record: what `parseRecord` returns once the text (YAML or JSON) has
  * been validated. Values are plain SI numbers; the original text of each value is kept beside
- * it for display and round trips. See docs/record-format.md.
+ * it for display and round trips. See docs/teardown-record.md.
  */
 
 /** A mains supply: RMS volts and hertz. */
