@@ -79,10 +79,12 @@ describe("finding 5: reading uploads off the request thread", () => {
     expect(results.map((r) => r.status)).toEqual(texts.map(() => 201));
     // Sampled throughout the uploads (which take seconds), each answered promptly.
     expect(latencies.length).toBeGreaterThan(5);
-    // On the request thread one read alone blocked health for a quarter of this or more.
+    // On the request thread the four reads ran one after another on the thread health needs, so
+    // some sample waited for a whole read: a quarter of this or more. Off the thread, only the
+    // request bodies' transfer shares it (measured 175 ms of 1.2 s under CI load).
     const slowest = Math.max(...latencies);
     expect(slowest).toBeLessThan(HEALTH_LIMIT_MS);
-    expect(slowest).toBeLessThan(uploadsMs / 8);
+    expect(slowest).toBeLessThan(uploadsMs / 4);
   }, 120_000);
 
   it("refuses a caller's submissions past the limit with 429 and Retry-After, others unaffected", async () => {
