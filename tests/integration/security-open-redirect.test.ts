@@ -3,7 +3,7 @@
 // when a browser would resolve it to this same origin.
 import { describe, expect, it } from "vitest";
 import fc from "fast-check";
-import { safeNext } from "@/app/components/api-fetch";
+import { safeNext } from "@/app/client/safe-next";
 
 const ORIGIN = "http://app.test";
 

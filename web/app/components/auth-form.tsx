@@ -5,7 +5,8 @@
  */
 import Link from "next/link";
 import { useState, type FormEvent } from "react";
-import { apiFetch, safeNext } from "./api-fetch";
+import { sendJson } from "../client/http";
+import { safeNext } from "../client/safe-next";
 
 /** The shortest password the server accepts (web/lib/auth.ts, MIN_PASSWORD_CHARS). */
 const MIN_PASSWORD_CHARS = 10;
@@ -33,9 +34,9 @@ export function AuthForm(props: { mode: "sign-up" | "sign-in"; next: string | nu
     try {
       // Sign-up answers a taken email exactly as a new one (no account enumeration) and signs
       // nobody in; signing in next fails with the generic wrong-password message when taken.
-      if (signUp) await apiFetch("/api/auth/sign-up/email", { body: { name, email, password } });
+      if (signUp) await sendJson("/api/auth/sign-up/email", { name, email, password });
       try {
-        await apiFetch("/api/auth/sign-in/email", { body: { email, password } });
+        await sendJson("/api/auth/sign-in/email", { email, password });
       } catch (err) {
         if (signUp) throw new Error("Could not create an account with this email and password.");
         throw err;

@@ -8,22 +8,8 @@ import { keepPreviousData, useQuery } from "@tanstack/react-query";
 import Link from "next/link";
 import { useState, type FormEvent } from "react";
 import { BLOCK_KINDS, FLAG_CODES } from "@teardown/engine";
-import { apiFetch } from "./api-fetch";
-
-/** One entry as the list endpoints return it. */
-interface EntrySummary {
-  id: string;
-  teamId: string;
-  title: string;
-  category: string | null;
-  visibility: "team" | "public";
-  currentRevision: number | null;
-  updatedAt: string;
-  archived: boolean;
-  flags: string[];
-  blocks: string[];
-  analysisState: "queued" | "running" | "done" | "failed" | null;
-}
+import { getJson } from "../client/http";
+import type { EntrySummary } from "../client/api-types";
 
 interface Filters {
   q: string;
@@ -66,7 +52,7 @@ export function EntryBrowser(props: { endpoint: string; showArchived?: boolean; 
   const query = useQuery({
     queryKey: ["entries", props.endpoint, filters, cursor],
     queryFn: () =>
-      apiFetch<{ entries: EntrySummary[]; nextCursor: string | null }>(
+      getJson<{ entries: EntrySummary[]; nextCursor: string | null }>(
         listUrl(props.endpoint, filters, cursor),
       ),
     placeholderData: keepPreviousData,

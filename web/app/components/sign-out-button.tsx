@@ -1,7 +1,7 @@
 "use client";
 // The header's "Sign out": ends this session through better-auth, then reloads as signed out.
 import { useState } from "react";
-import { apiFetch } from "./api-fetch";
+import { sendJson } from "../client/http";
 
 /** A button that signs the current session out and goes home. */
 export function SignOutButton() {
@@ -11,7 +11,7 @@ export function SignOutButton() {
     setBusy(true);
     setError(null);
     try {
-      await apiFetch("/api/auth/sign-out", { body: {} });
+      await sendJson("/api/auth/sign-out", {});
       // A full load, so every server-rendered part (the header too) sees the cookie gone.
       window.location.assign("/");
     } catch (err) {

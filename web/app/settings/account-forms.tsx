@@ -1,7 +1,7 @@
 "use client";
 // Settings: change the password, and sign out of every session on every device.
 import { useState, type FormEvent } from "react";
-import { apiFetch } from "../components/api-fetch";
+import { sendJson } from "../client/http";
 
 /** The shortest password the server accepts (web/lib/auth.ts, MIN_PASSWORD_CHARS). */
 const MIN_PASSWORD_CHARS = 10;
@@ -30,12 +30,10 @@ export function ChangePasswordForm() {
     setBusy(true);
     setStatus(null);
     try {
-      await apiFetch("/api/auth/change-password", {
-        body: {
-          currentPassword,
-          newPassword,
-          revokeOtherSessions: d.get("revokeOtherSessions") === "on",
-        },
+      await sendJson("/api/auth/change-password", {
+        currentPassword,
+        newPassword,
+        revokeOtherSessions: d.get("revokeOtherSessions") === "on",
       });
       form.reset();
       setStatus({ ok: true, text: "Password changed." });
@@ -90,7 +88,7 @@ export function SignOutEverywhere() {
     setBusy(true);
     setError(null);
     try {
-      await apiFetch("/api/auth/revoke-sessions", { body: {} });
+      await sendJson("/api/auth/revoke-sessions", {});
       window.location.assign("/sign-in");
     } catch (err) {
       setError(err instanceof Error ? err.message : String(err));

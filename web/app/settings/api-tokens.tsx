@@ -2,15 +2,8 @@
 // Settings: personal API tokens for scripts. A new token is shown once; the list never shows one.
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { useState, type FormEvent } from "react";
-import { apiFetch } from "../components/api-fetch";
-
-interface TokenInfo {
-  id: string;
-  name: string;
-  createdAt: string;
-  lastUsedAt: string | null;
-  revokedAt: string | null;
-}
+import { getJson, sendJson } from "../client/http";
+import type { TokenInfo } from "../client/api-types";
 
 const TOKENS_KEY = ["api-tokens"];
 
@@ -25,11 +18,11 @@ export function ApiTokens() {
   const [copied, setCopied] = useState(false);
   const tokens = useQuery({
     queryKey: TOKENS_KEY,
-    queryFn: () => apiFetch<{ tokens: TokenInfo[] }>("/api/tokens"),
+    queryFn: () => getJson<{ tokens: TokenInfo[] }>("/api/tokens"),
   });
   const create = useMutation({
     mutationFn: (name: string) =>
-      apiFetch<{ token: TokenInfo & { token: string } }>("/api/tokens", { body: { name } }),
+      sendJson<{ token: TokenInfo & { token: string } }>("/api/tokens", { name }),
     onSuccess: (res) => {
       setFresh({ name: res.token.name, token: res.token.token });
       setCopied(false);
@@ -37,7 +30,7 @@ export function ApiTokens() {
     },
   });
   const revoke = useMutation({
-    mutationFn: (id: string) => apiFetch(`/api/tokens/${id}`, { method: "DELETE" }),
+    mutationFn: (id: string) => sendJson(`/api/tokens/${id}`, undefined, "DELETE"),
     onSuccess: () => void client.invalidateQueries({ queryKey: TOKENS_KEY }),
   });
 

@@ -2,7 +2,7 @@
 // /teams: a new team with the caller as its owner; then its workspace.
 import { useRouter } from "next/navigation";
 import { useState, type FormEvent } from "react";
-import { apiFetch, RequestFailed } from "../components/api-fetch";
+import { ApiFailure, sendJson } from "../client/http";
 
 /** Team name, and an address (slug) that only needs choosing when the derived one is taken. */
 export function CreateTeamForm() {
@@ -22,12 +22,13 @@ export function CreateTeamForm() {
     setBusy(true);
     setError(null);
     try {
-      const res = await apiFetch<{ team: { id: string } }>("/api/teams", {
-        body: slug ? { name, slug } : { name },
-      });
+      const res = await sendJson<{ team: { id: string } }>(
+        "/api/teams",
+        slug ? { name, slug } : { name },
+      );
       router.push(`/teams/${res.team.id}`);
     } catch (err) {
-      if (err instanceof RequestFailed && err.status === 409) setAskSlug(true);
+      if (err instanceof ApiFailure && err.status === 409) setAskSlug(true);
       setError(err instanceof Error ? err.message : String(err));
       setBusy(false);
     }

@@ -5,41 +5,9 @@
  * diff page and by the stale-save notice of the edit page.
  */
 import { useQuery } from "@tanstack/react-query";
-import { failureText, getJson } from "./api-client";
+import { failureText, getJson } from "../../client/http";
+import type { FieldChange, RevisionDiff } from "../../client/api-types";
 import css from "./entry.module.css";
-
-interface FieldChange {
-  field: string;
-  from: unknown;
-  to: unknown;
-}
-interface PartBrief {
-  ref: string;
-  kind: string;
-  value: string | null;
-  pins: Record<string, string>;
-}
-/** The API's RevisionDiff (web/lib/revision-diff.ts). */
-export interface RevisionDiff {
-  record: FieldChange[];
-  parts: {
-    added: PartBrief[];
-    removed: PartBrief[];
-    changed: {
-      ref: string;
-      kind: string;
-      changes: FieldChange[];
-      pins: { pin: string; from: string | null; to: string | null }[];
-    }[];
-  };
-  nets: { added: string[]; removed: string[]; changed: { net: string; changes: FieldChange[] }[] };
-  measurements: {
-    added: { key: string; what: string; value: number }[];
-    removed: { key: string; what: string; value: number }[];
-    changed: { key: string; what: string; changes: FieldChange[] }[];
-  };
-  same: boolean;
-}
 
 function shown(v: unknown): string {
   if (v === null || v === undefined) return "(none)";

@@ -7,9 +7,11 @@
 import { useEffect, useState } from "react";
 import { useRouter } from "next/navigation";
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
-import { ApiFailure, failureText, getJson, sendJson } from "./api-client";
-import { DiffView, type RevisionDiff } from "./diff-view";
-import { entryKey, type EntryState } from "./entry-queries";
+import { ApiFailure, failureText, getJson, sendJson } from "../../client/http";
+import { DiffView } from "./diff-view";
+import type { RevisionDiff } from "../../client/api-types";
+import { entryKey } from "./entry-queries";
+import type { EntryState } from "../../client/api-types";
 import { FormEditor } from "./form/form-editor";
 import { documentFromForm, formFromDocument, type FormState } from "./form/form-state";
 import { mergeEdits } from "./form/merge-edits";

@@ -5,101 +5,14 @@
  * invalidates exactly what it changed.
  */
 import { useQuery } from "@tanstack/react-query";
-import type { AnalysisResult } from "@teardown/engine";
-import { getJson } from "./api-client";
-
-export type Role = "owner" | "editor" | "viewer";
-
-/** An analysis as GET /api/entries/:id shows it; fields by state (see web/lib/entry-state.ts). */
-export interface AnalysisView {
-  state: "queued" | "running" | "done" | "failed";
-  engineVersion: string;
-  queuedAt?: string;
-  startedAt?: string | null;
-  finishedAt?: string | null;
-  /** The parsed result (done); null when the stored one could not be read. */
-  result?: AnalysisResult | null;
-  /** The older engine an upgraded result came from, else null. */
-  upgradedFrom?: string | null;
-  /** Why a stored result could not be read. */
-  resultProblem?: string | null;
-  layout?: unknown;
-  timings?: unknown;
-  error?: string;
-  stage?: string | null;
-}
-
-/** GET /api/entries/:id. */
-export interface EntryState {
-  entry: {
-    id: string;
-    teamId: string;
-    title: string;
-    category: string | null;
-    visibility: "team" | "public";
-    currentRevision: number | null;
-    archived: boolean;
-    createdAt: string;
-    updatedAt: string;
-  };
-  role: Role | null;
-  revision: {
-    number: number;
-    message: string;
-    authorId: string | null;
-    createdAt: string;
-    recordHash: string;
-    record: Record<string, unknown>;
-  };
-  engineVersion: string;
-  analysis: AnalysisView | null;
-  olderAnalysis: AnalysisView | null;
-}
-
-export interface TeamMember {
-  userId: string;
-  name: string;
-  email: string;
-  role: Role;
-}
-
-export interface TeamView {
-  id: string;
-  name: string;
-  role: Role;
-  members: TeamMember[];
-}
-
-export interface RevisionSummary {
-  number: number;
-  message: string;
-  authorId: string | null;
-  authorName: string | null;
-  recordHash: string;
-  createdAt: string;
-}
-
-export interface PhotoView {
-  id: string;
-  side: "component" | "track" | "other";
-  contentType: string;
-  sizeBytes: number;
-  width: number | null;
-  height: number | null;
-  caption: string | null;
-  createdAt: string;
-  url: string;
-}
-
-export interface CommentView {
-  id: string;
-  partRef: string | null;
-  authorId: string | null;
-  authorName: string | null;
-  body: string;
-  mentions: string[];
-  createdAt: string;
-}
+import { getJson } from "../../client/http";
+import type {
+  CommentView,
+  EntryState,
+  PhotoView,
+  RevisionSummary,
+  TeamView,
+} from "../../client/api-types";
 
 /** How often the entry is re-read while its analysis is waiting or running, in milliseconds. */
 export const ANALYSIS_POLL_MS = 1500;

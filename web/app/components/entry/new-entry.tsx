@@ -3,7 +3,7 @@
 import { useState } from "react";
 import { useRouter } from "next/navigation";
 import { useMutation } from "@tanstack/react-query";
-import { ApiFailure, failureText, sendJson } from "./api-client";
+import { ApiFailure, failureText, sendJson } from "../../client/http";
 import { FormEditor } from "./form/form-editor";
 import { emptyForm, type FormState } from "./form/form-state";
 import type { PlacedProblem } from "./form/place-errors";

@@ -3,7 +3,7 @@
  * The problems of an uploaded file (or the warnings of an accepted one), by line: each with its place (line, column, field path)
  * and the lines of the file around it, so the person sees the very text the reader refused.
  */
-import type { ApiProblem } from "./api-client";
+import type { ApiProblem } from "../../client/api-types";
 import css from "./entry.module.css";
 
 const CONTEXT_LINES = 1;

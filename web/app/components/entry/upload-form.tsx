@@ -8,7 +8,8 @@
 import { useState } from "react";
 import { useRouter } from "next/navigation";
 import { useMutation } from "@tanstack/react-query";
-import { ApiFailure, failureText, sendForm, type ApiProblem } from "./api-client";
+import { ApiFailure, failureText, sendForm } from "../../client/http";
+import type { ApiProblem } from "../../client/api-types";
 import { ProblemList } from "./problem-list";
 import css from "./entry.module.css";
 

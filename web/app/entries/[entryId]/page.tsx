@@ -3,7 +3,7 @@ import { readableEntry } from "@/lib/access";
 import { findCaller } from "@/lib/caller";
 import { database } from "@/lib/database";
 import { entryState } from "@/lib/entry-state";
-import type { EntryState } from "@/app/components/entry/entry-queries";
+import type { EntryState } from "@/app/client/api-types";
 import { EntryPage } from "@/app/components/entry/view/entry-page";
 
 export const dynamic = "force-dynamic";

@@ -2,7 +2,7 @@
 // /invite/[token]: accepts the invitation for the signed-in user and opens the team.
 import { useRouter } from "next/navigation";
 import { useState } from "react";
-import { apiFetch, RequestFailed } from "../../components/api-fetch";
+import { ApiFailure, sendJson } from "../../client/http";
 
 /** What a used or expired link says (410 from the API). */
 export const USED_OR_EXPIRED =
@@ -17,16 +17,13 @@ export function JoinButton(props: { token: string }) {
     setBusy(true);
     setError(null);
     try {
-      const res = await apiFetch<{ membership: { teamId: string } }>(
+      const res = await sendJson<{ membership: { teamId: string } }>(
         `/api/invites/${encodeURIComponent(props.token)}`,
-        {
-          method: "POST",
-        },
       );
       router.push(`/teams/${res.membership.teamId}`);
     } catch (err) {
       setError(
-        err instanceof RequestFailed && err.status === 410
+        err instanceof ApiFailure && err.status === 410
           ? USED_OR_EXPIRED
           : err instanceof Error
             ? err.message

@@ -2,14 +2,8 @@
 // Owners: a one-time invitation link with a role and an expiry, shown once to copy and send.
 import { useMutation } from "@tanstack/react-query";
 import { useState, type FormEvent } from "react";
-import { apiFetch } from "../../components/api-fetch";
-
-interface NewInvite {
-  token: string;
-  url: string;
-  role: string;
-  expiresAt: string;
-}
+import { sendJson } from "../../client/http";
+import type { NewInvite } from "../../client/api-types";
 
 /** Expiry choices, in hours (the API allows 1 to 720). */
 const EXPIRY_HOURS = [
@@ -23,7 +17,7 @@ export function InviteForm(props: { teamId: string }) {
   const [copied, setCopied] = useState(false);
   const create = useMutation({
     mutationFn: (v: { role: string; expiresInHours: number }) =>
-      apiFetch<{ invite: NewInvite }>(`/api/teams/${props.teamId}/invites`, { body: v }),
+      sendJson<{ invite: NewInvite }>(`/api/teams/${props.teamId}/invites`, v),
     onSuccess: () => setCopied(false),
   });
   function onSubmit(ev: FormEvent<HTMLFormElement>) {

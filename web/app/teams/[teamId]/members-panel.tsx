@@ -5,18 +5,8 @@
  */
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { useRouter } from "next/navigation";
-import { apiFetch } from "../../components/api-fetch";
-
-type Role = "owner" | "editor" | "viewer";
-
-/** One member as the team endpoint lists it. */
-export interface Member {
-  userId: string;
-  name: string;
-  email: string;
-  role: Role;
-  joinedAt: string;
-}
+import { getJson, sendJson } from "../../client/http";
+import type { Role, TeamMemberRow as Member } from "../../client/api-types";
 
 const ROLES: Role[] = ["viewer", "editor", "owner"];
 
@@ -33,26 +23,26 @@ export function MembersPanel(props: {
   const team = useQuery({
     queryKey: key,
     queryFn: () =>
-      apiFetch<{ team: { role: Role; members: Member[] } }>(`/api/teams/${props.teamId}`),
+      getJson<{ team: { role: Role; members: Member[] } }>(`/api/teams/${props.teamId}`),
     initialData: { team: { role: props.myRole, members: props.initialMembers } },
     staleTime: 10_000,
   });
   const refresh = () => void client.invalidateQueries({ queryKey: key });
   const setRole = useMutation({
     mutationFn: (v: { userId: string; role: Role }) =>
-      apiFetch(`/api/teams/${props.teamId}/members/${encodeURIComponent(v.userId)}`, {
-        method: "PATCH",
-        body: { role: v.role },
-      }),
+      sendJson(
+        `/api/teams/${props.teamId}/members/${encodeURIComponent(v.userId)}`,
+        { role: v.role },
+        "PATCH",
+      ),
     onSettled: refresh,
   });
   const remove = useMutation({
     mutationFn: (userId: string) =>
-      apiFetch(
+      sendJson(
         `/api/teams/${props.teamId}/members/${userId === props.myUserId ? "me" : encodeURIComponent(userId)}`,
-        {
-          method: "DELETE",
-        },
+        undefined,
+        "DELETE",
       ),
     onSuccess: (_r, userId) => {
       if (userId === props.myUserId) {

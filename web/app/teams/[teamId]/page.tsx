@@ -7,7 +7,8 @@ import { requirePageCaller } from "../../components/current-caller";
 import { EntryBrowser } from "../../components/entry-browser";
 import { InviteForm } from "./invite-form";
 import { TeamArchivePanel } from "./team-archive-panel";
-import { MembersPanel, type Member } from "./members-panel";
+import { MembersPanel } from "./members-panel";
+import type { TeamMemberRow as Member } from "../../client/api-types";
 
 export const metadata = { title: "Team · Teardown Ledger" };
 export const dynamic = "force-dynamic";

@@ -8,7 +8,7 @@
 import type { ReactNode } from "react";
 import { SafetyCaution } from "../../safety-caution";
 import { when } from "../si-units";
-import type { AnalysisView, EntryState } from "../entry-queries";
+import type { AnalysisView, EntryState } from "../../../client/api-types";
 import { AnalysisStatus, leftOutOf } from "./analysis-status";
 import { FlagsList } from "./flags-list";
 import { obj } from "./result-access";

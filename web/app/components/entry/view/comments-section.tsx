@@ -5,8 +5,9 @@
  */
 import { useMemo, useState, type ReactNode } from "react";
 import { useMutation, useQueryClient } from "@tanstack/react-query";
-import { failureText, sendJson } from "../api-client";
-import { useComments, type TeamMember } from "../entry-queries";
+import { failureText, sendJson } from "../../../client/http";
+import { useComments } from "../entry-queries";
+import type { TeamMember } from "../../../client/api-types";
 import { when } from "../si-units";
 import css from "../entry.module.css";
 

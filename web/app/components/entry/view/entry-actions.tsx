@@ -1,8 +1,9 @@
 "use client";
 /** Editor actions on the entry: archive or unarchive, and team-only or public visibility. */
 import { useMutation, useQueryClient } from "@tanstack/react-query";
-import { failureText, sendJson } from "../api-client";
-import { entryKey, type EntryState } from "../entry-queries";
+import { failureText, sendJson } from "../../../client/http";
+import { entryKey } from "../entry-queries";
+import type { EntryState } from "../../../client/api-types";
 import css from "../entry.module.css";
 
 /** Archive and visibility buttons (shown to editors and owners). */

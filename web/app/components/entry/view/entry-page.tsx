@@ -4,8 +4,9 @@
  * photos, comments, revisions and exports. Data comes from the HTTP API through TanStack Query.
  */
 import { useState } from "react";
-import { ApiFailure, failureText } from "../api-client";
-import { useEntry, useTeam, type EntryState } from "../entry-queries";
+import { ApiFailure, failureText } from "../../../client/http";
+import { useEntry, useTeam } from "../entry-queries";
+import type { EntryState } from "../../../client/api-types";
 import { when } from "../si-units";
 import { AnalysisPanel } from "./analysis-panel";
 import { CommentsSection } from "./comments-section";

@@ -2,7 +2,7 @@
 /** Board photos: thumbnails (size-constrained by CSS, never re-encoded), captions, and upload for editors. */
 import { useState } from "react";
 import { useMutation, useQueryClient } from "@tanstack/react-query";
-import { failureText, sendForm, sendJson } from "../api-client";
+import { failureText, sendForm, sendJson } from "../../../client/http";
 import { usePhotos } from "../entry-queries";
 import css from "../entry.module.css";
 

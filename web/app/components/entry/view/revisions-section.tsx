@@ -1,6 +1,6 @@
 "use client";
 /** The entry's history: each revision with number, message, author and date, diffs between neighbours, and a picker for any two. */
-import { failureText } from "../api-client";
+import { failureText } from "../../../client/http";
 import { useRevisions } from "../entry-queries";
 import { when } from "../si-units";
 import css from "../entry.module.css";

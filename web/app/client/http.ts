@@ -1,26 +1,10 @@
 /**
- * The browser side of the HTTP API (web/app/api/README.md): JSON and multipart requests with
- * the session cookie, and one error type that keeps the status and the API's error body, so
- * pages can show a 422's problem list or a 409's `changedSince`.
+ * The browser's one HTTP client for our API: same-origin requests with the session cookie, JSON
+ * or multipart in, JSON out, and one error type that keeps the status and the API's error body,
+ * so a page can show a 422's problem list, a 409's `changedSince` or a plain message as it is.
+ * Every component uses this file; response shapes live beside it in `api-types.ts`.
  */
-
-/** One problem the API lists (422 bodies), with the file line for records. */
-export interface ApiProblem {
-  path: string;
-  message: string;
-  code?: string;
-  line?: number | null;
-  column?: number | null;
-}
-
-/** The API's error body (`{ error: {...} }`), with the extra fields some answers carry. */
-export interface ApiErrorBody {
-  code: string;
-  message: string;
-  path?: string;
-  errors?: ApiProblem[];
-  [key: string]: unknown;
-}
+import type { ApiErrorBody } from "./api-types";
 
 /** A request the API refused, or a network failure (status 0). */
 export class ApiFailure extends Error {
@@ -33,14 +17,28 @@ export class ApiFailure extends Error {
   }
 }
 
+/**
+ * The error body of a refused request: ours is `{ error: { code, message, ... } }`, the sign-in
+ * library's is `{ code?, message }`; anything else gets a plain line with the status.
+ */
+function errorBodyOf(data: unknown, status: number): ApiErrorBody {
+  const d = data as { error?: ApiErrorBody; message?: string; code?: string } | null;
+  if (d?.error?.message) return d.error;
+  if (typeof d?.message === "string" && d.message) {
+    return { code: d.code ?? `http-${status}`, message: d.message };
+  }
+  if (status === 401) return { code: "unauthenticated", message: "you are not signed in" };
+  return { code: `http-${status}`, message: `the server answered ${status}` };
+}
+
 async function send<T>(url: string, init: RequestInit): Promise<T> {
   let res: Response;
   try {
     res = await fetch(url, { credentials: "same-origin", ...init });
-  } catch (err) {
+  } catch {
     throw new ApiFailure(0, {
       code: "network",
-      message: `the server could not be reached (${(err as Error).message})`,
+      message: "the server could not be reached; check your connection and try again",
     });
   }
   const text = await res.text();
@@ -50,13 +48,7 @@ async function send<T>(url: string, init: RequestInit): Promise<T> {
   } catch {
     data = null;
   }
-  if (!res.ok) {
-    const body = (data as { error?: ApiErrorBody } | null)?.error;
-    throw new ApiFailure(
-      res.status,
-      body ?? { code: "http-" + res.status, message: `the server answered ${res.status}` },
-    );
-  }
+  if (!res.ok) throw new ApiFailure(res.status, errorBodyOf(data, res.status));
   return data as T;
 }
 
@@ -65,16 +57,19 @@ export function getJson<T>(url: string): Promise<T> {
   return send<T>(url, { headers: { accept: "application/json" } });
 }
 
-/** POST (or PATCH) a JSON body and read the JSON answer. */
+/** POST, PATCH or DELETE a JSON body (or none) and read the JSON answer. */
 export function sendJson<T>(
   url: string,
-  body: unknown,
+  body?: unknown,
   method: "POST" | "PATCH" | "DELETE" = "POST",
 ): Promise<T> {
+  const hasBody = body !== undefined;
   return send<T>(url, {
     method,
-    headers: { "content-type": "application/json", accept: "application/json" },
-    body: JSON.stringify(body),
+    headers: hasBody
+      ? { "content-type": "application/json", accept: "application/json" }
+      : { accept: "application/json" },
+    body: hasBody ? JSON.stringify(body) : undefined,
   });
 }
 

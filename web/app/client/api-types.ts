@@ -1,0 +1,190 @@
+/**
+ * The API's response shapes as the browser reads them: one type for each thing, shared by every
+ * component (the server's own modules are named beside each where the shape comes from).
+ */
+import type { AnalysisResult } from "@teardown/engine";
+
+/** One problem the API lists (422 bodies), with the file line for records. */
+export interface ApiProblem {
+  path: string;
+  message: string;
+  code?: string;
+  line?: number | null;
+  column?: number | null;
+}
+
+/** The API's error body (`{ error: {...} }`), with the extra fields some answers carry. */
+export interface ApiErrorBody {
+  code: string;
+  message: string;
+  path?: string;
+  errors?: ApiProblem[];
+  [key: string]: unknown;
+}
+
+export type Role = "owner" | "editor" | "viewer";
+
+/** An analysis as GET /api/entries/:id shows it; fields by state (see web/lib/entry-state.ts). */
+export interface AnalysisView {
+  state: "queued" | "running" | "done" | "failed";
+  engineVersion: string;
+  queuedAt?: string;
+  startedAt?: string | null;
+  finishedAt?: string | null;
+  /** The parsed result (done); null when the stored one could not be read. */
+  result?: AnalysisResult | null;
+  /** The older engine an upgraded result came from, else null. */
+  upgradedFrom?: string | null;
+  /** Why a stored result could not be read. */
+  resultProblem?: string | null;
+  layout?: unknown;
+  timings?: unknown;
+  error?: string;
+  stage?: string | null;
+}
+
+/** GET /api/entries/:id. */
+export interface EntryState {
+  entry: {
+    id: string;
+    teamId: string;
+    title: string;
+    category: string | null;
+    visibility: "team" | "public";
+    currentRevision: number | null;
+    archived: boolean;
+    createdAt: string;
+    updatedAt: string;
+  };
+  role: Role | null;
+  revision: {
+    number: number;
+    message: string;
+    authorId: string | null;
+    createdAt: string;
+    recordHash: string;
+    record: Record<string, unknown>;
+  };
+  engineVersion: string;
+  analysis: AnalysisView | null;
+  olderAnalysis: AnalysisView | null;
+}
+
+export interface TeamMember {
+  userId: string;
+  name: string;
+  email: string;
+  role: Role;
+}
+
+export interface TeamView {
+  id: string;
+  name: string;
+  role: Role;
+  members: TeamMember[];
+}
+
+export interface RevisionSummary {
+  number: number;
+  message: string;
+  authorId: string | null;
+  authorName: string | null;
+  recordHash: string;
+  createdAt: string;
+}
+
+export interface PhotoView {
+  id: string;
+  side: "component" | "track" | "other";
+  contentType: string;
+  sizeBytes: number;
+  width: number | null;
+  height: number | null;
+  caption: string | null;
+  createdAt: string;
+  url: string;
+}
+
+export interface CommentView {
+  id: string;
+  partRef: string | null;
+  authorId: string | null;
+  authorName: string | null;
+  body: string;
+  mentions: string[];
+  createdAt: string;
+}
+
+export interface FieldChange {
+  field: string;
+  from: unknown;
+  to: unknown;
+}
+export interface PartBrief {
+  ref: string;
+  kind: string;
+  value: string | null;
+  pins: Record<string, string>;
+}
+/** The API's RevisionDiff (web/lib/revision-diff.ts). */
+export interface RevisionDiff {
+  record: FieldChange[];
+  parts: {
+    added: PartBrief[];
+    removed: PartBrief[];
+    changed: {
+      ref: string;
+      kind: string;
+      changes: FieldChange[];
+      pins: { pin: string; from: string | null; to: string | null }[];
+    }[];
+  };
+  nets: { added: string[]; removed: string[]; changed: { net: string; changes: FieldChange[] }[] };
+  measurements: {
+    added: { key: string; what: string; value: number }[];
+    removed: { key: string; what: string; value: number }[];
+    changed: { key: string; what: string; changes: FieldChange[] }[];
+  };
+  same: boolean;
+}
+
+/** One member as the team endpoint lists it. */
+export interface TeamMemberRow {
+  userId: string;
+  name: string;
+  email: string;
+  role: Role;
+  joinedAt: string;
+}
+
+/** One entry as the list endpoints return it. */
+export interface EntrySummary {
+  id: string;
+  teamId: string;
+  title: string;
+  category: string | null;
+  visibility: "team" | "public";
+  currentRevision: number | null;
+  updatedAt: string;
+  archived: boolean;
+  flags: string[];
+  blocks: string[];
+  analysisState: "queued" | "running" | "done" | "failed" | null;
+}
+
+/** An API token as the settings list shows it (never the token itself). */
+export interface TokenInfo {
+  id: string;
+  name: string;
+  createdAt: string;
+  lastUsedAt: string | null;
+  revokedAt: string | null;
+}
+
+/** A new one-time invitation, shown once. */
+export interface NewInvite {
+  token: string;
+  url: string;
+  role: string;
+  expiresAt: string;
+}
