@@ -1,4 +1,5 @@
 import { headers } from "next/headers";
+import { isTransientDatabaseError } from "@teardown/db";
 import { readableEntry } from "@/lib/access";
 import { findCaller } from "@/lib/caller";
 import { database } from "@/lib/database";
@@ -12,7 +13,8 @@ const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
 // The first render carries the entry (as the API would answer it), so the page needs no
 // round trip to show it; anything unusual (unknown id, no access) is left to the client's
-// own request, which shows the API's answer.
+// own request, which shows the API's answer. The database going away is not unusual in that
+// sense: it fails the render, which the outage guard answers with 503 (page-outage-guard.ts).
 async function firstState(entryId: string): Promise<EntryState | null> {
   if (!UUID.test(entryId)) return null;
   try {
@@ -20,7 +22,8 @@ async function firstState(entryId: string): Promise<EntryState | null> {
     const { db } = database();
     const { entry, role } = await readableEntry(db, caller, entryId.toLowerCase());
     return JSON.parse(JSON.stringify(await entryState(db, entry, role))) as EntryState;
-  } catch {
+  } catch (err) {
+    if (isTransientDatabaseError(err)) throw err;
     return null;
   }
 }
