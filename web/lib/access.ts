@@ -3,7 +3,7 @@
  * nothing about it: its team-only entries and the team itself answer 404 exactly as unknown ids
  * do. A member whose role is too low gets 403.
  */
-import { and, eq } from "drizzle-orm";
+import { and, eq, getTableColumns } from "drizzle-orm";
 import { schema, type Database } from "@teardown/db";
 import { forbidden, notFound } from "./api-error";
 import type { Caller } from "./caller";
@@ -44,7 +44,23 @@ export async function requireTeamRole(
   return role;
 }
 
-export type EntryRow = typeof schema.entries.$inferSelect;
+/**
+ * An entry as reads need it: every column but the search index's own (text, vector,
+ * fingerprint, facets), which only search reads and which cost more to fetch and decode than
+ * the rest of the row together.
+ */
+export type EntryRow = Omit<
+  typeof schema.entries.$inferSelect,
+  "searchText" | "searchVector" | "fingerprint" | "facets"
+>;
+
+const {
+  searchText: _searchText,
+  searchVector: _searchVector,
+  fingerprint: _fingerprint,
+  facets: _facets,
+  ...ENTRY_COLUMNS
+} = getTableColumns(schema.entries);
 
 /** An entry with the caller's role on its team (null for an outsider reading a public entry). */
 export interface EntryAccess {
@@ -61,7 +77,10 @@ export async function readableEntry(
   caller: Caller | null,
   entryId: string,
 ): Promise<EntryAccess> {
-  const [entry] = await db.select().from(schema.entries).where(eq(schema.entries.id, entryId));
+  const [entry] = await db
+    .select(ENTRY_COLUMNS)
+    .from(schema.entries)
+    .where(eq(schema.entries.id, entryId));
   if (!entry) throw notFound();
   const role = await roleOn(db, entry.teamId, caller?.userId ?? null);
   if (role !== null) return { entry, role };

@@ -4,6 +4,7 @@
  * done, the newest finished analysis by an older engine version so the page has something to show.
  */
 import { and, desc, eq, ne } from "drizzle-orm";
+import { cachedDoneView, doneKey, keepDoneView } from "./analysis-view-cache";
 import { schema, type Database } from "@teardown/db";
 import { ENGINE_VERSION, parseStoredResult, type AnalysisResult } from "@teardown/engine";
 import type { EntryRow, Role } from "./access";
@@ -111,6 +112,47 @@ export async function analysisFor(
   return row ?? null;
 }
 
+/** An analysis row without its large JSON columns (result, layout, timings). */
+const LIGHT_COLUMNS = {
+  id: schema.analyses.id,
+  revisionId: schema.analyses.revisionId,
+  engineVersion: schema.analyses.engineVersion,
+  state: schema.analyses.state,
+  error: schema.analyses.error,
+  errorStage: schema.analyses.errorStage,
+  queuedAt: schema.analyses.queuedAt,
+  startedAt: schema.analyses.startedAt,
+  finishedAt: schema.analyses.finishedAt,
+};
+type LightAnalysisRow = Omit<AnalysisRow, "result" | "layout" | "timings">;
+
+/**
+ * The view of an analysis found by its light row: a finished one comes from the process's
+ * cache, or has its JSON fetched and parsed once; the others need nothing more.
+ */
+async function viewOfLight(db: Database, light: LightAnalysisRow): Promise<AnalysisView> {
+  if (light.state !== "done")
+    return analysisView({ ...light, result: null, layout: null, timings: {} });
+  const key = doneKey(light.id, light.finishedAt);
+  const hit = cachedDoneView(key);
+  if (hit) return hit;
+  const [heavy] = await db
+    .select({
+      result: schema.analyses.result,
+      layout: schema.analyses.layout,
+      timings: schema.analyses.timings,
+      finishedAt: schema.analyses.finishedAt,
+    })
+    .from(schema.analyses)
+    .where(eq(schema.analyses.id, light.id));
+  // Re-run between the two reads: show what the second read saw, and cache nothing.
+  if (!heavy || heavy.finishedAt?.getTime() !== light.finishedAt?.getTime())
+    return analysisView({ ...light, result: null, layout: null, timings: {}, state: "queued" });
+  const view = analysisView({ ...light, ...heavy });
+  if (view.state === "done") keepDoneView(key, view);
+  return view;
+}
+
 /** Everything the entry page shows, for a caller who may read the entry. */
 export async function entryState(
   db: Database,
@@ -120,11 +162,19 @@ export async function entryState(
 ) {
   const number = revisionNumber ?? entry.currentRevision ?? 1;
   const revision = await revisionByNumber(db, entry.id, number);
-  const current = await analysisFor(db, revision.id);
+  const [current] = await db
+    .select(LIGHT_COLUMNS)
+    .from(schema.analyses)
+    .where(
+      and(
+        eq(schema.analyses.revisionId, revision.id),
+        eq(schema.analyses.engineVersion, ENGINE_VERSION),
+      ),
+    );
   let previous: AnalysisView | null = null;
   if (current?.state !== "done") {
     const [older] = await db
-      .select()
+      .select(LIGHT_COLUMNS)
       .from(schema.analyses)
       .where(
         and(
@@ -135,7 +185,7 @@ export async function entryState(
       )
       .orderBy(desc(schema.analyses.finishedAt))
       .limit(1);
-    previous = older ? analysisView(older) : null;
+    previous = older ? await viewOfLight(db, older) : null;
   }
   return {
     entry: entryView(entry),
@@ -149,7 +199,7 @@ export async function entryState(
       record: revision.record,
     },
     engineVersion: ENGINE_VERSION,
-    analysis: current ? analysisView(current) : null,
+    analysis: current ? await viewOfLight(db, current) : null,
     olderAnalysis: previous,
   };
 }

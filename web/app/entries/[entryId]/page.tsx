@@ -1,11 +1,10 @@
-import { headers } from "next/headers";
 import { isTransientDatabaseError } from "@teardown/db";
 import { readableEntry } from "@/lib/access";
-import { findCaller } from "@/lib/caller";
 import { database } from "@/lib/database";
 import { entryState } from "@/lib/entry-state";
 import type { EntryState } from "@/app/client/api-types";
 import { EntryPage } from "@/app/components/entry/view/entry-page";
+import { currentCaller } from "@/app/components/current-caller";
 
 export const dynamic = "force-dynamic";
 
@@ -18,7 +17,8 @@ const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 async function firstState(entryId: string): Promise<EntryState | null> {
   if (!UUID.test(entryId)) return null;
   try {
-    const caller = await findCaller(new Request("http://localhost/", { headers: await headers() }));
+    // The header asked already; this is the same lookup's answer, not a second one.
+    const caller = await currentCaller();
     const { db } = database();
     const { entry, role } = await readableEntry(db, caller, entryId.toLowerCase());
     return JSON.parse(JSON.stringify(await entryState(db, entry, role))) as EntryState;
