@@ -39,6 +39,8 @@ const whatIf = (body: unknown, as: TestUser | null = owner) =>
 
 beforeAll(async () => {
   app = await openTestWebApp();
+  // Many runs from one caller here; the limit has its own test below.
+  process.env.WHAT_IF_RUN_BURST = "1000";
   owner = await signUp("Wren Owner", "wren@lab.test");
   outsider = await signUp("Odo Outsider", "odo@elsewhere.test");
   const team = (await call("POST", "/api/teams", { as: owner.as, json: { name: "Bench" } })).body
@@ -132,6 +134,42 @@ describe("what-if results and cache", () => {
     expect((rows.rows[0] as { n: number }).n).toBe(1);
   });
 
+  it("runs off the request thread: /api/health answers while a what-if computes", async () => {
+    expect((await call("GET", "/api/health")).status).toBe(200); // warm the route
+    let finished = false;
+    const running = whatIf({ supply: { vrms: 110, hz: 60 } }).then((r) => {
+      finished = true;
+      return r;
+    });
+    const t0 = performance.now();
+    const health = await call("GET", "/api/health");
+    const healthMs = performance.now() - t0;
+    expect(health.status).toBe(200);
+    expect(finished).toBe(false);
+    expect(healthMs).toBeLessThan(2000);
+    expect((await running).status).toBe(200);
+  });
+
+  it("stops at the analysis budget and does not cache a run the clock cut short", async () => {
+    process.env.ANALYSIS_BUDGET_MS = "1";
+    try {
+      const res = await whatIf({ supply: { vrms: 200, hz: 50 } });
+      if (res.status === 200) {
+        expect(res.body.result.status).toBe("not-solved");
+        expect(res.body.result.solver_code).toBe("time-budget");
+      } else {
+        expect(res.status).toBe(503);
+        expect(res.body.error.code).toBe("what-if-budget");
+      }
+      const rows = await app.db.db.execute(
+        sql`select count(*)::int as n from what_if_results where input->'supply'->>'vrms' = '200'`,
+      );
+      expect((rows.rows[0] as { n: number }).n).toBe(0);
+    } finally {
+      delete process.env.ANALYSIS_BUDGET_MS;
+    }
+  });
+
   it("limits computed runs per caller, and still answers cached ones past the limit", async () => {
     process.env.WHAT_IF_RUN_BURST = "0";
     process.env.WHAT_IF_RUNS_PER_MINUTE = "1";
@@ -146,7 +184,7 @@ describe("what-if results and cache", () => {
       expect(cached.status).toBe(200);
       expect(cached.body.cached).toBe(true);
     } finally {
-      delete process.env.WHAT_IF_RUN_BURST;
+      process.env.WHAT_IF_RUN_BURST = "1000";
       delete process.env.WHAT_IF_RUNS_PER_MINUTE;
     }
   });
