@@ -3,7 +3,9 @@
  * done (a re-run sets it back to queued and writes a new finish time), so its parsed view can be
  * kept under (analysis id, finish time). Reading it again per request cost the most on the entry
  * page and its API: fetching the result and layout JSON from Postgres and checking the result
- * against the engine's schema, several milliseconds each on this machine, for every view.
+ * against the engine's schema, for every view. Measured on the shared 2-core dev machine (a
+ * night-light entry, 25 kB result): the full row read 7.9 ms against 0.4 ms without the JSON
+ * columns, and the schema check 3.5 ms, per request.
  *
  * Bounded, least recently used first out; a process restart starts empty. The cached view is
  * shared between requests, so callers serialise it and never change it.
