@@ -198,6 +198,12 @@ export interface WhatIfRequest {
 /** The what-if answer: the analysis result of that variant, in the stored result's shape. */
 export interface WhatIfAnswer {
   result: AnalysisResult;
+  /** The input as the server read it. */
+  input: WhatIfRequest;
+  /** True when the answer came from the cache of (revision, engine version, input). */
+  cached: boolean;
+  /** The revision it was run on (the entry's current one). */
+  revision: number;
 }
 
 /** What a trigger suggests when it stops firing at a what-if supply (`triggers[].suggestion`). */

@@ -6,7 +6,7 @@
  */
 import { useMemo } from "react";
 import uPlot from "uplot";
-import { arr, obj, type Obj } from "./result-access";
+import { obj, type Obj } from "./result-access";
 import { finite, si } from "../si-units";
 import { UPlotChart } from "./uplot-chart";
 import css from "../entry.module.css";
@@ -21,36 +21,14 @@ export interface Harmonic {
   amps: number;
 }
 
-function magnitude(h: Obj): number | null {
-  return finite(h.rms) ?? finite(h.amps) ?? finite(h.magnitude) ?? finite(h.current_rms);
-}
-
-/**
- * The line current's harmonics from the stored result, in the shapes the field may take: a list
- * of `{ order, rms }` (or `amps`/`magnitude`), or one under `input_current`/`line_current`/`current`,
- * or parallel `orders` and `rms` lists. Null when the result holds none.
- */
+/** The line current's harmonics stored with the analysis (`input.harmonics`), or null when absent. */
 export function harmonicsOf(result: Obj): Harmonic[] | null {
-  let h: unknown = result.harmonics;
-  const o = obj(h);
-  if (!Array.isArray(h)) h = o.input_current ?? o.line_current ?? o.current ?? h;
-  const inner = obj(h);
-  if (!Array.isArray(h) && Array.isArray(inner.orders)) {
-    const mags = arr(inner.rms ?? inner.amps ?? inner.magnitude);
-    return arr(inner.orders)
-      .map((n, i) => ({ order: finite(n) ?? 0, amps: finite(mags[i]) ?? NaN }))
-      .filter((x) => x.order >= 1 && Number.isFinite(x.amps));
-  }
-  if (!Array.isArray(h)) return null;
-  const list = h
-    .map((x, i) => {
-      const e = obj(x);
-      const order = finite(e.order) ?? finite(e.n) ?? (typeof x === "number" ? i + 1 : null);
-      const amps = typeof x === "number" ? x : magnitude(e);
-      return order !== null && amps !== null ? { order, amps } : null;
-    })
-    .filter((x): x is Harmonic => x !== null && x.order >= 1);
-  return list.length > 0 ? list : null;
+  const stored = obj(result.input).harmonics;
+  if (!Array.isArray(stored)) return null;
+  return stored
+    .map(obj)
+    .map((h) => ({ order: finite(h.order) ?? 0, amps: finite(h.rms) ?? NaN }))
+    .filter((h) => h.order >= 1 && Number.isFinite(h.amps));
 }
 
 /** The bar chart, or a line saying the result has none. */

@@ -109,10 +109,13 @@ export function WhatIfPanel({
     .filter((t) => t.fires === false)
     .map((t) => ({
       part: str(t.part) ?? "?",
-      firedBefore: arr(stored.triggers)
-        .map(obj)
-        .some((s) => s.part === t.part && s.fires === true),
+      firedBefore:
+        obj(t.rated).fires === true ||
+        arr(stored.triggers)
+          .map(obj)
+          .some((s) => s.part === t.part && s.fires === true),
       suggestion: suggestionOf(t),
+      note: str(t.suggestion_note),
     }));
   const supplyWords = (s: Obj) => `${finite(s.vrms) ?? "?"} V / ${finite(s.hz) ?? "?"} Hz`;
 
@@ -261,7 +264,7 @@ export function WhatIfPanel({
                   </button>
                 </>
               ) : (
-                " No change was suggested."
+                ` No change was suggested${s.note ? `: ${s.note}` : "."}`
               )}
             </div>
           ))}
