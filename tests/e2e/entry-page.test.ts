@@ -4,6 +4,7 @@
 // 120 V / 60 Hz says the triac stops firing, names the gate-feed change and, when that change is
 // tried, fires again; a danger finding's link selects its part, which is marked on the drawing.
 // Screenshots go to tests/e2e/screenshots/entry-page/; the page heights are printed.
+// Set TL_E2E_URL to test an app already running with the demo loaded instead of starting one.
 import { existsSync, mkdirSync } from "node:fs";
 import path from "node:path";
 import { chromium, type Browser, type Page } from "playwright-core";
@@ -32,7 +33,8 @@ interface Listed {
 }
 
 describe.skipIf(missing)("browser: the entry page", () => {
-  let app: RunningApp;
+  let app: RunningApp | null = null;
+  let url = process.env.TL_E2E_URL ?? "";
   let browser: Browser;
   let page: Page;
   const violations: string[] = [];
@@ -41,7 +43,10 @@ describe.skipIf(missing)("browser: the entry page", () => {
 
   beforeAll(async () => {
     mkdirSync(SHOTS, { recursive: true });
-    app = await startApp();
+    if (!url) {
+      app = await startApp();
+      url = url;
+    }
     browser = await chromium.launch({ executablePath: CHROMIUM, args: CHROMIUM_ARGS });
     page = await (await browser.newContext({ viewport: VIEWPORT })).newPage();
     page.setDefaultTimeout(STEP_TIMEOUT_MS);
@@ -54,12 +59,12 @@ describe.skipIf(missing)("browser: the entry page", () => {
       if (/Content Security Policy|CSP violation/i.test(m.text()))
         violations.push(`${new URL(page.url()).pathname}: ${m.text()}`);
     });
-    await page.goto(`${app.url}/sign-in`);
+    await page.goto(`${url}/sign-in`);
     await page.fill('input[name="email"]', DEMO_EMAIL);
     await page.fill('input[name="password"]', DEMO_PASSWORD);
     await page.locator('button[type="submit"]').click();
     await page.waitForURL((u) => !u.pathname.startsWith("/sign-in"));
-    const teams = (await (await page.request.get(`${app.url}/api/teams`)).json()) as {
+    const teams = (await (await page.request.get(`${url}/api/teams`)).json()) as {
       teams: { id: string }[];
     };
     for (const t of teams.teams) {
@@ -67,7 +72,7 @@ describe.skipIf(missing)("browser: the entry page", () => {
       do {
         const q: string = cursor ? `?cursor=${encodeURIComponent(cursor)}` : "";
         const listed = (await (
-          await page.request.get(`${app.url}/api/teams/${t.id}/entries${q}`)
+          await page.request.get(`${url}/api/teams/${t.id}/entries${q}`)
         ).json()) as { entries: Listed[]; nextCursor: string | null };
         entries.push(...listed.entries);
         cursor = listed.nextCursor;
@@ -82,7 +87,7 @@ describe.skipIf(missing)("browser: the entry page", () => {
   }, 60_000);
 
   async function openEntry(id: string): Promise<void> {
-    await page.goto(`${app.url}/entries/${id}`);
+    await page.goto(`${url}/entries/${id}`);
     await textMatching(page.getByTestId("analysis-state"), /done|failed/, ANALYSIS_TIMEOUT_MS);
   }
 

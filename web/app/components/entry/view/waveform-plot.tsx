@@ -17,6 +17,8 @@ import css from "../entry.module.css";
 const COLOURS = ["#1d5c63", "#8b1a1a", "#4a4a8c", "#6b5a1e", "#2f6b3a", "#7a3e8c", "#3b6ea8"];
 const PLOT_HEIGHT_PX = 280;
 const FIRST_SHOWN = ["input.current", "supply.voltage"];
+/** One empty list, so a result without a supply trace does not remake the chart each render. */
+const NO_SAMPLES: number[] = [];
 
 interface Firing {
   part: string;
@@ -69,7 +71,7 @@ export function WaveformPlots({ result }: { result: Record<string, unknown> }) {
   }, [w.t, w.series]);
   const names = series.map(([n]) => n);
   const shown = picked ?? names.filter((n) => FIRST_SHOWN.includes(n));
-  const supply = series.find(([n]) => n === "supply.voltage")?.[1] ?? [];
+  const supply = series.find(([n]) => n === "supply.voltage")?.[1] ?? NO_SAMPLES;
   const firings: Firing[] = useMemo(
     () =>
       arr(result.triggers)
