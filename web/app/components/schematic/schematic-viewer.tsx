@@ -163,7 +163,7 @@ export function SchematicViewer({
                   {sev === "danger" ? (
                     <rect x={x - 3} y={y - 3} width={w + 6} height={h + 6} rx={4} />
                   ) : null}
-                  <text x={x + w + 2} y={y + 9}>
+                  <text x={x + w + 9} y={y + 9}>
                     {sev === "danger" ? "!!" : "!"}
                   </text>
                 </g>

@@ -30,6 +30,10 @@ export function FindingsList({
         No finding was raised for this circuit. That is not a verdict of safety.
       </p>
     );
+  // A caution most findings share is said once under the list, not on every card.
+  const seen = new Map<string, number>();
+  for (const f of findings) if (f.caution) seen.set(f.caution, (seen.get(f.caution) ?? 0) + 1);
+  const shared = [...seen].filter(([, n]) => n > 1).map(([c]) => c);
   return (
     <div data-testid="findings">
       {findings.map((f, i) => {
@@ -81,10 +85,17 @@ export function FindingsList({
               ) : null}
               Source: <cite>{f.source || "not given"}</cite>
             </p>
-            {f.caution ? <p className={css.meta}>{f.caution}</p> : null}
+            {f.caution && !shared.includes(f.caution) ? (
+              <p className={css.meta}>{f.caution}</p>
+            ) : null}
           </article>
         );
       })}
+      {shared.map((c) => (
+        <p key={c} className={css.meta}>
+          Said of several findings above: {c}
+        </p>
+      ))}
     </div>
   );
 }

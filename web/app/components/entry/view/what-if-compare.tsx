@@ -18,8 +18,7 @@ interface Row {
 function difference(row: Row): string {
   const a = finite(row.a);
   const b = finite(row.b);
-  if (a === null || b === null)
-    return typeof row.a === typeof row.b && row.a === row.b ? "same" : "—";
+  if (a === null || b === null) return row.a === row.b ? "same" : "changed";
   if (a === b) return "same";
   const sign = b > a ? "+" : "−";
   const rel = a !== 0 ? ` (${sign}${Math.abs(((b - a) / a) * 100).toPrecision(3)} %)` : "";
@@ -71,22 +70,37 @@ export function WhatIfCompare({ stored, variant }: { stored: Obj; variant: Obj }
       fmt: degrees,
     });
   }
+  const partRows: Row[] = [];
   const sParts = obj(stored.parts);
   const vParts = obj(variant.parts);
   for (const ref of Object.keys(sParts)) {
     const a = obj(sParts[ref]);
     const b = obj(vParts[ref]);
-    rows.push({
+    partRows.push({
       label: `${ref} peak voltage`,
       a: a.voltage_peak,
       b: b.voltage_peak,
       fmt: (v) => si(v, "V"),
     });
-    rows.push({ label: `${ref} dissipation`, a: a.power, b: b.power, fmt: (v) => si(v, "W") });
+    partRows.push({ label: `${ref} dissipation`, a: a.power, b: b.power, fmt: (v) => si(v, "W") });
   }
   return (
+    <>
+      <CompareTable rows={rows} testId="what-if-compare" />
+      <details>
+        <summary>
+          Each part&apos;s peak voltage and dissipation ({partRows.length / 2} parts)
+        </summary>
+        <CompareTable rows={partRows} testId="what-if-compare-parts" />
+      </details>
+    </>
+  );
+}
+
+function CompareTable({ rows, testId }: { rows: Row[]; testId: string }) {
+  return (
     <div className={css.scroll}>
-      <table className={css.table} data-testid="what-if-compare">
+      <table className={css.table} data-testid={testId}>
         <thead>
           <tr>
             <th>Figure</th>
@@ -99,7 +113,7 @@ export function WhatIfCompare({ stored, variant }: { stored: Obj; variant: Obj }
           {rows.map((r) => {
             const d = difference(r);
             return (
-              <tr key={r.label} className={d !== "same" && d !== "—" ? css.changed : undefined}>
+              <tr key={r.label} className={d !== "same" ? css.changed : undefined}>
                 <td>{r.label}</td>
                 <td className={css.num}>{r.fmt(r.a)}</td>
                 <td className={css.num}>{r.fmt(r.b)}</td>
