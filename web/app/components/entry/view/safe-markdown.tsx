@@ -8,15 +8,22 @@ import { inlineTokens, markdownBlocks, type InlineToken } from "./markdown-block
 function render(tokens: InlineToken[], key: string): ReactNode[] {
   return tokens.map((t, i) => {
     const k = `${key}-${i}`;
-    if (t.kind === "text") return t.text;
-    if (t.kind === "code") return <code key={k}>{t.text}</code>;
-    if (t.kind === "strong") return <strong key={k}>{render(t.children, k)}</strong>;
-    if (t.kind === "em") return <em key={k}>{render(t.children, k)}</em>;
-    return (
-      <a key={k} href={t.href} rel="noopener noreferrer nofollow" target="_blank">
-        {render(t.children, k)}
-      </a>
-    );
+    switch (t.kind) {
+      case "text":
+        return t.text;
+      case "code":
+        return <code key={k}>{t.text}</code>;
+      case "strong":
+        return <strong key={k}>{render(t.children, k)}</strong>;
+      case "em":
+        return <em key={k}>{render(t.children, k)}</em>;
+      case "link":
+        return (
+          <a key={k} href={t.href} rel="noopener noreferrer nofollow" target="_blank">
+            {render(t.children, k)}
+          </a>
+        );
+    }
   });
 }
 
