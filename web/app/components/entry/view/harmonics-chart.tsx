@@ -60,7 +60,12 @@ export function HarmonicsChart({ result }: { result: Obj }) {
         },
       ],
       axes: [
-        { label: "harmonic order (× mains frequency)" },
+        {
+          label: "harmonic order (× mains frequency)",
+          // Orders are whole numbers: ticks on 1, 2, 5 or 10 steps, never 2.5.
+          incrs: [1, 2, 5, 10],
+          values: (_u, t) => t.map((v) => String(Math.round(v))),
+        },
         { label: "RMS current", size: 64, values: (_u, t) => t.map((v) => si(v, "A", 3)) },
       ],
     };
