@@ -219,6 +219,8 @@ describe.skipIf(missing)(title, () => {
       const entryPath = new URL(owner.url()).pathname;
       await textMatching(owner.getByTestId("analysis-state"), /queued|running|done/);
 
+      // Photos are one of the entry page's sections, opened by its tab.
+      await owner.locator('[data-tab="photos"]').click();
       const photos = owner.locator("form", { has: owner.locator('input[name="photoFile"]') });
       await photos.locator('input[name="photoFile"]').setInputFiles({
         name: "component-side.png",

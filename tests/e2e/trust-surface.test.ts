@@ -110,6 +110,8 @@ describe.skipIf(missing)("browser: the analysis states what it left out", () => 
     const statusTop = (await status.boundingBox())!.y;
     const figuresTop = (await page.getByTestId("input-figures").boundingBox())!.y;
     expect(statusTop).toBeLessThan(figuresTop);
+    // The parts table is one of the entry page's sections, opened by its tab.
+    await page.locator('[data-tab="parts"]').click();
     const ht1 = page.locator('[data-testid="part-figures"] tr[data-part="HT1"]');
     await textContaining(ht1, "left out: load without a resistance");
     await page.screenshot({ path: path.join(SHOTS, "trust-entry-partial.png"), fullPage: false });

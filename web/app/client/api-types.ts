@@ -188,3 +188,28 @@ export interface NewInvite {
   role: string;
   expiresAt: string;
 }
+
+/** POST /api/entries/:id/what-if: another supply and/or changed part values. */
+export interface WhatIfRequest {
+  supply?: { vrms: number; hz: number };
+  changes?: { part: string; value: string }[];
+}
+
+/** The what-if answer: the analysis result of that variant, in the stored result's shape. */
+export interface WhatIfAnswer {
+  result: AnalysisResult;
+  /** The input as the server read it. */
+  input: WhatIfRequest;
+  /** True when the answer came from the cache of (revision, engine version, input). */
+  cached: boolean;
+  /** The revision it was run on (the entry's current one). */
+  revision: number;
+}
+
+/** What a trigger suggests when it stops firing at a what-if supply (`triggers[].suggestion`). */
+export interface TriggerSuggestion {
+  part: string;
+  value: number;
+  series: string;
+  angle_deg: number;
+}

@@ -1,17 +1,19 @@
 "use client";
 /**
  * The entry page's data through TanStack Query: the entry state (polled while its analysis is
- * queued or running), the team, revisions, photos and comments. One key per thing, so a write
+ * queued or running), the team, revisions, photos, comments and what-if answers. One key per thing, so a write
  * invalidates exactly what it changed.
  */
 import { useQuery } from "@tanstack/react-query";
-import { getJson } from "../../client/http";
+import { getJson, sendJson } from "../../client/http";
 import type {
   CommentView,
   EntryState,
   PhotoView,
   RevisionSummary,
   TeamView,
+  WhatIfAnswer,
+  WhatIfRequest,
 } from "../../client/api-types";
 
 /** How often the entry is re-read while its analysis is waiting or running, in milliseconds. */
@@ -78,6 +80,18 @@ export function useComments(entryId: string, enabled: boolean) {
         (r) => r.comments,
       ),
     enabled,
+    retry: false,
+  });
+}
+
+/** The what-if of one input on one revision, asked once and kept (the server caches it too). */
+export function useWhatIf(entryId: string, revision: number, input: WhatIfRequest | null) {
+  return useQuery({
+    queryKey: ["entry", entryId, "what-if", revision, JSON.stringify(input)],
+    queryFn: () =>
+      sendJson<WhatIfAnswer>(`/api/entries/${entryId}/what-if`, input).then((r) => r.result),
+    enabled: input !== null,
+    staleTime: Infinity,
     retry: false,
   });
 }

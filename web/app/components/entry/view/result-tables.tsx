@@ -1,11 +1,10 @@
 "use client";
 /**
  * The computed figures of an analysis as tables: input figures, per part, per net, triggers,
- * measured against predicted, blocks and circuit checks. Any missing field reads "not computed".
+ * blocks and circuit checks (measurements against their bands are in measurements-section). Any missing field reads "not computed".
  */
-import type { ReactNode } from "react";
 import { NOT_COMPUTED, degrees, percent, ratio, si } from "../si-units";
-import { arr, has, measurementUnit, obj, str, strings, type Obj } from "./result-access";
+import { arr, has, obj, str, strings, type Obj } from "./result-access";
 import css from "../entry.module.css";
 
 function Cell({ children, num = true }: { children: string; num?: boolean }) {
@@ -236,75 +235,6 @@ export function TriggersTable({ result }: { result: Obj }) {
             <Cell>{si(t.min_supply_vrms, "V")}</Cell>
           </tr>
         ))}
-      </tbody>
-    </table>
-  );
-}
-
-function measurementLabel(m: Obj, what: string): ReactNode {
-  const between = strings(m.between);
-  const where =
-    between.length === 2 ? ` ${between[0]}→${between[1]}` : str(m.part) ? ` ${str(m.part)}` : "";
-  return (
-    <>
-      <code className={css.code}>{what}</code>
-      {where}
-    </>
-  );
-}
-
-/** Each measurement against its predicted band. */
-export function ComparisonsTable({ result, record }: { result: Obj; record: Obj }) {
-  if (!Array.isArray(result.comparisons)) {
-    return arr(record.measurements).length === 0 ? (
-      <p className="muted">The record has no measurements to compare.</p>
-    ) : (
-      <NotComputed what="Measured against predicted" />
-    );
-  }
-  const rows = arr(result.comparisons).map(obj);
-  if (rows.length === 0) return <p className="muted">No measurement could be compared.</p>;
-  const measurements = arr(record.measurements).map(obj);
-  return (
-    <table className={css.table} data-testid="comparisons">
-      <thead>
-        <tr>
-          <th>Measurement</th>
-          <th className={css.num}>Measured</th>
-          <th className={css.num}>Predicted</th>
-          <th className={css.num}>Band</th>
-          <th>Verdict</th>
-        </tr>
-      </thead>
-      <tbody>
-        {rows.map((c, i) => {
-          const what = str(c.what) ?? "";
-          const unit = measurementUnit(what);
-          const fmt = (v: unknown) => (unit === "" ? ratio(v) : si(v, unit));
-          const verdict = str(c.verdict);
-          const m = typeof c.measurement === "number" ? obj(measurements[c.measurement]) : {};
-          return (
-            <tr key={i}>
-              <td>{measurementLabel(m, what)}</td>
-              <Cell>{fmt(c.measured)}</Cell>
-              <Cell>{fmt(c.predicted)}</Cell>
-              <Cell>
-                {has(c, "low") && has(c, "high") ? `${fmt(c.low)} … ${fmt(c.high)}` : NOT_COMPUTED}
-              </Cell>
-              <td
-                className={
-                  verdict === "agrees"
-                    ? css.agrees
-                    : verdict === "disagrees"
-                      ? css.disagrees
-                      : css.missing
-                }
-              >
-                {verdict ?? NOT_COMPUTED}
-              </td>
-            </tr>
-          );
-        })}
       </tbody>
     </table>
   );

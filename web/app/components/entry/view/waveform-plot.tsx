@@ -1,150 +1,159 @@
 "use client";
 /**
- * The steady-cycle waveforms (result.waveforms: `t` in seconds and named series) as small
- * hand-drawn SVG line plots, one per series on a shared time axis, each with its own scale.
+ * The steady-window waveforms (result.waveforms: `t` in seconds and named series) on one uPlot
+ * chart: voltages on the left axis, currents on the right, each trace named in plain words,
+ * the window labelled with how many mains cycles it spans, and each thyristor or triac's firing
+ * instants drawn as dashed verticals. The person picks the traces; line current and the supply
+ * voltage come first.
  */
-import { useState } from "react";
-import { arr, obj } from "./result-access";
+import { useMemo, useState } from "react";
+import type uPlot from "uplot";
+import { arr, obj, str } from "./result-access";
 import { finite, si } from "../si-units";
+import { cyclesSpanned, firingInstants, seriesLabel, seriesUnit } from "./series-names";
+import { UPlotChart } from "./uplot-chart";
 import css from "../entry.module.css";
 
-const WIDTH_PX = 760;
-const HEIGHT_PX = 150;
-const LEFT_PX = 78;
-const RIGHT_PX = 34;
-const TOP_PX = 22;
-const BOTTOM_PX = 26;
-const TIME_TICKS = 5;
-const COLOURS = ["#1d5c63", "#8b1a1a", "#4a4a8c", "#6b5a1e", "#2f6b3a"];
+const COLOURS = ["#1d5c63", "#8b1a1a", "#4a4a8c", "#6b5a1e", "#2f6b3a", "#7a3e8c", "#3b6ea8"];
+const PLOT_HEIGHT_PX = 280;
+const FIRST_SHOWN = ["input.current", "supply.voltage"];
+/** One empty list, so a result without a supply trace does not remake the chart each render. */
+const NO_SAMPLES: number[] = [];
 
-/** The unit a series name stands for: currents in A, powers in W, the rest (voltages) in V. */
-export function seriesUnit(name: string): string {
-  if (/power/i.test(name)) return "W";
-  if (/current|^i[(.]|\.i$/i.test(name)) return "A";
-  return "V";
+interface Firing {
+  part: string;
+  at: number[];
 }
 
-function Plot({ name, t, y, colour }: { name: string; t: number[]; y: number[]; colour: string }) {
-  const n = Math.min(t.length, y.length);
-  const unit = seriesUnit(name);
-  let lo = 0;
-  let hi = 0;
-  for (let i = 0; i < n; i++) {
-    lo = Math.min(lo, y[i]!);
-    hi = Math.max(hi, y[i]!);
-  }
-  if (hi === lo) hi = lo + 1;
-  const t0 = t[0]!;
-  const span = t[n - 1]! - t0 || 1;
-  const plotW = WIDTH_PX - LEFT_PX - RIGHT_PX;
-  const plotH = HEIGHT_PX - TOP_PX - BOTTOM_PX;
-  const x = (tv: number) => LEFT_PX + ((tv - t0) / span) * plotW;
-  const yy = (v: number) => TOP_PX + (1 - (v - lo) / (hi - lo)) * plotH;
-  const points: string[] = [];
-  for (let i = 0; i < n; i++) points.push(`${x(t[i]!).toFixed(1)},${yy(y[i]!).toFixed(1)}`);
-  const ticks = Array.from({ length: TIME_TICKS + 1 }, (_, k) => t0 + (span * k) / TIME_TICKS);
-  return (
-    <div className={css.plot}>
-      <svg
-        viewBox={`0 0 ${WIDTH_PX} ${HEIGHT_PX}`}
-        role="img"
-        aria-label={`${name} over one cycle`}
-      >
-        <text x={LEFT_PX} y={14} fontSize={12} fill="#1f2328" fontWeight={600}>
-          {name}
-        </text>
-        <rect x={LEFT_PX} y={TOP_PX} width={plotW} height={plotH} fill="none" stroke="#d9d6cf" />
-        {lo < 0 && hi > 0 ? (
-          <line
-            x1={LEFT_PX}
-            x2={LEFT_PX + plotW}
-            y1={yy(0)}
-            y2={yy(0)}
-            stroke="#b8b3a8"
-            strokeDasharray="3 3"
-          />
-        ) : null}
-        {[hi, lo, ...(lo < 0 && hi > 0 ? [0] : [])].map((v, k) => (
-          <text key={k} x={LEFT_PX - 6} y={yy(v) + 4} fontSize={11} textAnchor="end" fill="#5c6670">
-            {si(v, unit)}
-          </text>
-        ))}
-        {ticks.map((tv, k) => (
-          <g key={k}>
-            <line
-              x1={x(tv)}
-              x2={x(tv)}
-              y1={TOP_PX + plotH}
-              y2={TOP_PX + plotH + 4}
-              stroke="#5c6670"
-            />
-            <text
-              x={x(tv)}
-              y={HEIGHT_PX - 8}
-              fontSize={11}
-              textAnchor={k === TIME_TICKS ? "end" : k === 0 ? "start" : "middle"}
-              fill="#5c6670"
-            >
-              {si(tv - t0, "s")}
-            </text>
-          </g>
-        ))}
-        <polyline
-          points={points.join(" ")}
-          fill="none"
-          stroke={colour}
-          strokeWidth={1.6}
-          strokeLinejoin="round"
-        />
-      </svg>
-    </div>
-  );
+// Firing instants are in result time; the chart's axis starts at the window's first sample.
+function firingHook(firings: Firing[], shiftS: number): uPlot.Plugin {
+  return {
+    hooks: {
+      draw: (u: uPlot) => {
+        const ctx = u.ctx;
+        ctx.save();
+        ctx.strokeStyle = "#a61b1b";
+        ctx.fillStyle = "#a61b1b";
+        ctx.setLineDash([4, 3]);
+        ctx.lineWidth = 1;
+        ctx.font = `${11 * devicePixelRatio}px sans-serif`;
+        const top = u.bbox.top;
+        const bottom = u.bbox.top + u.bbox.height;
+        for (const f of firings)
+          for (const t of f.at) {
+            const x = u.valToPos((t - shiftS) * 1000, "x", true);
+            ctx.beginPath();
+            ctx.moveTo(x, top);
+            ctx.lineTo(x, bottom);
+            ctx.stroke();
+            ctx.fillText(`${f.part} fires`, x + 3, top + 12 * devicePixelRatio);
+          }
+        ctx.restore();
+      },
+    },
+  };
 }
 
-/** Series shown before the person picks: the plug's current and the supply voltage. */
-const FIRST_SHOWN = /^(input|supply)\./;
-const DEFAULT_SHOWN_COUNT = 2;
-
-/** The series of result.waveforms, as chosen with the checkboxes above them, or "not computed". */
-export function WaveformPlots({ waveforms }: { waveforms: unknown }) {
+/** The waveform chart with its trace picker, or "not computed". */
+export function WaveformPlots({ result }: { result: Record<string, unknown> }) {
+  const w = obj(result.waveforms);
+  const hz = finite(obj(result.supply).hz) ?? 0;
   const [picked, setPicked] = useState<string[] | null>(null);
-  const w = obj(waveforms);
-  const t = arr(w.t).map(finite);
-  const series = Object.entries(obj(w.series))
-    .map(([name, values]) => [name, arr(values).map(finite)] as const)
-    .filter(([, v]) => v.length > 1 && v.every((x) => x !== null));
-  if (t.length < 2 || t.some((x) => x === null) || series.length === 0)
+  const { t, series } = useMemo(() => {
+    const tt = arr(w.t).map(finite);
+    const ss = Object.entries(obj(w.series))
+      .map(([name, values]) => [name, arr(values).map(finite)] as const)
+      .filter(([, v]) => v.length === tt.length && v.every((x) => x !== null)) as [
+      string,
+      number[],
+    ][];
+    return { t: tt.every((x) => x !== null) ? (tt as number[]) : [], series: ss };
+  }, [w.t, w.series]);
+  const names = series.map(([n]) => n);
+  const shown = picked ?? names.filter((n) => FIRST_SHOWN.includes(n));
+  const supply = series.find(([n]) => n === "supply.voltage")?.[1] ?? NO_SAMPLES;
+  const firings: Firing[] = useMemo(
+    () =>
+      arr(result.triggers)
+        .map(obj)
+        .filter((g) => g.fires === true)
+        .map((g) => ({
+          part: str(g.part) ?? "?",
+          at: firingInstants(t, supply, hz, finite(g.angle_deg), finite(g.angle_negative_deg)),
+        })),
+    [result.triggers, t, supply, hz],
+  );
+  const chosen = series.filter(([n]) => shown.includes(n));
+  const { options, data } = useMemo(() => {
+    const units = [...new Set(chosen.map(([n]) => seriesUnit(n)))];
+    const opts: Omit<uPlot.Options, "width" | "height"> = {
+      scales: { x: { time: false } },
+      legend: { live: true },
+      cursor: { drag: { x: true, y: false } },
+      series: [
+        { label: "time (ms)", value: (_u, v) => (v == null ? "" : `${v.toFixed(2)} ms`) },
+        ...chosen.map(([n]) => ({
+          label: seriesLabel(n),
+          scale: seriesUnit(n),
+          stroke: COLOURS[names.indexOf(n) % COLOURS.length]!,
+          width: 1.5,
+          value: (_u: uPlot, v: number | null) => (v == null ? "" : si(v, seriesUnit(n))),
+        })),
+      ],
+      axes: [
+        { label: "time in the steady window (ms)" },
+        ...units.slice(0, 2).map((unit, i) => ({
+          scale: unit,
+          side: i === 0 ? 3 : 1,
+          label: unit === "V" ? "volts" : unit === "A" ? "amperes" : "watts",
+          grid: { show: i === 0 },
+          size: 64,
+          values: (_u: uPlot, ticks: number[]) => ticks.map((v) => si(v, unit, 3)),
+        })),
+      ],
+      plugins: [firingHook(firings, t[0] ?? 0)],
+    };
+    const d: uPlot.AlignedData = [
+      t.map((x) => (x - (t[0] ?? 0)) * 1000),
+      ...chosen.map(([, v]) => v),
+    ];
+    return { options: opts, data: d };
+    // chosen is derived from shown and series
+  }, [shown.join("|"), series, firings, t]);
+
+  if (t.length < 2 || series.length === 0)
     return <p className={css.missing}>Waveforms not computed.</p>;
-  series.sort(
-    ([a], [b]) => Number(!FIRST_SHOWN.test(a)) - Number(!FIRST_SHOWN.test(b)) || a.localeCompare(b),
-  );
-  const names = series.map(([name]) => name);
-  const defaults = names.filter((n) => FIRST_SHOWN.test(n));
-  const shown = new Set(
-    picked ?? (defaults.length > 0 ? defaults : names.slice(0, DEFAULT_SHOWN_COUNT)),
-  );
+  const cycles = cyclesSpanned(t, hz);
   const toggle = (name: string) =>
-    setPicked(names.filter((n) => (n === name ? !shown.has(n) : shown.has(n))));
+    setPicked(shown.includes(name) ? shown.filter((n) => n !== name) : [...shown, name]);
   return (
     <div data-testid="waveforms">
-      <div className={css.row} role="group" aria-label="series to plot">
+      <p className={css.meta} data-testid="waveform-window">
+        Steady window of {si(t[t.length - 1]! - t[0]! + (t[1]! - t[0]!), "s")}
+        {cycles !== null ? `: ${cycles} mains cycle${cycles === 1 ? "" : "s"} at ${hz} Hz` : ""}
+        {firings.length > 0
+          ? ` · dashed lines: ${firings.map((f) => `${f.part} firing`).join(", ")}`
+          : ""}
+      </p>
+      <fieldset className={css.picker} aria-label="traces to plot">
         {names.map((name) => (
-          <label key={name} className={css.meta}>
-            <input type="checkbox" checked={shown.has(name)} onChange={() => toggle(name)} /> {name}
+          <label key={name}>
+            <input type="checkbox" checked={shown.includes(name)} onChange={() => toggle(name)} />{" "}
+            {seriesLabel(name)}
           </label>
         ))}
-      </div>
-      {series
-        .filter(([name]) => shown.has(name))
-        .map(([name, values]) => (
-          <Plot
-            key={name}
-            name={name}
-            t={t as number[]}
-            y={values as number[]}
-            colour={COLOURS[names.indexOf(name) % COLOURS.length]!}
-          />
-        ))}
+      </fieldset>
+      {chosen.length === 0 ? (
+        <p className="muted">Pick a trace to plot.</p>
+      ) : (
+        <UPlotChart
+          options={options}
+          data={data}
+          height={PLOT_HEIGHT_PX}
+          label={`waveforms: ${chosen.map(([n]) => seriesLabel(n)).join(", ")}`}
+          testId="waveform-chart"
+        />
+      )}
     </div>
   );
 }
