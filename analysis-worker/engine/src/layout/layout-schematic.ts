@@ -30,6 +30,7 @@ import type {
 } from "./layout-types.js";
 import { BRIDGE_SIZE_PX, expandBridge } from "./bridge-block.js";
 import { junctionDots } from "./junction-dots.js";
+import { mergeNetSections } from "./merge-wires.js";
 import { labelSize } from "./text-size.js";
 
 const DEFAULT_NODE_SPACING_PX = 30;
@@ -213,6 +214,21 @@ function assemble(
     list.push(...placed.edges.get(edge.id)!);
     sectionsByNet.set(edge.net, list);
   }
+  // A bridge's ports only join its leads to the outside wires; its diodes' pins are the pins.
+  const allPins = [
+    ...graph.nodes
+      .filter((n) => n.origin.type !== "bridge")
+      .flatMap((n) => pinsOf(n, placed.nodes.get(n.id)!)),
+    ...bridgeParts.flatMap((b) => b.part.pins),
+  ];
+  for (const [net, sections] of sectionsByNet)
+    sectionsByNet.set(
+      net,
+      mergeNetSections(
+        sections,
+        allPins.filter((p) => p.net === net),
+      ),
+    );
   for (const sections of sectionsByNet.values()) for (const s of sections) space.addWire(s);
   const wires: PlacedWire[] = [...graph.netRoles.keys()]
     .filter((net) => sectionsByNet.has(net))
@@ -221,13 +237,6 @@ function assemble(
       role: graph.netRoles.get(net) ?? null,
       sections: sectionsByNet.get(net)!,
     }));
-  // A bridge's ports only join its leads to the outside wires; its diodes' pins are the pins.
-  const allPins = [
-    ...graph.nodes
-      .filter((n) => n.origin.type !== "bridge")
-      .flatMap((n) => pinsOf(n, placed.nodes.get(n.id)!)),
-    ...bridgeParts.flatMap((b) => b.part.pins),
-  ];
   const junctions = junctionDots(wires, allPins);
   for (const j of junctions) space.addSolid(dotBox(j));
   // Isolation boundaries go in before any label, so no label is placed across one.
