@@ -31,6 +31,7 @@ import type {
 import { BRIDGE_SIZE_PX, expandBridge } from "./bridge-block.js";
 import { junctionDots } from "./junction-dots.js";
 import { mergeNetSections } from "./merge-wires.js";
+import { RAIL_GAP_PX, railFor, runsOfSections, type RailEnd, type Run } from "./rail-routes.js";
 import { labelSize } from "./text-size.js";
 
 const DEFAULT_NODE_SPACING_PX = 30;
@@ -209,6 +210,8 @@ function assemble(
     for (const w of opened.wires)
       sectionsByNet.set(w.net, [...(sectionsByNet.get(w.net) ?? []), w.section]);
   }
+  // The bridge's own leads, kept apart so a rail that replaces ELK's route keeps them.
+  const leadsByNet = new Map([...sectionsByNet].map(([net, list]) => [net, [...list]]));
   for (const edge of graph.edges) {
     const list = sectionsByNet.get(edge.net) ?? [];
     list.push(...placed.edges.get(edge.id)!);
@@ -229,6 +232,7 @@ function assemble(
         allPins.filter((p) => p.net === net),
       ),
     );
+  drawRails(graph, placed, sectionsByNet, leadsByNet, allPins);
   for (const sections of sectionsByNet.values()) for (const s of sections) space.addWire(s);
   const wires: PlacedWire[] = [...graph.netRoles.keys()]
     .filter((net) => sectionsByNet.has(net))
@@ -344,6 +348,65 @@ function assemble(
   };
   if (isolated) body.barriers = barriers;
   return body;
+}
+
+/** Crossings between one net's runs and every other net's. */
+function crossingCount(net: string, runs: readonly Run[]): number {
+  let n = 0;
+  for (const a of runs) {
+    if (a.net !== net) continue;
+    for (const b of runs) {
+      if (b.net === net || b.horizontal === a.horizontal) continue;
+      const [h, v] = a.horizontal ? [a, b] : [b, a];
+      if (v.at > h.lo && v.at < h.hi && h.at > v.lo && h.at < v.hi) n += 1;
+    }
+  }
+  return n;
+}
+
+/**
+ * The neutral drawn as a straight return along the bottom, every part on it hanging down to
+ * it, wherever that is clean and crosses no more wires than ELK's route (see rail-routes.ts).
+ */
+function drawRails(
+  graph: LayoutGraph,
+  placed: PlacedGraph,
+  sectionsByNet: Map<string, WireSection[]>,
+  leadsByNet: ReadonlyMap<string, WireSection[]>,
+  pins: readonly PlacedPin[],
+): void {
+  const bottomNets = [...graph.netRoles].filter(([, r]) => r === "neutral").map(([n]) => n);
+  for (const net of bottomNets) {
+    const ends: RailEnd[] = [];
+    for (const node of graph.nodes) {
+      const at = placed.nodes.get(node.id)!;
+      for (const port of node.ports)
+        if (port.net === net) ends.push({ ...at.ports.get(port.id)!, side: port.side });
+    }
+    const runs = [...sectionsByNet].flatMap(([n, list]) => runsOfSections(n, list));
+    const others = runs.filter((r) => r.net !== net);
+    const bodies = graph.nodes.map((n) => boxOf(placed.nodes.get(n.id)!));
+    const bottom = boundsOf([
+      ...bodies,
+      ...others.map((r) =>
+        r.horizontal
+          ? { x: r.lo, y: r.at, width: r.hi - r.lo, height: 0 }
+          : { x: r.at, y: r.lo, width: 0, height: r.hi - r.lo },
+      ),
+    ]);
+    if (bottom === null) continue;
+    const railY = bottom.y + bottom.height + RAIL_GAP_PX;
+    const rail = railFor(net, ends, railY, { bodies, runs: others, pins });
+    if (rail === null || rail.crossings > crossingCount(net, runs)) continue;
+    const leads = leadsByNet.get(net) ?? [];
+    sectionsByNet.set(
+      net,
+      mergeNetSections(
+        [...leads, ...rail.sections],
+        pins.filter((p) => p.net === net),
+      ),
+    );
+  }
 }
 
 function shiftPoint(p: Point, dx: number, dy: number): Point {

@@ -66,7 +66,8 @@ function joinCollinear(runs: readonly Run[]): Run[] {
   return out;
 }
 
-const pointOn = (r: Run, t: number): Point => (r.horizontal ? { x: t, y: r.at } : { x: r.at, y: t });
+const pointOn = (r: Run, t: number): Point =>
+  r.horizontal ? { x: t, y: r.at } : { x: r.at, y: t };
 
 /**
  * The net's sections as a tree of polylines with no run drawn twice. `stops` are points a
