@@ -364,9 +364,14 @@ function crossingCount(net: string, runs: readonly Run[]): number {
   return n;
 }
 
+/** Nets with at least this many ends may be drawn as a straight bus to cut crossings. */
+const BUS_MIN_ENDS = 3;
+
 /**
- * The neutral drawn as a straight return along the bottom, every part on it hanging down to
- * it, wherever that is clean and crosses no more wires than ELK's route (see rail-routes.ts).
+ * Rails (rail-nets.ts): the neutral and rectifier returns as straight lines along the bottom,
+ * rectifier outputs along the top, every part on them hanging from them, wherever that is
+ * clean and crosses no more wires than ELK's route (see rail-routes.ts). Then the same for
+ * any other net of three or more ends, where it crosses strictly fewer.
  */
 function drawRails(
   graph: LayoutGraph,
@@ -375,8 +380,26 @@ function drawRails(
   leadsByNet: ReadonlyMap<string, WireSection[]>,
   pins: readonly PlacedPin[],
 ): void {
-  const bottomNets = [...graph.netRoles].filter(([, r]) => r === "neutral").map(([n]) => n);
-  for (const net of bottomNets) {
+  const rails = [
+    ...graph.rails.bottom.map((net) => ({ net, down: true })),
+    ...graph.rails.top.map((net) => ({ net, down: false })),
+  ].filter(({ net }) => graph.netRoles.has(net));
+  const named = new Set(rails.map((r) => r.net));
+  const portCount = new Map<string, number>();
+  for (const node of graph.nodes)
+    for (const port of node.ports) portCount.set(port.net, (portCount.get(port.net) ?? 0) + 1);
+  const tries = [
+    ...rails.map((r) => ({ ...r, strict: false })),
+    // Any other net with three or more ends becomes a straight bus above or below the
+    // drawing when that crosses strictly fewer wires than ELK's route.
+    ...[...portCount]
+      .filter(([net, n]) => n >= BUS_MIN_ENDS && !named.has(net))
+      .flatMap(([net]) => [
+        { net, down: true, strict: true },
+        { net, down: false, strict: true },
+      ]),
+  ];
+  for (const { net, down, strict } of tries) {
     const ends: RailEnd[] = [];
     for (const node of graph.nodes) {
       const at = placed.nodes.get(node.id)!;
@@ -386,7 +409,7 @@ function drawRails(
     const runs = [...sectionsByNet].flatMap(([n, list]) => runsOfSections(n, list));
     const others = runs.filter((r) => r.net !== net);
     const bodies = graph.nodes.map((n) => boxOf(placed.nodes.get(n.id)!));
-    const bottom = boundsOf([
+    const extent = boundsOf([
       ...bodies,
       ...others.map((r) =>
         r.horizontal
@@ -394,10 +417,11 @@ function drawRails(
           : { x: r.at, y: r.lo, width: 0, height: r.hi - r.lo },
       ),
     ]);
-    if (bottom === null) continue;
-    const railY = bottom.y + bottom.height + RAIL_GAP_PX;
+    if (extent === null) continue;
+    const railY = down ? extent.y + extent.height + RAIL_GAP_PX : extent.y - RAIL_GAP_PX;
     const rail = railFor(net, ends, railY, { bodies, runs: others, pins });
-    if (rail === null || rail.crossings > crossingCount(net, runs)) continue;
+    const before = crossingCount(net, runs);
+    if (rail === null || rail.crossings > before || (strict && rail.crossings === before)) continue;
     const leads = leadsByNet.get(net) ?? [];
     sectionsByNet.set(
       net,

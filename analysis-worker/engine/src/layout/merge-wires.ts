@@ -102,15 +102,18 @@ export function mergeNetSections(
     const ka = keyOf(a);
     const kb = keyOf(b);
     if (ka === kb) return;
-    points.set(ka, a);
-    points.set(kb, b);
+    if (!points.has(ka)) points.set(ka, a);
+    if (!points.has(kb)) points.set(kb, b);
     if (!adjacent.has(ka)) adjacent.set(ka, new Set());
     if (!adjacent.has(kb)) adjacent.set(kb, new Set());
     adjacent.get(ka)!.add(kb);
     adjacent.get(kb)!.add(ka);
   };
   runs.forEach((r, i) => {
-    const ts = [...new Set(cuts[i]!.map((t) => Math.round(t * 100) / 100))].sort((a, b) => a - b);
+    // Exact coordinates are kept (a rounded one would leave a hair-thin slant at the joint).
+    const ts: number[] = [];
+    for (const t of [...cuts[i]!].sort((a, b) => a - b))
+      if (ts.length === 0 || t - ts[ts.length - 1]! >= EPS) ts.push(t);
     for (let k = 1; k < ts.length; k++) link(pointOn(r, ts[k - 1]!), pointOn(r, ts[k]!));
   });
   const stopKeys = new Set(stops.map(keyOf));

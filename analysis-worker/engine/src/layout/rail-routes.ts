@@ -21,6 +21,8 @@ const STUB_PX = 10;
 /** Step and reach of the search for a clear channel beside a pin. */
 const CHANNEL_STEP_PX = 2.5;
 const CHANNEL_REACH_PX = 300;
+/** Once a clean channel is found, how much further the search goes for one crossing less. */
+const CHANNEL_LOOK_FURTHER_PX = 40;
 const EPS = 0.01;
 
 /** A straight piece of some net's wire, horizontal along y = at or vertical along x = at. */
@@ -156,33 +158,13 @@ function leadTo(
   obstacles: RailObstacles,
 ): { points: Point[]; crossings: number } | null {
   const toward: Side = railY > end.y ? "SOUTH" : "NORTH";
-  const candidates: Point[][] = [];
-  if (end.side === toward) candidates.push([end, { x: end.x, y: railY }]);
   const step = STEP[end.side];
   const out = { x: end.x + step.x * STUB_PX, y: end.y + step.y * STUB_PX };
-  for (let d = 0; d <= CHANNEL_REACH_PX; d += CHANNEL_STEP_PX) {
-    // Sideways pins look for their channel in the direction they face; up- or down-facing ones
-    // on either side.
-    const xs =
-      end.side === "EAST"
-        ? [out.x + d]
-        : end.side === "WEST"
-          ? [out.x - d]
-          : d === 0
-            ? []
-            : [end.x + d, end.x - d];
-    for (const x of xs) {
-      const path =
-        end.side === "EAST" || end.side === "WEST"
-          ? [end, { x, y: end.y }, { x, y: railY }]
-          : [end, out, { x, y: out.y }, { x, y: railY }];
-      candidates.push(path);
-    }
-  }
-  let best: { points: Point[]; crossings: number; length: number } | null = null;
-  for (const points of candidates) {
+  let best = null as { points: Point[]; crossings: number; length: number } | null;
+  let foundAt = Infinity;
+  const consider = (points: Point[]): void => {
     const crossings = scorePath(net, points, obstacles);
-    if (crossings === null) continue;
+    if (crossings === null) return;
     let length = 0;
     for (let i = 1; i < points.length; i++)
       length +=
@@ -193,8 +175,30 @@ function leadTo(
       (crossings === best.crossings && length < best.length)
     )
       best = { points, crossings, length };
-    // Candidates come nearest first: once a clean lead with no crossing is found, stop.
-    if (best.crossings === 0) break;
+  };
+  if (end.side === toward) consider([end, { x: end.x, y: railY }]);
+  if (best !== null && best.crossings === 0) return best;
+  for (let d = 0; d <= CHANNEL_REACH_PX; d += CHANNEL_STEP_PX) {
+    // Past the first clean channel, look only a little further for one that crosses less.
+    if (d > foundAt + CHANNEL_LOOK_FURTHER_PX) break;
+    // Sideways pins look for their channel in the direction they face; up- or down-facing ones
+    // on either side.
+    const xs =
+      end.side === "EAST"
+        ? [out.x + d]
+        : end.side === "WEST"
+          ? [out.x - d]
+          : d === 0
+            ? []
+            : [end.x + d, end.x - d];
+    for (const x of xs)
+      consider(
+        end.side === "EAST" || end.side === "WEST"
+          ? [end, { x, y: end.y }, { x, y: railY }]
+          : [end, out, { x, y: out.y }, { x, y: railY }],
+      );
+    if (best !== null && foundAt === Infinity) foundAt = d;
+    if (best !== null && best.crossings === 0) break;
   }
   return best === null ? null : { points: best.points, crossings: best.crossings };
 }
