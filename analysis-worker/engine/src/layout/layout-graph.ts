@@ -10,6 +10,7 @@ import { bridgePorts, BRIDGE_SIZE_PX, findBridges, type BridgeMatch } from "./br
 import { rotateSymbol, rotationFor, symbolFor } from "./symbol-table.js";
 import { isolationSides, type IsolationSide } from "./isolation-sides.js";
 import { labelSize } from "./text-size.js";
+import { dividerPorts, dividerSize, findDividers, type DividerMatch } from "./divider-block.js";
 import { railNets, type RailNets } from "./rail-nets.js";
 
 /** Vertical pitch of the ports on a terminal. */
@@ -43,7 +44,8 @@ export interface GraphLabel {
 export type NodeOrigin =
   | { type: "part"; part: Part; symbol: SymbolName; rotation: Rotation }
   | { type: "terminal"; kind: "supply" | "output" }
-  | { type: "bridge"; bridge: BridgeMatch };
+  | { type: "bridge"; bridge: BridgeMatch }
+  | { type: "divider"; divider: DividerMatch };
 
 /** A box to place: a part, a terminal or a bridge rectifier drawn as one diamond. */
 export interface GraphNode {
@@ -170,6 +172,27 @@ function partNode(
   };
 }
 
+/** A divider as one box: its two resistors in a column, the tap leaving east. */
+function dividerNode(id: string, divider: DividerMatch): GraphNode {
+  return {
+    id,
+    ...dividerSize(divider),
+    layer: "free",
+    partition: null,
+    ports: dividerPorts(divider).map((p) => ({
+      id: `${id}.${p.key}`,
+      net: p.net,
+      role: p.key,
+      side: p.side,
+      x: p.x,
+      y: p.y,
+    })),
+    labels: [],
+    labelSide: "NORTH",
+    origin: { type: "divider", divider },
+  };
+}
+
 /** A bridge rectifier as one square box with its four corner ports. */
 function bridgeNode(id: string, bridge: BridgeMatch): GraphNode {
   return {
@@ -290,10 +313,19 @@ export function buildLayoutGraph(record: TeardownRecord): LayoutGraph {
   const inBridge = new Set(
     bridges.flatMap((b) => [b.topLeft, b.topRight, b.bottomLeft, b.bottomRight]),
   );
+  // Dividers (the engine's block finder's) as upright pairs, their tap leaving east.
+  const dividers = findDividers(
+    record,
+    new Set(rails.bottom),
+    new Set([...inBridge].map((p) => p.ref)),
+  );
+  const inDivider = new Set(dividers.flatMap((d) => [d.upper.ref, d.lower.ref]));
   parts.forEach((part, i) => {
-    if (!inBridge.has(part)) nodes.push(partNode(`p${i}`, part, downNets, upNets));
+    if (!inBridge.has(part) && !inDivider.has(part.ref))
+      nodes.push(partNode(`p${i}`, part, downNets, upNets));
   });
   bridges.forEach((bridge, i) => nodes.push(bridgeNode(`b${i}`, bridge)));
+  dividers.forEach((divider, i) => nodes.push(dividerNode(`v${i}`, divider)));
 
   const endpointsByNet = new Map<string, Endpoint[]>(netNames.map((n) => [n, []]));
   for (const node of nodes)
@@ -328,7 +360,9 @@ export function buildLayoutGraph(record: TeardownRecord): LayoutGraph {
             : 2
           : o.type === "part"
             ? sides.get(o.part.ref)!
-            : sides.get(o.bridge.topLeft.ref)!;
+            : o.type === "bridge"
+              ? sides.get(o.bridge.topLeft.ref)!
+              : sides.get(o.divider.upper.ref)!;
       // A load left of the transformer cannot be in the last column.
       if (o.type === "part" && node.layer === "last" && node.partition !== 2) node.layer = "free";
     }

@@ -29,6 +29,7 @@ import type {
   WireSection,
 } from "./layout-types.js";
 import { BRIDGE_SIZE_PX, expandBridge } from "./bridge-block.js";
+import { expandDivider } from "./divider-block.js";
 import { junctionDots } from "./junction-dots.js";
 import { mergeNetSections } from "./merge-wires.js";
 import { RAIL_GAP_PX, railFor, runsOfSections, type RailEnd, type Run } from "./rail-routes.js";
@@ -196,8 +197,21 @@ function assemble(
 
   // Bridges open up into four diagonal diodes and the leads from their corners to the ports.
   const bridgeParts: { node: GraphNode; part: Omit<PlacedPart, "labels"> }[] = [];
+  const blockParts: PlacedPart[] = [];
   for (const node of graph.nodes) {
     const at = placed.nodes.get(node.id)!;
+    if (node.origin.type === "divider") {
+      // A divider's resistors come with their labels already placed inside its box.
+      const opened = expandDivider(node.origin.divider, at);
+      for (const part of opened.parts) {
+        space.addSolid(boxOf(part));
+        for (const l of part.labels) space.addSolid(boxOf(l));
+        blockParts.push(part);
+      }
+      for (const w of opened.wires)
+        sectionsByNet.set(w.net, [...(sectionsByNet.get(w.net) ?? []), w.section]);
+      continue;
+    }
     if (node.origin.type !== "bridge") {
       space.addSolid(boxOf(at));
       continue;
@@ -220,9 +234,10 @@ function assemble(
   // A bridge's ports only join its leads to the outside wires; its diodes' pins are the pins.
   const allPins = [
     ...graph.nodes
-      .filter((n) => n.origin.type !== "bridge")
+      .filter((n) => n.origin.type !== "bridge" && n.origin.type !== "divider")
       .flatMap((n) => pinsOf(n, placed.nodes.get(n.id)!)),
     ...bridgeParts.flatMap((b) => b.part.pins),
+    ...blockParts.flatMap((p) => p.pins),
   ];
   for (const [net, sections] of sectionsByNet)
     sectionsByNet.set(
@@ -311,6 +326,7 @@ function assemble(
     });
     parts.push({ ...part, labels });
   }
+  parts.push(...blockParts);
   parts.sort((a, b) => (a.ref < b.ref ? -1 : a.ref > b.ref ? 1 : 0));
 
   const netLabels: PlacedNetLabel[] = [];
