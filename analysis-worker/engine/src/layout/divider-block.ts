@@ -7,8 +7,9 @@
  * The box: the two resistors stand in a column near its left edge, their labels to their
  * right inside the box (so nothing ELK places can crowd them); the upper net's lead leaves the
  * top resistor upward and turns to a west port at the box's top corner, the lower net's lead
- * leaves the bottom resistor downward and turns to a west port at the bottom corner, and the
- * tap leads east to a port on the right edge.
+ * leaves the bottom resistor downward and turns to a west port at the bottom corner (or, when
+ * it is a bottom rail, goes straight down to a port below the column), and the tap leads east
+ * to a port on the right edge.
  */
 import { findBlocks } from "../blocks/find-blocks.js";
 import type { Part, TeardownRecord } from "../record/types.js";
@@ -34,6 +35,8 @@ export interface DividerMatch {
   top: string;
   tap: string;
   bottom: string;
+  /** The bottom net is a bottom rail: its lead leaves straight down, to drop onto the rail. */
+  bottomDown: boolean;
 }
 
 const otherPin = (p: Part, net: string): string =>
@@ -69,7 +72,7 @@ export function findDividers(
     if (top === tap || bottom === tap || top === bottom) continue;
     used.add(a.ref);
     used.add(b.ref);
-    out.push({ upper, lower, top, tap, bottom });
+    out.push({ upper, lower, top, tap, bottom, bottomDown: downNets.has(bottom) });
   }
   return out;
 }
@@ -98,7 +101,9 @@ export function dividerPorts(
   return [
     { key: "top", net: m.top, side: "WEST", x: 0, y: 0 },
     { key: "tap", net: m.tap, side: "EAST", x: width, y: height / 2 },
-    { key: "bottom", net: m.bottom, side: "WEST", x: 0, y: height },
+    m.bottomDown
+      ? { key: "bottom", net: m.bottom, side: "SOUTH", x: COLUMN_X_PX, y: height }
+      : { key: "bottom", net: m.bottom, side: "WEST", x: 0, y: height },
   ];
 }
 
@@ -150,7 +155,12 @@ export function expandDivider(
     { net: m.top, section: { start: at(cx, y0), end: at(0, 0), bends: [at(cx, 0)] } },
     { net: m.tap, section: { start: at(cx, y1), end: at(cx, y2), bends: [] } },
     { net: m.tap, section: { start: at(cx, tapY), end: at(width, tapY), bends: [] } },
-    { net: m.bottom, section: { start: at(cx, y3), end: at(0, height), bends: [at(cx, height)] } },
+    m.bottomDown
+      ? { net: m.bottom, section: { start: at(cx, y3), end: at(cx, height), bends: [] } }
+      : {
+          net: m.bottom,
+          section: { start: at(cx, y3), end: at(0, height), bends: [at(cx, height)] },
+        },
   ];
   return { parts, wires };
 }
