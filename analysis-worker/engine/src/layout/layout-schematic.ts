@@ -29,7 +29,10 @@ import type {
   WireSection,
 } from "./layout-types.js";
 import { BRIDGE_SIZE_PX, expandBridge } from "./bridge-block.js";
+import { expandDivider } from "./divider-block.js";
 import { junctionDots } from "./junction-dots.js";
+import { mergeNetSections } from "./merge-wires.js";
+import { RAIL_GAP_PX, railFor, runsOfSections, type RailEnd, type Run } from "./rail-routes.js";
 import { labelSize } from "./text-size.js";
 
 const DEFAULT_NODE_SPACING_PX = 30;
@@ -194,8 +197,21 @@ function assemble(
 
   // Bridges open up into four diagonal diodes and the leads from their corners to the ports.
   const bridgeParts: { node: GraphNode; part: Omit<PlacedPart, "labels"> }[] = [];
+  const blockParts: PlacedPart[] = [];
   for (const node of graph.nodes) {
     const at = placed.nodes.get(node.id)!;
+    if (node.origin.type === "divider") {
+      // A divider's resistors come with their labels already placed inside its box.
+      const opened = expandDivider(node.origin.divider, at);
+      for (const part of opened.parts) {
+        space.addSolid(boxOf(part));
+        for (const l of part.labels) space.addSolid(boxOf(l));
+        blockParts.push(part);
+      }
+      for (const w of opened.wires)
+        sectionsByNet.set(w.net, [...(sectionsByNet.get(w.net) ?? []), w.section]);
+      continue;
+    }
     if (node.origin.type !== "bridge") {
       space.addSolid(boxOf(at));
       continue;
@@ -208,11 +224,30 @@ function assemble(
     for (const w of opened.wires)
       sectionsByNet.set(w.net, [...(sectionsByNet.get(w.net) ?? []), w.section]);
   }
+  // The bridge's own leads, kept apart so a rail that replaces ELK's route keeps them.
+  const leadsByNet = new Map([...sectionsByNet].map(([net, list]) => [net, [...list]]));
   for (const edge of graph.edges) {
     const list = sectionsByNet.get(edge.net) ?? [];
     list.push(...placed.edges.get(edge.id)!);
     sectionsByNet.set(edge.net, list);
   }
+  // A bridge's ports only join its leads to the outside wires; its diodes' pins are the pins.
+  const allPins = [
+    ...graph.nodes
+      .filter((n) => n.origin.type !== "bridge" && n.origin.type !== "divider")
+      .flatMap((n) => pinsOf(n, placed.nodes.get(n.id)!)),
+    ...bridgeParts.flatMap((b) => b.part.pins),
+    ...blockParts.flatMap((p) => p.pins),
+  ];
+  for (const [net, sections] of sectionsByNet)
+    sectionsByNet.set(
+      net,
+      mergeNetSections(
+        sections,
+        allPins.filter((p) => p.net === net),
+      ),
+    );
+  drawRails(graph, placed, sectionsByNet, leadsByNet, allPins);
   for (const sections of sectionsByNet.values()) for (const s of sections) space.addWire(s);
   const wires: PlacedWire[] = [...graph.netRoles.keys()]
     .filter((net) => sectionsByNet.has(net))
@@ -221,13 +256,6 @@ function assemble(
       role: graph.netRoles.get(net) ?? null,
       sections: sectionsByNet.get(net)!,
     }));
-  // A bridge's ports only join its leads to the outside wires; its diodes' pins are the pins.
-  const allPins = [
-    ...graph.nodes
-      .filter((n) => n.origin.type !== "bridge")
-      .flatMap((n) => pinsOf(n, placed.nodes.get(n.id)!)),
-    ...bridgeParts.flatMap((b) => b.part.pins),
-  ];
   const junctions = junctionDots(wires, allPins);
   for (const j of junctions) space.addSolid(dotBox(j));
   // Isolation boundaries go in before any label, so no label is placed across one.
@@ -298,6 +326,7 @@ function assemble(
     });
     parts.push({ ...part, labels });
   }
+  parts.push(...blockParts);
   parts.sort((a, b) => (a.ref < b.ref ? -1 : a.ref > b.ref ? 1 : 0));
 
   const netLabels: PlacedNetLabel[] = [];
@@ -335,6 +364,89 @@ function assemble(
   };
   if (isolated) body.barriers = barriers;
   return body;
+}
+
+/** Crossings between one net's runs and every other net's. */
+function crossingCount(net: string, runs: readonly Run[]): number {
+  let n = 0;
+  for (const a of runs) {
+    if (a.net !== net) continue;
+    for (const b of runs) {
+      if (b.net === net || b.horizontal === a.horizontal) continue;
+      const [h, v] = a.horizontal ? [a, b] : [b, a];
+      if (v.at > h.lo && v.at < h.hi && h.at > v.lo && h.at < v.hi) n += 1;
+    }
+  }
+  return n;
+}
+
+/** Nets with at least this many ends may be drawn as a straight bus to cut crossings. */
+const BUS_MIN_ENDS = 3;
+
+/**
+ * Rails (rail-nets.ts): the neutral and rectifier returns as straight lines along the bottom,
+ * rectifier outputs along the top, every part on them hanging from them, wherever that is
+ * clean and crosses no more wires than ELK's route (see rail-routes.ts). Then the same for
+ * any other net of three or more ends, where it crosses strictly fewer.
+ */
+function drawRails(
+  graph: LayoutGraph,
+  placed: PlacedGraph,
+  sectionsByNet: Map<string, WireSection[]>,
+  leadsByNet: ReadonlyMap<string, WireSection[]>,
+  pins: readonly PlacedPin[],
+): void {
+  const rails = [
+    ...graph.rails.bottom.map((net) => ({ net, down: true })),
+    ...graph.rails.top.map((net) => ({ net, down: false })),
+  ].filter(({ net }) => graph.netRoles.has(net));
+  const named = new Set(rails.map((r) => r.net));
+  const portCount = new Map<string, number>();
+  for (const node of graph.nodes)
+    for (const port of node.ports) portCount.set(port.net, (portCount.get(port.net) ?? 0) + 1);
+  const tries = [
+    ...rails.map((r) => ({ ...r, strict: false })),
+    // Any other net with three or more ends becomes a straight bus above or below the
+    // drawing when that crosses strictly fewer wires than ELK's route.
+    ...[...portCount]
+      .filter(([net, n]) => n >= BUS_MIN_ENDS && !named.has(net))
+      .flatMap(([net]) => [
+        { net, down: true, strict: true },
+        { net, down: false, strict: true },
+      ]),
+  ];
+  for (const { net, down, strict } of tries) {
+    const ends: RailEnd[] = [];
+    for (const node of graph.nodes) {
+      const at = placed.nodes.get(node.id)!;
+      for (const port of node.ports)
+        if (port.net === net) ends.push({ ...at.ports.get(port.id)!, side: port.side });
+    }
+    const runs = [...sectionsByNet].flatMap(([n, list]) => runsOfSections(n, list));
+    const others = runs.filter((r) => r.net !== net);
+    const bodies = graph.nodes.map((n) => boxOf(placed.nodes.get(n.id)!));
+    const extent = boundsOf([
+      ...bodies,
+      ...others.map((r) =>
+        r.horizontal
+          ? { x: r.lo, y: r.at, width: r.hi - r.lo, height: 0 }
+          : { x: r.at, y: r.lo, width: 0, height: r.hi - r.lo },
+      ),
+    ]);
+    if (extent === null) continue;
+    const railY = down ? extent.y + extent.height + RAIL_GAP_PX : extent.y - RAIL_GAP_PX;
+    const rail = railFor(net, ends, railY, { bodies, runs: others, pins });
+    const before = crossingCount(net, runs);
+    if (rail === null || rail.crossings > before || (strict && rail.crossings === before)) continue;
+    const leads = leadsByNet.get(net) ?? [];
+    sectionsByNet.set(
+      net,
+      mergeNetSections(
+        [...leads, ...rail.sections],
+        pins.filter((p) => p.net === net),
+      ),
+    );
+  }
 }
 
 function shiftPoint(p: Point, dx: number, dy: number): Point {

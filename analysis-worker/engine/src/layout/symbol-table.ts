@@ -203,19 +203,21 @@ export function rotateSymbol(geometry: SymbolGeometry, rotation: QuarterRotation
   };
 }
 
-/** Rotations tried in order; the first that puts every neutral pin at the bottom wins. */
+/** Rotations tried in order; the first that fits wins. */
 const ROTATION_PREFERENCE: readonly QuarterRotation[] = [0, 90, 270, 180];
 
 /**
- * The rotation that puts all of a part's pins on `neutralNets` on the SOUTH side, so the
- * return path leaves downward; 0 when none does (no neutral pin, or e.g. a transformer whose
- * two neutral pins share a side). Only fixed symbols turn: connectors and plain boxes keep
- * their text upright.
+ * The rotation that puts all of a part's pins on `downNets` (the neutral and the negative
+ * rails) on the SOUTH side and all its pins on `upNets` (the positive rails) on the NORTH
+ * side, so the part hangs between its rails; failing both, the one that brings the down pins
+ * down, then the one that brings the up pins up; 0 when none does. Only fixed symbols turn:
+ * connectors and plain boxes keep their text upright.
  */
 export function rotationFor(
   part: Part,
   geometry: SymbolGeometry,
-  neutralNets: ReadonlySet<string>,
+  downNets: ReadonlySet<string>,
+  upNets: ReadonlySet<string> = new Set(),
 ): QuarterRotation {
   if (
     geometry.symbol === "connector" ||
@@ -225,14 +227,18 @@ export function rotationFor(
     geometry.symbol === "transformer"
   )
     return 0;
-  const neutralRoles = geometry.pins
-    .filter((p) => neutralNets.has(part.pins[p.role]!))
-    .map((p) => p.role);
-  if (neutralRoles.length === 0) return 0;
-  for (const rotation of ROTATION_PREFERENCE) {
-    const turned = rotateSymbol(geometry, rotation);
-    if (turned.pins.every((p) => !neutralRoles.includes(p.role) || p.side === "SOUTH"))
-      return rotation;
-  }
+  const rolesOn = (nets: ReadonlySet<string>): string[] =>
+    geometry.pins.filter((p) => nets.has(part.pins[p.role]!)).map((p) => p.role);
+  const down = rolesOn(downNets);
+  const up = rolesOn(upNets).filter((r) => !down.includes(r));
+  if (down.length === 0 && up.length === 0) return 0;
+  const fits = (rotation: QuarterRotation, roles: string[], side: Side): boolean =>
+    rotateSymbol(geometry, rotation).pins.every((p) => !roles.includes(p.role) || p.side === side);
+  for (const test of [
+    (r: QuarterRotation) => fits(r, down, "SOUTH") && fits(r, up, "NORTH"),
+    (r: QuarterRotation) => down.length > 0 && fits(r, down, "SOUTH"),
+    (r: QuarterRotation) => up.length > 0 && fits(r, up, "NORTH"),
+  ])
+    for (const rotation of ROTATION_PREFERENCE) if (test(rotation)) return rotation;
   return 0;
 }

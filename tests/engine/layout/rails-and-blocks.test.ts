@@ -1,0 +1,116 @@
+/**
+ * The trade's drawing habits, checked on the finished geometry: the neutral as a straight
+ * return along the bottom with every part on it hanging down to it, and a voltage divider as
+ * an upright pair of resistors whose tap leaves sideways. Expectations are plain geometry read
+ * off the layout JSON, not the layout code's own helpers.
+ */
+import { readFileSync } from "node:fs";
+import path from "node:path";
+import { describe, expect, it } from "vitest";
+import {
+  layoutSchematic,
+  readCircuitFile,
+  type SchematicLayout,
+  type TeardownRecord,
+} from "@teardown/engine";
+import { projectRoot } from "@teardown/db";
+
+const RECORDS = path.join(projectRoot(), "seed-demo", "records");
+
+function demo(file: string): TeardownRecord {
+  const parsed = readCircuitFile(readFileSync(path.join(RECORDS, file), "utf8"), {
+    filename: file,
+  });
+  if (!parsed.ok) throw new Error(`${file}: ${parsed.errors[0]?.message}`);
+  return parsed.record;
+}
+
+async function laidOut(record: TeardownRecord): Promise<SchematicLayout> {
+  const out = await layoutSchematic(record);
+  if (!out.ok) throw new Error(out.message);
+  return out.layout;
+}
+
+const EPS = 0.01;
+
+/** Horizontal runs of one net as [y, x0, x1]. */
+function horizontalRuns(layout: SchematicLayout, net: string): [number, number, number][] {
+  const out: [number, number, number][] = [];
+  for (const w of layout.wires.filter((x) => x.net === net))
+    for (const s of w.sections) {
+      const pts = [s.start, ...s.bends, s.end];
+      for (let i = 1; i < pts.length; i++) {
+        const a = pts[i - 1]!;
+        const b = pts[i]!;
+        if (Math.abs(a.y - b.y) < EPS && Math.abs(a.x - b.x) > EPS)
+          out.push([a.y, Math.min(a.x, b.x), Math.max(a.x, b.x)]);
+      }
+    }
+  return out;
+}
+
+describe("the neutral is a straight return along the bottom", () => {
+  it.each(["dimmbo-lamp-dimmer.yaml", "breezel-desk-ionizer.yaml"])("%s", async (file) => {
+    const layout = await laidOut(demo(file));
+    const neutralPins = [...layout.parts, ...layout.terminals].flatMap((o) =>
+      o.pins.filter((p) => p.net === "N"),
+    );
+    expect(neutralPins.length).toBeGreaterThanOrEqual(3);
+    // The lowest horizontal line of the neutral is unbroken, lies below every part and spans
+    // every pin.
+    // (The rail is drawn in pieces between the points where the drops join it.)
+    const runs = horizontalRuns(layout, "N");
+    const y = Math.max(...runs.map((r) => r[0]));
+    const rail = runs.filter((r) => Math.abs(r[0] - y) < EPS).sort((a, b) => a[1] - b[1]);
+    for (let i = 1; i < rail.length; i++) expect(rail[i]![1]).toBeCloseTo(rail[i - 1]![2], 6);
+    const x0 = rail[0]![1];
+    const x1 = rail[rail.length - 1]![2];
+    for (const p of layout.parts) expect(p.y + p.height).toBeLessThan(y);
+    for (const pin of neutralPins) {
+      expect(pin.x).toBeGreaterThanOrEqual(x0 - 20);
+      expect(pin.x).toBeLessThanOrEqual(x1 + 20);
+    }
+    // In the dimmer nothing stands below a part on the neutral, so each down-facing neutral
+    // pin drops straight onto the rail: a vertical wire from the pin to it. (Where a part
+    // stands below, as C1 under the ionizer's divider, the lead steps aside instead.)
+    if (file !== "dimmbo-lamp-dimmer.yaml") return;
+    for (const part of layout.parts)
+      for (const pin of part.pins.filter((p) => p.net === "N" && p.side === "SOUTH")) {
+        const drops = layout.wires
+          .filter((w) => w.net === "N")
+          .flatMap((w) => w.sections)
+          .some((s) => {
+            const pts = [s.start, ...s.bends, s.end];
+            return pts.some(
+              (a, i) =>
+                i > 0 &&
+                Math.abs(a.x - pin.x) < EPS &&
+                Math.abs(pts[i - 1]!.x - pin.x) < EPS &&
+                Math.min(a.y, pts[i - 1]!.y) <= pin.y + EPS &&
+                Math.max(a.y, pts[i - 1]!.y) >= y - EPS,
+            );
+          });
+        expect(drops, `${part.ref} drops to the rail`).toBe(true);
+      }
+  });
+});
+
+describe("a voltage divider is an upright pair", () => {
+  it("breezel-desk-ionizer: R2 above R3 in one column, the tap leaving to the right", async () => {
+    const layout = await laidOut(demo("breezel-desk-ionizer.yaml"));
+    const r2 = layout.parts.find((p) => p.ref === "R2")!;
+    const r3 = layout.parts.find((p) => p.ref === "R3")!;
+    // Both stand upright (taller than wide), centred on one vertical line, one above the other.
+    for (const r of [r2, r3]) expect(r.height).toBeGreaterThan(r.width);
+    expect(r2.x + r2.width / 2).toBeCloseTo(r3.x + r3.width / 2, 6);
+    const [upper, lower] = r2.y < r3.y ? [r2, r3] : [r3, r2];
+    expect(upper.y + upper.height).toBeLessThan(lower.y);
+    // The tap joins the upper's bottom pin to the lower's top pin, and a wire of the tap runs
+    // right from the column.
+    const tap = upper.pins.find((p) => p.side === "SOUTH")!.net;
+    expect(lower.pins.find((p) => p.side === "NORTH")!.net).toBe(tap);
+    const cx = upper.x + upper.width / 2;
+    const right = horizontalRuns(layout, tap).some(([, x0, x1]) => x0 <= cx + EPS && x1 > cx + 20);
+    expect(right).toBe(true);
+  });
+});
