@@ -14,7 +14,7 @@ import { fingerprint } from "./fingerprint/wl-fingerprint.js";
 import { layoutSchematic } from "./layout/layout-schematic.js";
 import { ENGINE_VERSION } from "./engine-version.js";
 import { searchColumnsFor, type SearchColumns } from "./search-columns.js";
-import { analyzeCircuit } from "./solver/analyze-circuit.js";
+import { analyzeCircuit } from "./figures/analyze-circuit.js";
 import { selectStoredWaveforms } from "./stored-waveforms.js";
 import { assessRisks } from "./flags/assess-risks.js";
 import type { AnalysisResult } from "./analysis-result.js";

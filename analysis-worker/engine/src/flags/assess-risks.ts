@@ -5,7 +5,7 @@
  * under one shared budget, and a check that cannot finish is noted, never guessed.
  */
 import type { TeardownRecord } from "../record/types.js";
-import type { CircuitAnalysis } from "../solver/analyze-circuit.js";
+import type { CircuitAnalysis } from "../figures/analyze-circuit.js";
 import { compareMeasurements } from "../figures/measurement-comparisons.js";
 import { DEFAULT_TOLERANCE_SAMPLES, DEFAULT_TOLERANCE_SEED } from "../figures/tolerance-bands.js";
 import type { Flag, FlagSeverity, RiskAssessment, RiskOptions } from "./flag-types.js";
@@ -21,7 +21,8 @@ import { assume, riskContext } from "./risk-context.js";
 import { spacingFlags } from "./spacing-flags.js";
 import { fuseFlags, surgeFlags } from "./supply-protection.js";
 import { triggerFlags } from "./trigger-flags.js";
-import { riskBudget, solveVariant } from "./variant-solve.js";
+import { riskBudget } from "../solver/variants/budget.js";
+import { solveVariant } from "../figures/solved-variant.js";
 
 const SEVERITY_ORDER: Record<FlagSeverity, number> = { danger: 0, warning: 1, info: 2 };
 

@@ -4,8 +4,10 @@
  * checks chose where the record was silent.
  */
 import type { Assumption, Evidence } from "../record/gaps-and-assumptions.js";
-import type { MeasurementKind } from "../record/types.js";
+import type { Comparison } from "../figures/measurement-comparisons.js";
 import type { CitationId } from "./citations.js";
+
+export type { Comparison };
 
 /** Every flag code the assessment can raise. */
 export const FLAG_CODES = [
@@ -44,18 +46,6 @@ export interface Flag {
   source: string;
   /** One sentence: what the figure does not decide. */
   caution: string;
-}
-
-/** One measurement against its predicted band. */
-export interface Comparison {
-  /** Index of the measurement in the record. */
-  measurement: number;
-  what: MeasurementKind;
-  measured: number;
-  predicted: number;
-  low: number;
-  high: number;
-  verdict: "agrees" | "disagrees";
 }
 
 /** Options of the assessment. */

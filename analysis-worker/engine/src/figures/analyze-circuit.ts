@@ -1,31 +1,31 @@
 /**
- * Front doors of the circuit solver: `solveCircuit` (periodic steady state of a record at a
+ * The solved circuit with its figures: `solveCircuit` (periodic steady state of a record at a
  * supply) and `analyzeCircuit` (the record-format result fields the solver owns: supply, input,
  * parts, nets, triggers, waveforms, the linear view and the solver's own account).
+ * It sits in the figures stage because it turns the solver's steady states into figures; the
+ * solver itself (solver/) never reads figures.
  */
 import type { Assumption, Gap } from "../record/gaps-and-assumptions.js";
 import type { Supply, TeardownRecord } from "../record/types.js";
 import { ENGINE_VERSION } from "../engine-version.js";
-import type { CycleFigures, FiringFigures } from "../figures/circuit-figures.js";
-import { cycleFigures, firingFigures } from "../figures/circuit-figures.js";
-import type { AcSolution } from "./ac-phasor.js";
-import { solveAcCircuit, windingStartMem } from "./ac-phasor.js";
-import type { Circuit } from "./circuit-model.js";
-import { compileCircuit } from "./circuit-model.js";
-import { THERMAL_VOLTAGE_V } from "./device-models.js";
-import type { LuChoice } from "./mna.js";
-import { GMIN_SIEMENS } from "./mna.js";
-import { gateMargin, lowestFiringSupply } from "./min-firing-supply.js";
-import type { SteadyState } from "./periodic-steady-state.js";
-import { periodicSteadyState } from "./periodic-steady-state.js";
-import type { SolverOutcome } from "./solver-error.js";
-import type { Budget } from "./transient.js";
-import { MAX_NEWTON_ITERATIONS, TransientSolver } from "./transient.js";
+import type { AcSolution } from "../solver/ac-phasor.js";
+import { solveAcCircuit } from "../solver/ac-phasor.js";
+import { THERMAL_VOLTAGE_V } from "../solver/device-models.js";
+import type { LuChoice } from "../solver/mna.js";
+import { GMIN_SIEMENS } from "../solver/mna.js";
+import { gateMargin, lowestFiringSupply } from "../solver/min-firing-supply.js";
+import type { SolverOutcome } from "../solver/solver-error.js";
+import type { Budget } from "../solver/transient.js";
+import { analysisBudget } from "../solver/variants/budget.js";
+import type { SteadyRequest } from "../solver/variants/steady-variant.js";
+import { solveSteady } from "../solver/variants/steady-variant.js";
+import type { CycleFigures, FiringFigures } from "./circuit-figures.js";
+import { firingFigures } from "./circuit-figures.js";
+import type { SolvedCircuit } from "./solved-variant.js";
+import { withFigures } from "./solved-variant.js";
 
-/** Default time budget of one analysis (only enforced when a clock is passed). */
-export const DEFAULT_BUDGET_MS = 20_000;
-/** Step cap of one analysis, enforced with or without a clock. */
-export const MAX_STEPS_PER_ANALYSIS = 3_000_000;
+export type { SolvedCircuit };
+
 /** The lowest firing supply is bracketed to this many volts RMS. */
 export const MIN_SUPPLY_RESOLUTION_V = 0.5;
 /** The bisection's steady states only decide fires / does not fire: 100 times the usual tolerance (1e-3 of a state). */
@@ -43,14 +43,6 @@ export interface SolveOptions {
   maxNewtonIterations?: number;
   /** Bisect each trigger's lowest firing supply (default true). */
   minSupply?: boolean;
-}
-
-/** A solved circuit: compiled model, steady cycle and figures. */
-export interface SolvedCircuit {
-  circuit: Circuit;
-  steady: SteadyState;
-  figures: CycleFigures;
-  steps: number;
 }
 
 /** The record-format fields the solver owns. */
@@ -94,48 +86,12 @@ export interface CircuitAnalysis {
 }
 
 function budgetFrom(opts: SolveOptions): Budget {
-  const now = opts.now ?? null;
-  return {
-    now,
-    deadlineMs: now ? now() + (opts.budgetMs ?? DEFAULT_BUDGET_MS) : Infinity,
-    stepsLeft: MAX_STEPS_PER_ANALYSIS,
-  };
+  return analysisBudget(opts.now, opts.budgetMs);
 }
 
-function steadyAt(
-  rec: TeardownRecord,
-  supply: Supply,
-  opts: SolveOptions,
-  budget: Budget,
-  warm?: { mem: Float64Array; scale: number },
-  toleranceScale = 1,
-  maxCycles?: number,
-  jacobian?: Float64Array,
-) {
-  const compiled = compileCircuit(rec, supply);
-  if (!compiled.ok) return compiled;
-  const circuit = compiled.value;
-  const solver = new TransientSolver(circuit, {
-    lu: opts.lu ?? "sparse",
-    maxNewtonIterations: opts.maxNewtonIterations ?? MAX_NEWTON_ITERATIONS,
-  });
-  let start: Float64Array | undefined;
-  if (warm) {
-    start = warm.mem.map((v) => v * warm.scale);
-    for (const d of circuit.devices) if (d.type === "switching") start[d.mem] = warm.mem[d.mem]!;
-  } else if (circuit.devices.some((d) => d.type === "coupled")) {
-    // Windings start on their AC orbit, not at zero current (see windingStartMem).
-    const wound = windingStartMem(circuit, opts.lu ?? "sparse");
-    if (!wound.ok) return wound;
-    start = wound.value;
-  }
-  const steady = periodicSteadyState(solver, budget, start, {
-    toleranceScale,
-    maxCycles,
-    ...(jacobian ? { jacobian } : {}),
-  });
-  if (!steady.ok) return steady;
-  return { ok: true as const, value: { circuit, steady: steady.value, steps: solver.totalSteps } };
+/** The solver choices of the options, for every steady state of one analysis. */
+function solverChoices(opts: SolveOptions): Pick<SteadyRequest, "lu" | "maxNewtonIterations"> {
+  return { lu: opts.lu, maxNewtonIterations: opts.maxNewtonIterations };
 }
 
 function solveWith(
@@ -144,12 +100,8 @@ function solveWith(
   opts: SolveOptions,
   budget: Budget,
 ): SolverOutcome<SolvedCircuit> {
-  const r = steadyAt(rec, supply, opts, budget);
-  if (!r.ok) return r;
-  return {
-    ok: true,
-    value: { ...r.value, figures: cycleFigures(r.value.circuit, r.value.steady) },
-  };
+  const r = solveSteady(rec, { supply, ...solverChoices(opts) }, budget);
+  return r.ok ? { ok: true, value: withFigures(r.value) } : r;
 }
 
 /** Periodic steady state of a record at a supply (the rated supply by default), with its figures. */
@@ -216,15 +168,16 @@ export function analyzeCircuit(
           let near = solvedStarts[0]!;
           for (const s of solvedStarts)
             if (Math.abs(s.vrms - v) < Math.abs(near.vrms - v)) near = s;
-          const r = steadyAt(
+          const r = solveSteady(
             rec,
-            { vrms: v, hz: supply.hz },
-            opts,
+            {
+              supply: { vrms: v, hz: supply.hz },
+              warm: { mem: near.mem, scale: v / near.vrms, ...(jacobian ? { jacobian } : {}) },
+              toleranceScale: MIN_SUPPLY_TOLERANCE_SCALE,
+              maxCycles: MIN_SUPPLY_MAX_CYCLES,
+              ...solverChoices(opts),
+            },
             budget,
-            { mem: near.mem, scale: v / near.vrms },
-            MIN_SUPPLY_TOLERANCE_SCALE,
-            MIN_SUPPLY_MAX_CYCLES,
-            jacobian,
           );
           if (!r.ok) return r;
           jacobian = r.value.steady.jacobian ?? jacobian;
