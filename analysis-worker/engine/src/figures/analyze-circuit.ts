@@ -134,6 +134,147 @@ function firstGuess(rated: number, f: FiringFigures): number | undefined {
   return rated * Math.sin((latest * Math.PI) / 180);
 }
 
+/** The triggers of a solved circuit, each with its lowest firing supply when asked for. */
+interface TriggerSearch {
+  triggers: CircuitAnalysis["triggers"];
+  steps: number;
+  cycles: number;
+  /** Triggers whose lowest firing supply was not found, and why (a budget that ran out, a failed solve). */
+  unfinished: Gap[];
+}
+
+/**
+ * The lowest firing supply of one trigger: a bracket on the supply voltage, first probed around
+ * a guess from the firing angle, then narrowed by bisection steered by the gate margin; the
+ * answer fires in every half it fires in at the rated supply. Every trial starts from the
+ * nearest supply already solved (the nominal first), its state scaled by the amplitude ratio,
+ * and reuses the last one-cycle Jacobian, so it settles in a few cycles.
+ */
+function minSupplyOf(
+  rec: TeardownRecord,
+  solved: SolvedCircuit,
+  f: FiringFigures,
+  opts: SolveOptions,
+  budget: Budget,
+): SolverOutcome<{ vrms: number; steps: number; cycles: number }> {
+  const supply = solved.circuit.supply;
+  const solvedStarts = [{ vrms: supply.vrms, mem: solved.steady.startMem }];
+  let jacobian = solved.steady.jacobian;
+  let steps = 0;
+  let cycles = 0;
+  const found = lowestFiringSupply(
+    supply.vrms,
+    MIN_SUPPLY_RESOLUTION_V,
+    (v) => {
+      let near = solvedStarts[0]!;
+      for (const s of solvedStarts) if (Math.abs(s.vrms - v) < Math.abs(near.vrms - v)) near = s;
+      const r = solveSteady(
+        rec,
+        {
+          supply: { vrms: v, hz: supply.hz },
+          warm: { mem: near.mem, scale: v / near.vrms, ...(jacobian ? { jacobian } : {}) },
+          toleranceScale: MIN_SUPPLY_TOLERANCE_SCALE,
+          maxCycles: MIN_SUPPLY_MAX_CYCLES,
+          ...solverChoices(opts),
+        },
+        budget,
+      );
+      if (!r.ok) return r;
+      jacobian = r.value.steady.jacobian ?? jacobian;
+      solvedStarts.push({ vrms: v, mem: r.value.steady.startMem });
+      steps += r.value.steps;
+      cycles += r.value.steady.cycles;
+      const fires = coversHalves(
+        firingFigures(r.value.circuit, r.value.steady).find((g) => g.part === f.part),
+        f,
+      );
+      return {
+        ok: true,
+        value: {
+          fires,
+          margin: fires ? null : gateMargin(r.value.circuit, r.value.steady, f.part, f.halves),
+        },
+      };
+    },
+    firstGuess(supply.vrms, f),
+  );
+  return found.ok ? { ok: true, value: { vrms: found.value.vrms, steps, cycles } } : found;
+}
+
+/**
+ * The triggers of a solved circuit with their lowest firing supply. `strict`: a failed search
+ * fails the whole call (the one-call analysis); otherwise the trigger keeps a null lowest supply
+ * and the failure is returned as a gap, so the rest of the analysis is kept.
+ */
+function searchTriggers(
+  rec: TeardownRecord,
+  solved: SolvedCircuit,
+  opts: SolveOptions,
+  budget: Budget,
+  strict: boolean,
+): SolverOutcome<TriggerSearch> {
+  const out: TriggerSearch = { triggers: [], steps: 0, cycles: 0, unfinished: [] };
+  for (const f of solved.figures.firings) {
+    let minSupply: number | null = null;
+    if (f.fires && opts.minSupply !== false) {
+      const found = minSupplyOf(rec, solved, f, opts, budget);
+      if (found.ok) {
+        minSupply = found.value.vrms;
+        out.steps += found.value.steps;
+        out.cycles += found.value.cycles;
+      } else if (strict) return found;
+      else
+        out.unfinished.push({
+          part: f.part,
+          reason: `lowest firing supply not computed: ${found.error.message} (${found.error.code})`,
+        });
+    }
+    out.triggers.push({
+      part: f.part,
+      fires: f.fires,
+      angle_deg: f.angle_deg,
+      angle_negative_deg: f.angle_negative_deg,
+      min_supply_vrms: minSupply,
+    });
+  }
+  return { ok: true, value: out };
+}
+
+/** The record-format fields of a solved circuit, its linear view and its triggers. */
+function circuitAnalysis(
+  solved: SolvedCircuit,
+  linear: AcSolution,
+  search: TriggerSearch,
+): CircuitAnalysis {
+  const { circuit, steady, figures } = solved;
+  return {
+    engine: ENGINE_VERSION,
+    supply: circuit.supply,
+    input: figures.input,
+    parts: figures.parts,
+    nets: figures.nets,
+    triggers: search.triggers,
+    waveforms: figures.waveforms,
+    linear,
+    gaps: circuit.gaps,
+    assumptions: circuit.assumptions,
+    solver: {
+      method: steady.method,
+      cycles: steady.cycles + search.cycles,
+      steps: solved.steps + search.steps,
+      assumptions: [
+        `gmin ${GMIN_SIEMENS} S from every net to ${circuit.reference}`,
+        `junctions at 300 K (thermal voltage ${THERMAL_VOLTAGE_V} V)`,
+      ],
+      notes: circuit.notes,
+      kcl_residual_amps: figures.kclResidualAmps,
+      periodic_residual: steady.residual,
+      converged: steady.converged,
+      gmin_siemens: GMIN_SIEMENS,
+    },
+  };
+}
+
 /** Full analysis: AC linear view, periodic steady state, figures, triggers with their lowest firing supply. */
 export function analyzeCircuit(
   rec: TeardownRecord,
@@ -143,99 +284,47 @@ export function analyzeCircuit(
   const budget = budgetFrom(opts);
   const solved = solveWith(rec, supply, opts, budget);
   if (!solved.ok) return solved;
-  const { circuit, steady, figures } = solved.value;
-  const linear = solveAcCircuit(circuit, opts.lu ?? "sparse");
+  const linear = solveAcCircuit(solved.value.circuit, opts.lu ?? "sparse");
   if (!linear.ok) return linear;
-  let steps = solved.value.steps;
-  let cycles = steady.cycles;
-  const triggers: CircuitAnalysis["triggers"] = [];
-  for (const f of figures.firings) {
-    let minSupply: number | null = null;
-    if (f.fires && opts.minSupply !== false) {
-      // A bracket on the supply voltage, first probed around a guess from the firing angle,
-      // then narrowed by bisection steered by the gate margin: the answer fires in every half
-      // it fires in at the rated supply.
-      // Every solved supply's cycle-start state: each trial starts from the nearest one, scaled
-      // by the amplitude ratio, so the storage states start close to where they settle.
-      const solvedStarts = [{ vrms: supply.vrms, mem: steady.startMem }];
-      // The one-cycle map's Jacobian changes little with the supply: the last one found spares
-      // a trial that shoots its finite differences.
-      let jacobian = steady.jacobian;
-      const found = lowestFiringSupply(
-        supply.vrms,
-        MIN_SUPPLY_RESOLUTION_V,
-        (v) => {
-          let near = solvedStarts[0]!;
-          for (const s of solvedStarts)
-            if (Math.abs(s.vrms - v) < Math.abs(near.vrms - v)) near = s;
-          const r = solveSteady(
-            rec,
-            {
-              supply: { vrms: v, hz: supply.hz },
-              warm: { mem: near.mem, scale: v / near.vrms, ...(jacobian ? { jacobian } : {}) },
-              toleranceScale: MIN_SUPPLY_TOLERANCE_SCALE,
-              maxCycles: MIN_SUPPLY_MAX_CYCLES,
-              ...solverChoices(opts),
-            },
-            budget,
-          );
-          if (!r.ok) return r;
-          jacobian = r.value.steady.jacobian ?? jacobian;
-          solvedStarts.push({ vrms: v, mem: r.value.steady.startMem });
-          steps += r.value.steps;
-          cycles += r.value.steady.cycles;
-          const fires = coversHalves(
-            firingFigures(r.value.circuit, r.value.steady).find((g) => g.part === f.part),
-            f,
-          );
-          return {
-            ok: true,
-            value: {
-              fires,
-              margin: fires ? null : gateMargin(r.value.circuit, r.value.steady, f.part, f.halves),
-            },
-          };
-        },
-        firstGuess(supply.vrms, f),
-      );
-      if (!found.ok) return found;
-      minSupply = found.value.vrms;
-    }
-    triggers.push({
-      part: f.part,
-      fires: f.fires,
-      angle_deg: f.angle_deg,
-      angle_negative_deg: f.angle_negative_deg,
-      min_supply_vrms: minSupply,
-    });
-  }
+  const search = searchTriggers(rec, solved.value, opts, budget, true);
+  if (!search.ok) return search;
+  return { ok: true, value: circuitAnalysis(solved.value, linear.value, search.value) };
+}
+
+/** The staged analysis: the nominal part, and what the variants left unfinished. */
+export interface StagedCircuitAnalysis {
+  analysis: CircuitAnalysis;
+  /** The nominal solve, for the variants that start from it (bands, hints, unplug, plug-in). */
+  solved: SolvedCircuit;
+  /** What a variant could not finish within its budget, and why. */
+  unfinished: Gap[];
+}
+
+/**
+ * The analysis in two budgets: the cheap nominal part (steady state, figures, linear view)
+ * under `opts.budgetMs`, then the lowest-firing-supply searches under `variantBudget()`. A search
+ * that runs out of its budget leaves that trigger's lowest supply null and says why, instead of
+ * failing the whole analysis.
+ */
+export function analyzeCircuitStaged(
+  rec: TeardownRecord,
+  opts: SolveOptions,
+  /** Built once the nominal part is done, so the variants get what it left. */
+  variantBudget: () => Budget,
+): SolverOutcome<StagedCircuitAnalysis> {
+  const supply = opts.supply ?? rec.device.rated_supply;
+  const solved = solveWith(rec, supply, opts, budgetFrom(opts));
+  if (!solved.ok) return solved;
+  const linear = solveAcCircuit(solved.value.circuit, opts.lu ?? "sparse");
+  if (!linear.ok) return linear;
+  const search = searchTriggers(rec, solved.value, opts, variantBudget(), false);
+  if (!search.ok) return search;
   return {
     ok: true,
     value: {
-      engine: ENGINE_VERSION,
-      supply,
-      input: figures.input,
-      parts: figures.parts,
-      nets: figures.nets,
-      triggers,
-      waveforms: figures.waveforms,
-      linear: linear.value,
-      gaps: circuit.gaps,
-      assumptions: circuit.assumptions,
-      solver: {
-        method: steady.method,
-        cycles,
-        steps,
-        assumptions: [
-          `gmin ${GMIN_SIEMENS} S from every net to ${circuit.reference}`,
-          `junctions at 300 K (thermal voltage ${THERMAL_VOLTAGE_V} V)`,
-        ],
-        notes: circuit.notes,
-        kcl_residual_amps: figures.kclResidualAmps,
-        periodic_residual: steady.residual,
-        converged: steady.converged,
-        gmin_siemens: GMIN_SIEMENS,
-      },
+      analysis: circuitAnalysis(solved.value, linear.value, search.value),
+      solved: solved.value,
+      unfinished: search.value.unfinished,
     },
   };
 }

@@ -3,7 +3,8 @@
  * stands on and a caution), the measured-versus-predicted comparisons, and the defaults the
  * checks chose where the record was silent.
  */
-import type { Assumption, Evidence } from "../record/gaps-and-assumptions.js";
+import type { Assumption, Evidence, Gap } from "../record/gaps-and-assumptions.js";
+import type { SolvedCircuit } from "../figures/solved-variant.js";
 import type { Comparison } from "../figures/measurement-comparisons.js";
 import type { CitationId } from "./citations.js";
 
@@ -58,6 +59,8 @@ export interface RiskOptions {
   now?: () => number;
   /** Time budget of the whole assessment, in milliseconds (only enforced with a clock). */
   budgetMs?: number;
+  /** The nominal solve at the analysed supply, when the caller has it (spares a re-solve). */
+  nominal?: SolvedCircuit;
 }
 
 /** The assessment: flags, comparisons, the defaults it assumed, and notes on checks it could not run. */
@@ -68,6 +71,8 @@ export interface RiskAssessment {
   assumptions: Assumption[];
   /** Checks that were skipped or did not apply, and why. */
   notes: string[];
+  /** What the variants could not finish within the budget (a band cut short), and why. */
+  unfinished: Gap[];
 }
 
 /** The caution every mains flag carries unless a more specific one applies. */
