@@ -63,6 +63,7 @@ export default tseslint.config(
       "db/migrations/**",
       "**/*.d.ts",
       "analysis-worker/engine/schema/**",
+      "tests/bench/.legacy-engine/**",
     ],
   },
   js.configs.recommended,
