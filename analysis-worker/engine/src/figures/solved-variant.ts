@@ -24,9 +24,20 @@ export const SAMPLE_TOLERANCE_SCALE = 10;
 /** Cycle cap of a Monte Carlo sample: a firing pattern not settled by then is taken over its nearest-repeating window. */
 export const SAMPLE_MAX_CYCLES = 100;
 
-/** The steady circuit with the figures of its steady cycle. */
+/**
+ * The steady circuit with the figures of its steady cycle, computed on first read: a tolerance
+ * sample or a sensitivity that reads one net's voltage never pays for the line-current FFT,
+ * every part's figures and the waveforms.
+ */
 export function withFigures(s: SteadyCircuit): SolvedCircuit {
-  return { ...s, figures: cycleFigures(s.circuit, s.steady) };
+  let figures: CycleFigures | undefined;
+  return {
+    ...s,
+    get figures(): CycleFigures {
+      figures ??= cycleFigures(s.circuit, s.steady);
+      return figures;
+    },
+  };
 }
 
 /** The steady state of a request, with its figures. */
