@@ -6,7 +6,9 @@
 //
 // The stages the order does not name sit where their imports put them: `import/` (reading other
 // file formats into a record) beside graph, `fingerprint/` and `layout/` beside blocks, and the
-// engine's top-level files (analyze.ts, the stored-result shapes, index.ts) in `analyze`.
+// engine's top-level files (analyze.ts, the stored-result shapes) in `analyze`, and `what-if/`
+// (a whole analysis re-run at another supply or with changed values) after `analyze`. `index.ts`
+// is the front door and re-exports every stage.
 // `engine-version.ts` holds one constant that every stage may stamp on its output.
 // One choice the order leaves open: reading a record parses its value notation and checks its
 // part kinds, so `record/` may use `values/` and the kind table `graph/kinds.ts`; nothing else
@@ -26,6 +28,7 @@ export const STAGE_RANK = {
   figures: 5,
   flags: 6,
   analyze: 7,
+  "what-if": 8,
 };
 
 /** The written order, for messages. */
@@ -79,6 +82,7 @@ export const engineStageOrder = {
     const filename = context.filename ?? context.getFilename();
     const inner = insideEngine(filename);
     if (inner === null) return {};
+    if (inner === "index.ts") return {};
     const from = stageOf(inner);
     const check = (node) => {
       const source = node.source?.value;
