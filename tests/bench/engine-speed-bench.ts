@@ -22,7 +22,7 @@ import { readDemoRecord, RECORDS_DIR } from "../../seed-demo/demo-records.js";
 import { part, record } from "../support/record-factory.js";
 
 /** The engine before issue 14's single solver core. */
-const LEGACY_COMMIT = "196bfd6d43ea8db6d409e260417e9fb44209bfde";
+const LEGACY_COMMIT = "141e63a81d63b650e587832161c9d2bbbe6d53d3";
 const RUNS = Math.max(1, Number(process.env.BENCH_RUNS ?? 10));
 const CASE_TIME_CAP_MS = Number(process.env.BENCH_CASE_CAP_MS ?? 60_000);
 const ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "..", "..");
