@@ -2,6 +2,7 @@
 // ours and no I/O, so it stays a pure library that the worker and the web app both wrap.
 import js from "@eslint/js";
 import tseslint from "typescript-eslint";
+import engineStages from "./scripts/lint/engine-stage-order.js";
 
 const ENGINE_FORBIDDEN_IMPORTS = {
   paths: [
@@ -62,6 +63,7 @@ export default tseslint.config(
       "db/migrations/**",
       "**/*.d.ts",
       "analysis-worker/engine/schema/**",
+      "tests/bench/.legacy-engine/**",
     ],
   },
   js.configs.recommended,
@@ -86,8 +88,11 @@ export default tseslint.config(
   },
   {
     files: ["analysis-worker/engine/**/*.ts"],
+    plugins: { "engine-stages": engineStages },
     rules: {
       "no-restricted-imports": ["error", ENGINE_FORBIDDEN_IMPORTS],
+      // record → values → graph → blocks → solver → figures → flags → analyze (see the rule's file).
+      "engine-stages/engine-stage-order": "error",
       "no-console": "error",
       "no-restricted-properties": [
         "error",

@@ -12,6 +12,14 @@ export type EngineRun =
 
 const THREAD_FILE = new URL("./engine-thread-entry.mjs", import.meta.url);
 
+/**
+ * The variants' own budget, as a share of the hard stop: the engine solves the nominal part
+ * first, then spends this on the variants (lowest firing supply, bands, hints, unplug, plug-in)
+ * and returns a partial result naming what it cut short, so a heavy record yields the worker
+ * in time and the hard stop (a failed analysis) is only a backstop for a runaway.
+ */
+export const VARIANT_BUDGET_SHARE = 0.5;
+
 /** One engine call in a fresh-or-reused thread, stopped when it passes `budgetMs`. */
 export class EngineRunner {
   private idle: Worker[] = [];
@@ -34,6 +42,7 @@ export class EngineRunner {
     return worker;
   }
 
+  /** Runs one analysis: its variants get a share of `budgetMs`, the thread is stopped at `budgetMs`. */
   async run(record: unknown, budgetMs: number): Promise<EngineRun> {
     let worker: Worker;
     try {
@@ -64,7 +73,7 @@ export class EngineRunner {
       const timer = setTimeout(() => done({ kind: "timeout", budgetMs }, false), budgetMs);
       worker.on("message", onMessage);
       worker.on("error", onError);
-      worker.postMessage({ id, record });
+      worker.postMessage({ id, record, variantBudgetMs: budgetMs * VARIANT_BUDGET_SHARE });
     });
   }
 

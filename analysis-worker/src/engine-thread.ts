@@ -5,9 +5,13 @@
 import { parentPort } from "node:worker_threads";
 import { analyzeStoredRecord } from "@teardown/engine";
 
-parentPort!.on("message", async (msg: { id: number; record: unknown }) => {
+parentPort!.on("message", async (msg: { id: number; record: unknown; variantBudgetMs: number }) => {
   try {
-    const outcome = await analyzeStoredRecord(msg.record, { now: () => performance.now() });
+    // The variants' own budget: variants it cuts short leave a partial result that says why.
+    const outcome = await analyzeStoredRecord(msg.record, {
+      now: () => performance.now(),
+      variantBudgetMs: msg.variantBudgetMs,
+    });
     parentPort!.postMessage({ id: msg.id, outcome });
   } catch (err) {
     // A thrown error is an engine bug, not bad input: report it as such, with the stack.

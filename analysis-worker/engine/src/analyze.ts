@@ -14,7 +14,12 @@ import { fingerprint } from "./fingerprint/wl-fingerprint.js";
 import { layoutSchematic } from "./layout/layout-schematic.js";
 import { ENGINE_VERSION } from "./engine-version.js";
 import { searchColumnsFor, type SearchColumns } from "./search-columns.js";
-import { analyzeCircuit } from "./solver/analyze-circuit.js";
+import { analyzeCircuitStaged } from "./figures/analyze-circuit.js";
+import {
+  DEFAULT_RISK_BUDGET_MS,
+  MAX_STEPS_PER_ANALYSIS,
+  makeBudget,
+} from "./solver/variants/budget.js";
 import { selectStoredWaveforms } from "./stored-waveforms.js";
 import { assessRisks } from "./flags/assess-risks.js";
 import type { AnalysisResult } from "./analysis-result.js";
@@ -28,9 +33,18 @@ export interface AnalysisOptions {
   now?: () => number;
   /** Analyse at this supply instead of the record's rated supply (a what-if run). */
   supply?: Supply;
-  /** The most the solver may take, in ms of `now` (only enforced with a clock). */
+  /** The most the nominal solve may take, in ms of `now` (only enforced with a clock). */
   budgetMs?: number;
+  /**
+   * The most the variants may take after the nominal part is done (lowest firing supply, bands,
+   * hints, unplug, plug-in), in ms of `now`. Variants cut short leave the result partial, with
+   * the reason, instead of failing it.
+   */
+  variantBudgetMs?: number;
 }
+
+/** Of the variants' budget, the lowest-firing-supply searches may take this share; the risk variants get the rest. */
+export const MIN_SUPPLY_BUDGET_SHARE = 0.5;
 
 export interface AnalysisOutput {
   /** The stored result (analysis-result.ts): complete, partial or not solved, with its gaps. */
@@ -71,6 +85,7 @@ export async function analyzeStoredRecord(
     timings,
     supply: opts.supply,
     budgetMs: opts.budgetMs,
+    variantBudgetMs: opts.variantBudgetMs,
   });
 }
 
@@ -82,6 +97,7 @@ export async function analyzeRecord(
     timings?: Partial<Record<AnalysisStage, number>>;
     supply?: Supply;
     budgetMs?: number;
+    variantBudgetMs?: number;
   },
 ): Promise<AnalysisOutcome> {
   const { now } = opts;
@@ -118,7 +134,19 @@ export async function analyzeRecord(
     );
   } else {
     const t1 = now();
-    const solved = analyzeCircuit(record, { supply, now, budgetMs: opts.budgetMs });
+    // The cheap part first: the nominal steady state and its figures (nothing else can be
+    // shown without it); the variants then share their own budget, counted from there.
+    let endAt = Infinity;
+    const variantBudget = () => {
+      const ms = opts.variantBudgetMs ?? DEFAULT_RISK_BUDGET_MS;
+      endAt = now() + ms;
+      return makeBudget(now, ms * MIN_SUPPLY_BUDGET_SHARE, MAX_STEPS_PER_ANALYSIS);
+    };
+    const solved = analyzeCircuitStaged(
+      record,
+      { supply, now, budgetMs: opts.budgetMs },
+      variantBudget,
+    );
     timings.solve = now() - t1;
     if (!solved.ok) {
       const { code, message, where } = solved.error;
@@ -127,11 +155,16 @@ export async function analyzeRecord(
         ...where.nets.map((net) => ({ net, reason: message })),
       ]);
     } else {
-      const a = solved.value;
+      const a = solved.value.analysis;
       const t2 = now();
-      const risks = assessRisks(record, a, { now, budgetMs: opts.budgetMs });
+      const risks = assessRisks(record, a, {
+        now,
+        budgetMs: Math.max(0, endAt - now()),
+        nominal: solved.value.solved,
+      });
       timings.flags = now() - t2;
-      const gaps = a.gaps;
+      // Variants cut short by the budget are gaps too: the result is partial and says why.
+      const gaps = [...a.gaps, ...solved.value.unfinished, ...risks.unfinished];
       result = {
         ...kept,
         // figures of a cycle that had not settled are not the steady state: say so

@@ -4,6 +4,7 @@
  */
 import { describe, expect, it } from "vitest";
 import { analyzeCircuit, E_SERIES, suggestTriggerResistor, sweepPartValue } from "@teardown/engine";
+import { part, record } from "../../support/record-factory.js";
 import { dropperIntoResistor, phaseControlled } from "./reference-circuits.js";
 
 describe("what-if runs", () => {
@@ -35,6 +36,29 @@ describe("what-if runs", () => {
       1,
       3,
     );
+  });
+
+  it("sweeps a load's resistance (kept in its model) and the current follows V/R", () => {
+    const heater = record([
+      part("F1", "fuse", ["L", "A"], 2),
+      part("HT1", "load", ["A", "N"], null, { model: { r: 500 } }),
+    ]);
+    const sweep = sweepPartValue(heater, "HT1", [250, 500, 1000], { minSupply: false });
+    if (!sweep.ok) throw new Error(sweep.error.message);
+    const currents = sweep.value.map((p) => (p.result.ok ? p.result.value.input.current_rms : NaN));
+    // Source: Ohm's law, I = V / (R_load + R_fuse); the fuse is a small series resistance, so
+    // the currents stand in the ratio of the loads within 1 %.
+    expect(currents[0]! / (230 / 250)).toBeCloseTo(1, 1);
+    expect(currents[1]! / (230 / 500)).toBeCloseTo(1, 1);
+    expect(currents[2]! / (230 / 1000)).toBeCloseTo(1, 1);
+    expect(currents[0]! / currents[2]!).toBeGreaterThan(3.9);
+  });
+
+  it("refuses to sweep a part with no value a sweep could change", () => {
+    const lamp = record([part("HT1", "load", ["L", "N"]), part("R1", "resistor", ["L", "N"], 1e3)]);
+    const sweep = sweepPartValue(lamp, "HT1", [100, 200], { minSupply: false });
+    expect(sweep.ok).toBe(false);
+    if (!sweep.ok) expect(sweep.error.message).toMatch(/HT1 has no value a sweep can change/);
   });
 
   it("refuses to sweep a part that is not in the record", () => {

@@ -6,6 +6,7 @@
  */
 import type { Circuit, CircuitDevice } from "../solver/circuit-model.js";
 import { GMIN_SIEMENS, nodeV } from "../solver/mna.js";
+import type { FiringHalves } from "../solver/min-firing-supply.js";
 import type { SteadyState } from "../solver/periodic-steady-state.js";
 import { terminalCurrents } from "../solver/transient-stamps.js";
 import { thdFromSamples } from "./fft.js";
@@ -66,7 +67,7 @@ export interface FiringFigures {
   /** Degrees from the negative-going zero crossing, when it fires in the negative half-cycle. */
   angle_negative_deg: number | null;
   /** Half-cycles with a firing. */
-  halves: { positive: boolean; negative: boolean };
+  halves: FiringHalves;
 }
 
 /** All figures of a steady cycle. */

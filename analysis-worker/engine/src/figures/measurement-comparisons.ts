@@ -5,14 +5,25 @@
  * uncertainty, and the verdict: inside the band agrees, outside disagrees.
  */
 import type { Assumption } from "../record/gaps-and-assumptions.js";
-import type { Measurement, Supply, TeardownRecord } from "../record/types.js";
-import type { SolvedCircuit } from "../solver/analyze-circuit.js";
+import type { Measurement, MeasurementKind, Supply, TeardownRecord } from "../record/types.js";
 import type { Budget } from "../solver/transient.js";
 import { GROUND } from "../solver/circuit-model.js";
-import type { Comparison } from "../flags/flag-types.js";
+import type { SolvedCircuit } from "./solved-variant.js";
 import { periodMean, periodRms, peakMagnitude } from "./waveform-stats.js";
 import type { BandResult } from "./tolerance-bands.js";
 import { toleranceBands } from "./tolerance-bands.js";
+
+/** One measurement against its predicted band. */
+export interface Comparison {
+  /** Index of the measurement in the record. */
+  measurement: number;
+  what: MeasurementKind;
+  measured: number;
+  predicted: number;
+  low: number;
+  high: number;
+  verdict: "agrees" | "disagrees";
+}
 
 /** A figure read off a solved steady cycle, or null when it cannot be (an unknown net or part). */
 export type FigureOf = (s: SolvedCircuit) => number | null;

@@ -6,10 +6,13 @@
  * for a resistor the nearest E12 and E24 values.
  */
 import type { Supply, TeardownRecord } from "../record/types.js";
-import type { SolvedCircuit } from "../solver/analyze-circuit.js";
 import type { Budget } from "../solver/transient.js";
+import { budgetSpent } from "../solver/variants/budget.js";
+import { partValueOf } from "../solver/variants/part-value.js";
+import { warmFrom } from "../solver/variants/steady-variant.js";
 import { nearestInSeries } from "../values/e-series.js";
-import { budgetSpent, partValueOf, solveVariant, withPartValues } from "../flags/variant-solve.js";
+import type { SolvedCircuit } from "./solved-variant.js";
+import { solveWithFigures } from "./solved-variant.js";
 
 /** Relative change of a value for the finite-difference sensitivity. */
 export const SENSITIVITY_STEP = 0.05;
@@ -55,12 +58,10 @@ export function mismatchHint(
   const f0 = figure(nominal);
   if (f0 === null) return { ranking: [], explaining: null };
   const at = (ref: string, value: number): number | null => {
-    const s = solveVariant(
-      withPartValues(rec, new Map([[ref, value]])),
-      supply,
+    const s = solveWithFigures(
+      rec,
+      { supply, values: new Map([[ref, value]]), warm: warmFrom(nominal) },
       budget,
-      nominal.steady.startMem,
-      { periodHint: nominal.steady.periodCycles },
     );
     return s.ok ? figure(s.value) : null;
   };

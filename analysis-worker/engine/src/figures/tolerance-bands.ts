@@ -7,17 +7,18 @@
  */
 import type { Assumption } from "../record/gaps-and-assumptions.js";
 import type { Part, Supply, TeardownRecord } from "../record/types.js";
-import type { SolvedCircuit } from "../solver/analyze-circuit.js";
 import type { Budget } from "../solver/transient.js";
-import { mulberry32, uniformBetween } from "../flags/seeded-random.js";
+import { budgetSpent } from "../solver/variants/budget.js";
+import { partValueOf } from "../solver/variants/part-value.js";
+import { mulberry32, uniformBetween } from "../solver/variants/seeded-random.js";
+import { warmFrom } from "../solver/variants/steady-variant.js";
+import type { SolvedCircuit } from "./solved-variant.js";
 import {
   SAMPLE_MAX_CYCLES,
   SAMPLE_TOLERANCE_SCALE,
-  budgetSpent,
-  partValueOf,
   solveVariant,
-  withPartValues,
-} from "../flags/variant-solve.js";
+  solveWithFigures,
+} from "./solved-variant.js";
 
 /** Default Monte Carlo samples per supply. */
 export const DEFAULT_TOLERANCE_SAMPLES = 40;
@@ -145,16 +146,17 @@ export function toleranceBands(
       const t = Math.min(x.tol!.tolerance * widen, 0.99);
       values.set(x.p.ref, x.v!.value * uniformBetween(random, 1 - t, 1 + t));
     }
-    const s = solveVariant(
-      withPartValues(rec, values),
-      supply,
-      opts.budget,
-      nominal.steady.startMem,
+    // Every sample starts from the nominal steady state (same memory layout: only values change).
+    const s = solveWithFigures(
+      rec,
       {
+        supply,
+        values,
+        warm: warmFrom(nominal),
         toleranceScale: SAMPLE_TOLERANCE_SCALE,
         maxCycles: SAMPLE_MAX_CYCLES,
-        periodHint: nominal.steady.periodCycles,
       },
+      opts.budget,
     );
     if (!s.ok) {
       notes.push(`bands: sample ${k} did not solve (${s.error.code}); left out`);

@@ -4,8 +4,11 @@
  * variants (unplugging, crest switch-on, tolerance samples, sensitivities) are re-solved inside
  * under one shared budget, and a check that cannot finish is noted, never guessed.
  */
+import type { Gap } from "../record/gaps-and-assumptions.js";
 import type { TeardownRecord } from "../record/types.js";
-import type { CircuitAnalysis } from "../solver/analyze-circuit.js";
+import type { SolverOutcome } from "../solver/solver-error.js";
+import type { SolvedCircuit } from "../figures/solved-variant.js";
+import type { CircuitAnalysis } from "../figures/analyze-circuit.js";
 import { compareMeasurements } from "../figures/measurement-comparisons.js";
 import { DEFAULT_TOLERANCE_SAMPLES, DEFAULT_TOLERANCE_SEED } from "../figures/tolerance-bands.js";
 import type { Flag, FlagSeverity, RiskAssessment, RiskOptions } from "./flag-types.js";
@@ -21,7 +24,8 @@ import { assume, riskContext } from "./risk-context.js";
 import { spacingFlags } from "./spacing-flags.js";
 import { fuseFlags, surgeFlags } from "./supply-protection.js";
 import { triggerFlags } from "./trigger-flags.js";
-import { riskBudget, solveVariant } from "./variant-solve.js";
+import { budgetSpent, riskBudget } from "../solver/variants/budget.js";
+import { solveVariant } from "../figures/solved-variant.js";
 
 const SEVERITY_ORDER: Record<FlagSeverity, number> = { danger: 0, warning: 1, info: 2 };
 
@@ -35,6 +39,24 @@ export function compareFlags(a: Flag, b: Flag): number {
   );
 }
 
+/** Measurements whose band the spent budget cut short (fewer samples than asked for), as gaps naming the measured part or net. */
+function bandsCutShort(
+  record: TeardownRecord,
+  checks: ReadonlyArray<{ comparison: { measurement: number }; band: { samples: number } }>,
+  samples: number,
+): Gap[] {
+  const gaps: Gap[] = [];
+  for (const c of checks) {
+    if (c.band.samples >= samples) continue;
+    const m = record.measurements[c.comparison.measurement]!;
+    const reason = `measurements[${c.comparison.measurement}] (${m.what}): its band rests on ${c.band.samples} of ${samples} tolerance samples, the time budget ended the rest`;
+    if (m.part !== null) gaps.push({ part: m.part, reason });
+    else if (m.between !== null) gaps.push({ net: m.between[0], reason });
+    else gaps.push({ net: Object.keys(record.nets)[0] ?? "supply", reason });
+  }
+  return gaps;
+}
+
 /** All risk flags and measurement comparisons of a record, given the solver's analysis at the analysed supply. */
 export function assessRisks(
   record: TeardownRecord,
@@ -42,7 +64,9 @@ export function assessRisks(
   opts: RiskOptions = {},
 ): RiskAssessment {
   const budget = riskBudget(opts.now, opts.budgetMs);
-  const solvedOutcome = solveVariant(record, analysis.supply, budget);
+  const solvedOutcome: SolverOutcome<SolvedCircuit> = opts.nominal
+    ? { ok: true, value: opts.nominal }
+    : solveVariant(record, analysis.supply, budget);
   const ctx = riskContext(record, analysis, solvedOutcome.ok ? solvedOutcome.value : null, budget);
   if (!solvedOutcome.ok)
     ctx.notes.push(
@@ -74,5 +98,8 @@ export function assessRisks(
     comparisons: compared.checks.map((c) => c.comparison),
     assumptions: ctx.assumptions,
     notes: [...new Set(ctx.notes)],
+    unfinished: budgetSpent(budget)
+      ? bandsCutShort(record, compared.checks, opts.samples ?? DEFAULT_TOLERANCE_SAMPLES)
+      : [],
   };
 }

@@ -6,7 +6,7 @@
  * 22.5) and τ ≤ 1 s (IEC 60950-1 2.1.1.7, type A). A pin capacitance at or below 0.1 µF is noted
  * as "rule does not apply".
  */
-import type { CircuitAnalysis } from "../solver/analyze-circuit.js";
+import type { CircuitAnalysis } from "../figures/analyze-circuit.js";
 import type { Flag } from "./flag-types.js";
 import { cite } from "./citations.js";
 import { ev, evYes } from "./flag-types.js";
@@ -19,9 +19,10 @@ import {
   PIN_VOLTAGE_LIMIT_V,
   TYPE_A_MAX_TIME_CONSTANT_S,
   dischargeVerdicts,
+  equivalentTimeConstant,
   maxTimeConstantFor,
 } from "./discharge-rules.js";
-import { simulateUnplug } from "./discharge-after-unplug.js";
+import { simulateUnplug } from "../solver/variants/unplug.js";
 
 /** The capacitance the plug pins present at the supply frequency (0 for a resistive or inductive input). */
 export function pinCapacitance(analysis: CircuitAnalysis): number {
@@ -71,7 +72,14 @@ export function bleederFlags(ctx: RiskContext): Flag[] {
     );
     return [];
   }
-  const worst = sim.value.reduce((a, b) => (Math.abs(b.v_after_v) > Math.abs(a.v_after_v) ? b : a));
+  const worstRun = sim.value.reduce((a, b) =>
+    Math.abs(b.v_after_v) > Math.abs(a.v_after_v) ? b : a,
+  );
+  // The single time constant that gives the same decay over the delay.
+  const worst = {
+    ...worstRun,
+    tau_s: equivalentTimeConstant(worstRun.v0_v, worstRun.v_after_v, worstRun.delay_s),
+  };
   const verdict = dischargeVerdicts(worst.v_after_v, worst.tau_s);
   const missing = worst.tau_s >= MISSING_BLEEDER_MIN_TIME_CONSTANT_S;
   if (!missing && !verdict.exceeds_pin_limit && !verdict.exceeds_type_a_tau) return [];

@@ -3,9 +3,12 @@
  * stands on and a caution), the measured-versus-predicted comparisons, and the defaults the
  * checks chose where the record was silent.
  */
-import type { Assumption, Evidence } from "../record/gaps-and-assumptions.js";
-import type { MeasurementKind } from "../record/types.js";
+import type { Assumption, Evidence, Gap } from "../record/gaps-and-assumptions.js";
+import type { SolvedCircuit } from "../figures/solved-variant.js";
+import type { Comparison } from "../figures/measurement-comparisons.js";
 import type { CitationId } from "./citations.js";
+
+export type { Comparison };
 
 /** Every flag code the assessment can raise. */
 export const FLAG_CODES = [
@@ -46,18 +49,6 @@ export interface Flag {
   caution: string;
 }
 
-/** One measurement against its predicted band. */
-export interface Comparison {
-  /** Index of the measurement in the record. */
-  measurement: number;
-  what: MeasurementKind;
-  measured: number;
-  predicted: number;
-  low: number;
-  high: number;
-  verdict: "agrees" | "disagrees";
-}
-
 /** Options of the assessment. */
 export interface RiskOptions {
   /** Seed of the tolerance Monte Carlo (same seed, same bands). */
@@ -68,6 +59,8 @@ export interface RiskOptions {
   now?: () => number;
   /** Time budget of the whole assessment, in milliseconds (only enforced with a clock). */
   budgetMs?: number;
+  /** The nominal solve at the analysed supply, when the caller has it (spares a re-solve). */
+  nominal?: SolvedCircuit;
 }
 
 /** The assessment: flags, comparisons, the defaults it assumed, and notes on checks it could not run. */
@@ -78,6 +71,8 @@ export interface RiskAssessment {
   assumptions: Assumption[];
   /** Checks that were skipped or did not apply, and why. */
   notes: string[];
+  /** What the variants could not finish within the budget (a band cut short), and why. */
+  unfinished: Gap[];
 }
 
 /** The caution every mains flag carries unless a more specific one applies. */

@@ -4,7 +4,7 @@
  */
 import type { MeasurementKind, Part, TeardownRecord } from "../record/types.js";
 import { kindInfo } from "../graph/kinds.js";
-import { partValueOf } from "./variant-solve.js";
+import { partValueOf } from "../solver/variants/part-value.js";
 import type { Budget } from "../solver/transient.js";
 import type { MeasurementCheck } from "../figures/measurement-comparisons.js";
 import { mismatchHint } from "../figures/measurement-hints.js";

@@ -5,7 +5,7 @@
  */
 import type { Assumption } from "../record/gaps-and-assumptions.js";
 import type { TeardownRecord } from "../record/types.js";
-import type { CircuitAnalysis, SolvedCircuit } from "../solver/analyze-circuit.js";
+import type { CircuitAnalysis, SolvedCircuit } from "../figures/analyze-circuit.js";
 import type { Budget } from "../solver/transient.js";
 import { buildCircuitGraph } from "../graph/circuit-graph.js";
 import type { SupplyPaths } from "../blocks/supply-path.js";

@@ -10,7 +10,7 @@ import type { Flag } from "./flag-types.js";
 import { MAINS_CAUTION, ev } from "./flag-types.js";
 import { safetyClassOf } from "./capacitor-class.js";
 import { diodeSurgeRating } from "./rating-defaults.js";
-import { simulateCrestSwitchOn } from "./plug-in-surge.js";
+import { simulateCrestSwitchOn } from "../solver/variants/plug-in.js";
 import type { RiskContext } from "./risk-context.js";
 import { assume, sig3 } from "./risk-context.js";
 import { cite } from "./citations.js";

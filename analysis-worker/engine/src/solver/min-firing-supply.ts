@@ -9,11 +9,16 @@
  * bracket in two steady states when the guess is good. The bracket is what decides; the guess
  * and the secant only choose where to look, and the midpoint is taken whenever they would not help.
  */
-import type { FiringFigures } from "../figures/circuit-figures.js";
 import type { Circuit, CircuitDevice } from "./circuit-model.js";
 import type { SteadyState } from "./periodic-steady-state.js";
 import type { SolverOutcome } from "./solver-error.js";
 import { switchingCurrents } from "./transient-stamps.js";
+
+/** The half-cycles a switching device fires in. */
+export interface FiringHalves {
+  positive: boolean;
+  negative: boolean;
+}
 
 /** Most steady states one search may take (the bisection over 0..rated at 0.5 V takes nine). */
 export const MIN_SUPPLY_MAX_TRIES = 16;
@@ -34,7 +39,7 @@ export function gateMargin(
   c: Circuit,
   steady: SteadyState,
   ref: string,
-  halves: FiringFigures["halves"],
+  halves: FiringHalves,
 ): number | null {
   const d = c.devices.find(
     (q): q is Extract<CircuitDevice, { type: "switching" }> =>

@@ -12,7 +12,7 @@ import { analyzeRecord, type AnalysisOutcome } from "../analyze.js";
 import type { AnalysisResult, SolvedResult } from "../analysis-result.js";
 import { firingFigures } from "../figures/circuit-figures.js";
 import type { InputError, Supply, TeardownRecord } from "../record/types.js";
-import { solveCircuit } from "../solver/analyze-circuit.js";
+import { solveCircuit } from "../figures/analyze-circuit.js";
 import { formatValue } from "../values/format-value.js";
 import { firesAsWell, firingOf, suggestGateFeed, type FiringAt } from "./gate-feed-suggestion.js";
 import { checkWhatIf, type WhatIfRequest } from "./what-if-input.js";

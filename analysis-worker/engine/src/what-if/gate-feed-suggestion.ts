@@ -10,7 +10,7 @@
  */
 import { firingFigures, type FiringFigures } from "../figures/circuit-figures.js";
 import type { Supply, TeardownRecord } from "../record/types.js";
-import { solveCircuit } from "../solver/analyze-circuit.js";
+import { solveCircuit } from "../figures/analyze-circuit.js";
 import { E_SERIES } from "../values/e-series.js";
 import { gateFeedResistor } from "./gate-feed-resistor.js";
 import { withValues } from "./what-if-input.js";

@@ -4,10 +4,11 @@
  */
 import type { Supply, TeardownRecord } from "../record/types.js";
 import { nearestInSeries } from "../values/e-series.js";
+import type { SolverOutcome } from "../solver/solver-error.js";
+import { solverFailure } from "../solver/solver-error.js";
+import { partValueOf, withPartValues } from "../solver/variants/part-value.js";
 import type { CircuitAnalysis, SolveOptions } from "./analyze-circuit.js";
 import { analyzeCircuit, solveCircuit } from "./analyze-circuit.js";
-import type { SolverOutcome } from "./solver-error.js";
-import { solverFailure } from "./solver-error.js";
 
 /** The search for a trigger resistor widens its bracket by this factor per try... */
 const BRACKET_FACTOR = 2;
@@ -18,11 +19,9 @@ const RESISTOR_RELATIVE_PRECISION = 1e-4;
 /** A thyristor that does not fire counts as firing at the end of the half-cycle. */
 const NO_FIRING_ANGLE_DEG = 180;
 
+/** The record with part `ref`'s value changed, by the one value-change rule (a load's lives in its model). */
 function withValue(rec: TeardownRecord, ref: string, value: number): TeardownRecord {
-  return {
-    ...rec,
-    parts: rec.parts.map((p) => (p.ref === ref ? { ...p, value, value_text: String(value) } : p)),
-  };
+  return withPartValues(rec, new Map([[ref, value]]));
 }
 
 /** One point of a sweep. */
@@ -31,15 +30,24 @@ export interface SweepPoint {
   result: SolverOutcome<CircuitAnalysis>;
 }
 
-/** Analyses the record once per value of part `ref` (its main value replaced). */
+/**
+ * Analyses the record once per value of part `ref` (its changeable value replaced: a load's
+ * resistance or capacitance, else its main value). A part with no value a variant can change
+ * is refused, since sweeping it would change nothing.
+ */
 export function sweepPartValue(
   rec: TeardownRecord,
   ref: string,
   values: number[],
   opts: SolveOptions = {},
 ): SolverOutcome<SweepPoint[]> {
-  if (!rec.parts.some((p) => p.ref === ref))
+  const p = rec.parts.find((q) => q.ref === ref);
+  if (p === undefined)
     return solverFailure("unknown-part", `no part ${ref} in the record`, { parts: [ref] });
+  if (partValueOf(p) === null)
+    return solverFailure("unknown-part", `${ref} has no value a sweep can change`, {
+      parts: [ref],
+    });
   return {
     ok: true,
     value: values.map((value) => ({

@@ -5,13 +5,12 @@
  * circuit without its supply source (branch unknowns renumbered) runs one "cycle" whose period
  * is the test delay, so the solver's own adaptive trapezoidal stepping does the work.
  */
-import type { Circuit, CircuitDevice } from "../solver/circuit-model.js";
-import type { SolvedCircuit } from "../solver/analyze-circuit.js";
-import type { SolverOutcome } from "../solver/solver-error.js";
-import { solverFailure } from "../solver/solver-error.js";
-import type { Budget } from "../solver/transient.js";
-import { MAX_NEWTON_ITERATIONS, TransientSolver } from "../solver/transient.js";
-import { equivalentTimeConstant } from "./discharge-rules.js";
+import type { Circuit, CircuitDevice } from "../circuit-model.js";
+import type { SolverOutcome } from "../solver-error.js";
+import { solverFailure } from "../solver-error.js";
+import type { Budget } from "../transient.js";
+import { MAX_NEWTON_ITERATIONS, TransientSolver } from "../transient.js";
+import type { SteadyCircuit } from "./steady-variant.js";
 
 /** The discharge from one unplugging instant. */
 export interface UnplugDischarge {
@@ -21,8 +20,6 @@ export interface UnplugDischarge {
   /** Pin voltage after the delay. */
   v_after_v: number;
   delay_s: number;
-  /** The single time constant that gives the same decay over the delay. */
-  tau_s: number;
 }
 
 /** The compiled circuit with its supply source removed: the pins (line and reference) are open. */
@@ -52,7 +49,7 @@ export function unpluggedCircuit(c: Circuit, delayS: number): Circuit {
 }
 
 /** The recorded steady sample nearest to time t. */
-function sampleAt(solved: SolvedCircuit, t: number) {
+function sampleAt(solved: SteadyCircuit, t: number) {
   let best = solved.steady.run.samples[0]!;
   for (const s of solved.steady.run.samples) if (Math.abs(s.t - t) < Math.abs(best.t - t)) best = s;
   return best;
@@ -60,7 +57,7 @@ function sampleAt(solved: SolvedCircuit, t: number) {
 
 /** Simulates unplugging at the positive and the negative supply peak. */
 export function simulateUnplug(
-  solved: SolvedCircuit,
+  solved: SteadyCircuit,
   delayS: number,
   budget: Budget,
 ): SolverOutcome<UnplugDischarge[]> {
@@ -92,7 +89,6 @@ export function simulateUnplug(
       v0_v: v0,
       v_after_v: vAfter,
       delay_s: delayS,
-      tau_s: equivalentTimeConstant(v0, vAfter, delayS),
     });
   }
   return { ok: true, value: out };

@@ -5,13 +5,13 @@
  * backward-Euler steps (the damped method the solver uses after a switching event) that start
  * small and grow, and records the peak current of the parts that take the surge.
  */
-import type { CircuitDevice } from "../solver/circuit-model.js";
-import type { SolvedCircuit } from "../solver/analyze-circuit.js";
-import type { SolverOutcome } from "../solver/solver-error.js";
-import { solverFailure } from "../solver/solver-error.js";
-import type { Budget } from "../solver/transient.js";
-import { MAX_NEWTON_ITERATIONS, TransientSolver } from "../solver/transient.js";
-import { terminalCurrents } from "../solver/transient-stamps.js";
+import type { CircuitDevice } from "../circuit-model.js";
+import type { SolverOutcome } from "../solver-error.js";
+import { solverFailure } from "../solver-error.js";
+import type { Budget } from "../transient.js";
+import { MAX_NEWTON_ITERATIONS, TransientSolver } from "../transient.js";
+import { terminalCurrents } from "../transient-stamps.js";
+import type { SteadyCircuit } from "./steady-variant.js";
 
 /** First step after the switch-on, in seconds (short against any RC of a surge path). */
 export const SURGE_FIRST_STEP_S = 1e-7;
@@ -32,7 +32,7 @@ export interface SurgeRun {
 
 /** Simulates the crest switch-on for a quarter period and returns the watched parts' peak currents. */
 export function simulateCrestSwitchOn(
-  solved: SolvedCircuit,
+  solved: SteadyCircuit,
   watch: ReadonlySet<string>,
   budget: Budget,
 ): SolverOutcome<SurgeRun> {

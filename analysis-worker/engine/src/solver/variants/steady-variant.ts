@@ -1,0 +1,102 @@
+/**
+ * The one steady-state search of the engine: the periodic steady state of a record (or of a
+ * variant of it: another supply, changed part values) over its supply cycle. Every caller, the
+ * nominal analysis, the lowest-firing-supply search, tolerance samples, sensitivities and
+ * what-if runs, comes through `solveSteady`, so they share one budget type, one way of changing
+ * a value (part-value.ts) and one warm-start rule: a variant that only changes values has the
+ * nominal memory layout, and starting there settles in a few cycles instead of many.
+ */
+import type { Supply, TeardownRecord } from "../../record/types.js";
+import { windingStartMem } from "../ac-phasor.js";
+import type { Circuit } from "../circuit-model.js";
+import { compileCircuit } from "../circuit-model.js";
+import type { LuChoice } from "../mna.js";
+import type { SteadyState } from "../periodic-steady-state.js";
+import { periodicSteadyState } from "../periodic-steady-state.js";
+import type { SolverOutcome } from "../solver-error.js";
+import type { Budget } from "../transient.js";
+import { MAX_NEWTON_ITERATIONS, TransientSolver } from "../transient.js";
+import { withPartValues } from "./part-value.js";
+
+/** A solved steady state: the compiled circuit, its steady cycle and the steps it took. */
+export interface SteadyCircuit {
+  circuit: Circuit;
+  steady: SteadyState;
+  steps: number;
+}
+
+/** A warm start: a cycle-start memory of the same circuit, optionally scaled to a new supply. */
+export interface WarmStart {
+  mem: Float64Array;
+  /** Continuous states are multiplied by this (new supply / old supply); latch states are kept. */
+  scale?: number;
+  /** Repeat length (mains cycles) of the orbit the memory came from. */
+  periodCycles?: number;
+  /** One-cycle Jacobian of a nearby solve, tried before a finite-difference one. */
+  jacobian?: Float64Array;
+}
+
+/** What to solve besides the record: the supply, changed values, how close to settle. */
+export interface SteadyRequest {
+  supply: Supply;
+  /** Part values to change (ref -> new value), through the one value-change rule. */
+  values?: ReadonlyMap<string, number>;
+  warm?: WarmStart;
+  /** Loosens the settling test (> 1) where only a coarse or yes/no figure is wanted. */
+  toleranceScale?: number;
+  maxCycles?: number;
+  lu?: LuChoice;
+  maxNewtonIterations?: number;
+}
+
+/** The start memory: the warm state when it fits the circuit, else windings on their AC orbit, else rest. */
+function startMemory(
+  circuit: Circuit,
+  req: SteadyRequest,
+): SolverOutcome<Float64Array | undefined> {
+  const warm = req.warm;
+  if (warm !== undefined && warm.mem.length === circuit.memSize) {
+    const scale = warm.scale ?? 1;
+    if (scale === 1) return { ok: true, value: warm.mem };
+    const start = warm.mem.map((v) => v * scale);
+    for (const d of circuit.devices) if (d.type === "switching") start[d.mem] = warm.mem[d.mem]!;
+    return { ok: true, value: start };
+  }
+  // Windings start on their AC orbit, not at zero current (see windingStartMem).
+  if (circuit.devices.some((d) => d.type === "coupled"))
+    return windingStartMem(circuit, req.lu ?? "sparse");
+  return { ok: true, value: undefined };
+}
+
+/** Periodic steady state of a record, or of a variant of it, under `budget`. */
+export function solveSteady(
+  rec: TeardownRecord,
+  req: SteadyRequest,
+  budget: Budget,
+): SolverOutcome<SteadyCircuit> {
+  const compiled = compileCircuit(withPartValues(rec, req.values ?? new Map()), req.supply);
+  if (!compiled.ok) return compiled;
+  const circuit = compiled.value;
+  const solver = new TransientSolver(circuit, {
+    lu: req.lu ?? "sparse",
+    maxNewtonIterations: req.maxNewtonIterations ?? MAX_NEWTON_ITERATIONS,
+  });
+  const start = startMemory(circuit, req);
+  if (!start.ok) return start;
+  const steady = periodicSteadyState(solver, budget, start.value, {
+    toleranceScale: req.toleranceScale,
+    maxCycles: req.maxCycles,
+    periodHint: req.warm?.periodCycles,
+    ...(req.warm?.jacobian ? { jacobian: req.warm.jacobian } : {}),
+  });
+  if (!steady.ok) return steady;
+  return { ok: true, value: { circuit, steady: steady.value, steps: solver.totalSteps } };
+}
+
+/** The warm start a variant of `nominal` takes: its cycle-start state and orbit length. */
+export function warmFrom(nominal: SteadyCircuit): WarmStart {
+  return {
+    mem: nominal.steady.startMem,
+    periodCycles: nominal.steady.periodCycles,
+  };
+}
