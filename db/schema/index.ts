@@ -5,3 +5,4 @@ export * from "./entries.js";
 export * from "./analyses.js";
 export * from "./attachments.js";
 export * from "./audit.js";
+export * from "./what-if-results.js";

@@ -7,6 +7,7 @@
 import { closeDatabase } from "@/lib/database";
 import { closeQueue } from "@/lib/queue";
 import { closeRecordParsePool } from "@/lib/record-parse/record-parse-pool";
+import { closeWhatIfPool } from "@/lib/what-if/what-if-pool";
 
 /** The origin every request claims, matching the default APP_URL (better-auth checks it). */
 export const TEST_ORIGIN = "http://localhost:3000";
@@ -42,6 +43,7 @@ const ROUTES: [string, () => Promise<RouteModule>][] = [
     () => import("@/app/api/entries/[entryId]/revisions/[number]/route"),
   ],
   ["/api/entries/:entryId/diff", () => import("@/app/api/entries/[entryId]/diff/route")],
+  ["/api/entries/:entryId/what-if", () => import("@/app/api/entries/[entryId]/what-if/route")],
   ["/api/entries/:entryId/photos", () => import("@/app/api/entries/[entryId]/photos/route")],
   [
     "/api/entries/:entryId/photos/:photoId",
@@ -179,6 +181,7 @@ export async function signIn(email: string, password: string): Promise<{ status:
 /** Closes the web code's pool and queue at the end of a test file. */
 export async function closeWebApp(): Promise<void> {
   await closeRecordParsePool();
+  await closeWhatIfPool();
   await closeQueue();
   await closeDatabase();
 }

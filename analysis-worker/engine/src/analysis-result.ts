@@ -43,6 +43,8 @@ const InputFiguresSchema = z.object({
   apparent_power: Figure,
   power_factor: Figure,
   thd: Figure,
+  /** RMS magnitude of each line-current harmonic, order 1 up (absent in older results). */
+  harmonics: z.array(z.object({ order: z.number().int().positive(), rms: Figure })).optional(),
 });
 
 const PartFiguresSchema = z.object({
@@ -54,12 +56,25 @@ const PartFiguresSchema = z.object({
 
 const NetFiguresSchema = z.object({ dc: Figure, rms: Figure, peak: Figure });
 
+/** A what-if's proposed gate-feed resistor (see what-if/gate-feed-suggestion.ts). */
+const GateFeedSuggestionSchema = z.object({
+  part: z.string(),
+  value: z.number().positive(),
+  series: z.string(),
+  angle_deg: Figure,
+});
+
 const TriggerSchema = z.object({
   part: z.string(),
   fires: z.boolean(),
   angle_deg: Figure,
   angle_negative_deg: Figure,
   min_supply_vrms: Figure,
+  /** What-if runs only: whether it fires at the rated supply, and at what angle. */
+  rated: z.object({ fires: z.boolean(), angle_deg: Figure }).optional(),
+  /** What-if runs only, when it fires at the rated supply but not here: what to change, or why nothing found. */
+  suggestion: GateFeedSuggestionSchema.optional(),
+  suggestion_note: z.string().optional(),
 });
 
 const PhasorSchema = z.object({ re: Figure, im: Figure, rms: Figure, phase_deg: Figure });

@@ -59,3 +59,8 @@ export * from "./flags/variant-solve.js";
 export * from "./figures/tolerance-bands.js";
 export * from "./figures/measurement-comparisons.js";
 export * from "./figures/measurement-hints.js";
+export * from "./figures/line-harmonics.js";
+export * from "./what-if/what-if-input.js";
+export * from "./what-if/gate-feed-resistor.js";
+export * from "./what-if/gate-feed-suggestion.js";
+export * from "./what-if/analyze-what-if.js";

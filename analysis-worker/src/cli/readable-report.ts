@@ -64,6 +64,33 @@ export function evidenceSentence(e: { label: string; value: unknown; unit: strin
   return `${e.label}: ${n}${e.unit ? ` ${e.unit}` : ""}`;
 }
 
+/** The odd harmonics of the line current up to the 9th, as one line (older results have none). */
+function harmonicsLine(
+  h: ReadonlyArray<{ order: number; rms: number | null }> | undefined,
+): string | null {
+  if (!h || h.length === 0) return null;
+  const odd = h.filter((x) => x.order % 2 === 1 && x.order <= 9);
+  return `  line-current harmonics (rms): ${odd.map((x) => `${x.order}: ${eng(x.rms, "A")}`).join("   ")}`;
+}
+
+/** A what-if's word on each trigger that fires at the rated supply but not as well here. */
+function whatIfTriggerLines(result: AnalysisResult): string[] {
+  if (result.status === "not-solved") return [];
+  const out: string[] = [];
+  for (const t of result.triggers) {
+    if (t.suggestion)
+      out.push(
+        `  ${t.part}: fires at the rated supply${t.rated?.angle_deg != null ? ` (at ${t.rated.angle_deg.toFixed(1)}°)` : ""} but ${t.fires ? "later" : "not"} at this one;` +
+          ` suggestion: ${t.suggestion.part} = ${eng(t.suggestion.value, "Ω")} (${t.suggestion.series}), firing at ${t.suggestion.angle_deg != null ? `${t.suggestion.angle_deg.toFixed(1)}°` : "an unknown angle"}`,
+      );
+    else if (t.suggestion_note)
+      out.push(
+        `  ${t.part}: fires at the rated supply but ${t.fires ? "later" : "not"} at this one; ${t.suggestion_note}`,
+      );
+  }
+  return out;
+}
+
 /** The whole readable report for one analysed record. */
 export function readableReport(record: TeardownRecord, typed: AnalysisResult): string {
   const result = typed as unknown as Result;
@@ -170,6 +197,8 @@ export function readableReport(record: TeardownRecord, typed: AnalysisResult): s
       `  current ${eng(input.current_rms, "A")} rms   real power ${eng(input.power, "W")}   apparent ${eng(input.apparent_power, "VA")}   power factor ${input.power_factor?.toFixed(3) ?? "—"}   THD ${input.thd !== null && input.thd !== undefined ? `${(input.thd * 100).toFixed(1)} %` : "—"}`,
       "",
     );
+    const harmonics = harmonicsLine(input.harmonics);
+    if (harmonics) out.push(harmonics, "");
     const parts =
       (result.parts as
         Record<string, { voltage_peak: Num; current_rms: Num; power: Num }> | undefined) ?? {};
@@ -205,6 +234,8 @@ export function readableReport(record: TeardownRecord, typed: AnalysisResult): s
       ),
       "",
     );
+    const notes = whatIfTriggerLines(typed);
+    if (notes.length) out.push(...notes, "");
   }
   const flags =
     (result.flags as

@@ -9,6 +9,7 @@ import { GMIN_SIEMENS, nodeV } from "../solver/mna.js";
 import type { SteadyState } from "../solver/periodic-steady-state.js";
 import { terminalCurrents } from "../solver/transient-stamps.js";
 import { thdFromSamples } from "./fft.js";
+import { lineHarmonics, type LineHarmonic } from "./line-harmonics.js";
 import {
   peakMagnitude,
   periodMean,
@@ -36,6 +37,8 @@ export interface InputFigures {
   apparent_power: number;
   power_factor: number | null;
   thd: number | null;
+  /** RMS magnitude of each harmonic of the line current, order 1 up (see line-harmonics.ts). */
+  harmonics: LineHarmonic[];
 }
 
 /** Per-part figures. */
@@ -155,12 +158,14 @@ export function cycleFigures(c: Circuit, steady: SteadyState): CycleFigures {
   const power = periodMeanPower(t, vIn, iIn, 1, damped);
   const apparent = periodRms(t, vIn, damped) * currentRms;
   const fftPoints = FFT_POINTS * 2 ** Math.ceil(Math.log2(cyclesInWindow));
+  const uniformCurrent = resampleUniform(t, iIn, fftPoints);
   const input: InputFigures = {
     current_rms: currentRms,
     power,
     apparent_power: apparent,
     power_factor: apparent > 0 ? power / apparent : null,
-    thd: thdFromSamples(resampleUniform(t, iIn, fftPoints), cyclesInWindow),
+    thd: thdFromSamples(uniformCurrent, cyclesInWindow),
+    harmonics: lineHarmonics(uniformCurrent, cyclesInWindow),
   };
 
   const firings = firingFigures(c, steady);
