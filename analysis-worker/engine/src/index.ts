@@ -24,6 +24,7 @@ export * from "./fingerprint/fnv-hash.js";
 export * from "./fingerprint/wl-fingerprint.js";
 export * from "./fingerprint/match-fragment.js";
 export * from "./fingerprint/compare-topology.js";
+export * from "./compare/compare-boards.js";
 export * from "./layout/layout-types.js";
 export * from "./layout/layout-schematic.js";
 export * from "./layout/render-svg.js";

@@ -213,3 +213,57 @@ export interface TriggerSuggestion {
   series: string;
   angle_deg: number;
 }
+
+/** One side of GET /api/compare (web/lib/compare/compare-entries.ts). */
+export interface CompareSide {
+  entry: {
+    id: string;
+    teamId: string;
+    title: string;
+    category: string | null;
+    visibility: "team" | "public";
+    currentRevision: number | null;
+  };
+  revision: number;
+  /** The finished analysis the figures come from; null when none has finished yet. */
+  analysis: { engineVersion: string; status: "complete" | "partial" | "not-solved" } | null;
+  layout: unknown;
+}
+/** One matched pair of parts (the engine's ComparedPair). */
+export interface ComparedPair {
+  a: string;
+  b: string;
+  kind: string;
+  values: { a: string | null; b: string | null };
+  differs: boolean;
+  confidence: number;
+  by: "structure" | "value" | "kind";
+  marking: { a: string | null; b: string | null };
+}
+/** One computed figure of both boards; difference is B − A, ratio B / A. */
+export interface FigureRow {
+  what: string;
+  unit: string;
+  refs: { a: string | null; b: string | null } | null;
+  a: number | null;
+  b: number | null;
+  difference: number | null;
+  ratio: number | null;
+}
+/** A net that changed; pins as `REF.role` on their own board. */
+export interface NetChange {
+  a: string | null;
+  b: string | null;
+  onlyA: string[];
+  onlyB: string[];
+  changes: string[];
+}
+/** GET /api/compare. */
+export interface EntryComparison {
+  a: CompareSide;
+  b: CompareSide;
+  parts: { pairs: ComparedPair[]; onlyA: string[]; onlyB: string[] };
+  nets: NetChange[];
+  figures: FigureRow[];
+  flags: { onlyA: string[]; onlyB: string[]; both: string[] };
+}

@@ -49,7 +49,7 @@ export function compareTopology(a: TeardownRecord, b: TeardownRecord): TopologyC
     pairedB.add(y);
   };
 
-  structurePhase(ga, gb, { pairs, pairedB, add });
+  structurePhase(ga, gb, { pairs, pairedB, add, netRole: netRoles(ga, gb) });
 
   const restA = (): PartNode[] => ga.parts.filter((p) => !pairs.has(p)).sort(byRef);
   const restB = (): PartNode[] => gb.parts.filter((p) => !pairedB.has(p)).sort(byRef);
@@ -103,7 +103,10 @@ function structurePhase(ga: CircuitGraph, gb: CircuitGraph, state: PairingState)
   for (;;) {
     const la = wlLabels(ga, { iterations: WL_ITERATIONS, useValues: false, partSeed: seed });
     const lb = wlLabels(gb, { iterations: WL_ITERATIONS, useValues: false, partSeed: seed });
-    if (wlRound(ga, gb, la, lb, anchored, MIN_STRUCTURE_DEPTH)) continue;
+    // Exact one-to-one agreement first, then growth through the nets; only when both are stuck
+    // is one of several alike parts fixed, so a chain of identical parts is paired from its
+    // ends inwards rather than from a guess that would follow the refs.
+    if (wlRound(ga, gb, la, lb, anchored, MIN_STRUCTURE_DEPTH, false)) continue;
     // Equally anchored candidates: the one whose WL labels agree over more rounds, then the
     // closer value.
     const agreement = (x: PartNode, y: PartNode): number =>
@@ -112,14 +115,16 @@ function structurePhase(ga: CircuitGraph, gb: CircuitGraph, state: PairingState)
       agreement(q.a, q.b) - agreement(p.a, p.b) ||
       valueDistance(p.a, p.b) - valueDistance(q.a, q.b);
     if (pairByNeighbours(ga, gb, anchored, alike)) continue;
-    if (!wlRound(ga, gb, la, lb, anchored, 1)) return;
+    if (wlRound(ga, gb, la, lb, anchored, MIN_STRUCTURE_DEPTH, true)) continue;
+    if (!wlRound(ga, gb, la, lb, anchored, 1, true)) return;
   }
 }
 
 /**
  * One round of WL pairing at the deepest depth (down to minDepth) where unpaired parts of A
- * and B share a label: every one-to-one group pairs; failing that, one pair of the first
- * shared group is fixed by closest value. False when no label is shared.
+ * and B share a label: every one-to-one group pairs; failing that (and when asked to
+ * individualise), one pair of the first shared group is fixed by closest value. False when
+ * nothing was paired.
  */
 function wlRound(
   ga: CircuitGraph,
@@ -128,6 +133,8 @@ function wlRound(
   lb: WlLabels,
   state: PairingState,
   minDepth: number,
+  /** Fix one pair of a group of alike parts when no group is one-to-one. */
+  individualise: boolean,
 ): boolean {
   for (let depth = WL_ITERATIONS; depth >= minDepth; depth--) {
     const groups = new Map<number, { a: PartNode[]; b: PartNode[] }>();
@@ -145,6 +152,8 @@ function wlRound(
     const unique = shared.filter(([, g]) => g.a.length === 1 && g.b.length === 1);
     if (unique.length > 0) {
       for (const [, g] of unique) state.add(g.a[0]!, g.b[0]!, "structure");
+    } else if (!individualise) {
+      continue;
     } else {
       const [, g] = shared[0]!;
       const x = [...g.a].sort(byRef)[0]!;
@@ -153,6 +162,14 @@ function wlRound(
     return true;
   }
   return false;
+}
+
+/** The role of a net of either board (null when it has none). */
+export function netRoles(
+  ga: CircuitGraph,
+  gb: CircuitGraph,
+): (side: "a" | "b", net: string) => string | null {
+  return (side, net) => (side === "a" ? ga : gb).netByName.get(net)?.role ?? null;
 }
 
 /** The candidate whose value is nearest on a log scale, ties broken by ref. */

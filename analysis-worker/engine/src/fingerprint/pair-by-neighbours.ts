@@ -14,6 +14,12 @@ export interface PairingState {
   pairs: Map<PartNode, { other: PartNode; by: "structure" | "value" | "kind" }>;
   pairedB: Set<PartNode>;
   add: (a: PartNode, b: PartNode, by: "structure") => void;
+  /**
+   * The role of a net of A or B (line, neutral, ...), when known. A symmetric part with one end
+   * on a role net votes that end onto its partner's end of the same role, so the pairing can
+   * grow from resistors and fuses in the mains leads without a guess.
+   */
+  netRole?: (side: "a" | "b", net: string) => string | null;
 }
 
 /** One round of pairing by neighbourhood; false when no unpaired part has an anchored counterpart. */
@@ -64,7 +70,7 @@ export function pairByNeighbours(
  * its partner's (a pin whose role is unique in its part votes at once; the two ends of a
  * symmetric part vote once one end is placed) and mutual unique best votes are taken.
  */
-function correspondingNets(state: PairingState): {
+export function correspondingNets(state: PairingState): {
   forward: Map<string, string>;
   backward: Map<string, string>;
 } {
@@ -97,6 +103,8 @@ function correspondingNets(state: PairingState): {
         const openTheirs = theirs.filter((t) => !mine.some((e) => forward.get(e.net) === t.net));
         if (openMine.length === 1 && openTheirs.length === 1)
           vote(openMine[0]!.net, openTheirs[0]!.net);
+        else if (openMine.length === 2 && openTheirs.length === 2 && state.netRole !== undefined)
+          voteByRole(openMine, openTheirs, state.netRole, vote);
       }
     }
     let added = false;
@@ -108,6 +116,31 @@ function correspondingNets(state: PairingState): {
       added = true;
     }
     if (!added) return { forward, backward };
+  }
+}
+
+/** Two open ends on each side: when exactly one end on each has the same role, vote both ends. */
+function voteByRole(
+  mine: PinEdge[],
+  theirs: PinEdge[],
+  netRole: (side: "a" | "b", net: string) => string | null,
+  vote: (x: string, y: string) => void,
+): void {
+  const rm = mine.map((e) => netRole("a", e.net));
+  const rt = theirs.map((e) => netRole("b", e.net));
+  for (const [i, j] of [
+    [0, 0],
+    [0, 1],
+    [1, 0],
+    [1, 1],
+  ] as const) {
+    const role = rm[i];
+    if (role === null || role === undefined || rt[j] !== role) continue;
+    // Only when the role singles out one end on both sides (not both ends on line nets).
+    if (rm[1 - i] === role || rt[1 - j] === role) continue;
+    vote(mine[i]!.net, theirs[j]!.net);
+    vote(mine[1 - i]!.net, theirs[1 - j]!.net);
+    return;
   }
 }
 

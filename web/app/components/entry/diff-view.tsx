@@ -6,7 +6,8 @@
  */
 import { useQuery } from "@tanstack/react-query";
 import { failureText, getJson } from "../../client/http";
-import type { FieldChange, RevisionDiff } from "../../client/api-types";
+import type { EntryComparison, FieldChange, RevisionDiff } from "../../client/api-types";
+import { CompareFigures, CompareFlags } from "../compare/compare-figures";
 import css from "./entry.module.css";
 
 function shown(v: unknown): string {
@@ -171,6 +172,44 @@ export function DiffPage({
       {query.isPending ? <p className="muted">Loading…</p> : null}
       {query.isError ? <p className={css.errorBox}>{failureText(query.error)}</p> : null}
       {query.data ? <DiffView diff={query.data.diff} /> : null}
+      {query.data ? (
+        <AnalysisChange entryId={entryId} from={query.data.from} to={query.data.to} />
+      ) : null}
     </>
+  );
+}
+
+/**
+ * What the change did to the analysis: the two revisions compared as two boards (figures side by
+ * side, flags raised, cleared or kept), with a link to the full side-by-side comparison.
+ */
+function AnalysisChange({ entryId, from, to }: { entryId: string; from: number; to: number }) {
+  const params = new URLSearchParams({
+    a: entryId,
+    b: entryId,
+    aRevision: String(from),
+    bRevision: String(to),
+  });
+  const query = useQuery({
+    queryKey: ["compare", entryId, from, to],
+    queryFn: () => getJson<EntryComparison>(`/api/compare?${params}`),
+    retry: false,
+  });
+  return (
+    <section data-testid="analysis-change">
+      <h2>What the change did to the analysis</h2>
+      <p>
+        A is revision {from}, B is revision {to}.{" "}
+        <a href={`/compare?${params}`}>Both schematics side by side</a>
+      </p>
+      {query.isPending ? <p className="muted">Loading…</p> : null}
+      {query.isError ? <p className={css.errorBox}>{failureText(query.error)}</p> : null}
+      {query.data ? (
+        <>
+          <CompareFigures comparison={query.data} />
+          <CompareFlags comparison={query.data} />
+        </>
+      ) : null}
+    </section>
   );
 }
