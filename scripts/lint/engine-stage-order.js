@@ -29,6 +29,8 @@ export const STAGE_RANK = {
   flags: 6,
   analyze: 7,
   "what-if": 8,
+  // Comparing two boards reads two finished analyses, so it comes after them.
+  compare: 8,
 };
 
 /** The written order, for messages. */
