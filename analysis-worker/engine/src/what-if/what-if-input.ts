@@ -4,7 +4,8 @@
  * place in the request (`changes[0].part`, `supply.vrms`), never as a throw.
  */
 import { KINDS } from "../graph/kinds.js";
-import type { InputError, Supply, TeardownRecord } from "../record/types.js";
+import type { InputError, Part, Supply, TeardownRecord } from "../record/types.js";
+import { partValueOf, withPartValue, type ValueSlot } from "../solver/variants/part-value.js";
 import { parseValue } from "../values/parse-value.js";
 import { exactValueText } from "../values/format-value.js";
 
@@ -27,13 +28,12 @@ export const WHAT_IF_HZ_RANGE = { min: 10, max: 1000 } as const;
 /** Most parts one what-if may change. */
 export const MAX_WHAT_IF_CHANGES = 50;
 
-/** Kinds whose main value a what-if may change: those the solver reads from `value`. */
-const CHANGEABLE_KINDS: ReadonlySet<string> = new Set([
-  "resistor",
-  "capacitor",
-  "inductor",
-  "zener",
-]);
+/** The unit a changed value is read in: a load's resistance or capacitance, else its kind's. */
+function unitOfSlot(kind: Part["kind"], slot: ValueSlot): string {
+  if (slot === "model.r") return "Ω";
+  if (slot === "model.c") return "F";
+  return KINDS[kind as keyof typeof KINDS].unit ?? "any";
+}
 
 /** The checked request: the variant record, the supply it runs at, and the changes in SI units. */
 export interface CheckedWhatIf {
@@ -88,12 +88,14 @@ export function checkWhatIf(
       errors.push(problem(`changes[${i}].part`, "unknown-part", `no part ${c.part} in the record`));
       return;
     }
-    if (!CHANGEABLE_KINDS.has(part.kind)) {
+    // The one rule of where a part keeps the value a variant changes (a load's is its model).
+    const slot = partValueOf(part)?.slot;
+    if (slot === undefined) {
       errors.push(
         problem(
           `changes[${i}].part`,
           "no-value",
-          `${c.part} is a ${part.kind}; a what-if changes the value of a resistor, capacitor, inductor or zener`,
+          `${c.part} is a ${part.kind} with no value to change; a what-if changes a resistor, capacitor, inductor, zener or varistor, or a load's resistance or capacitance`,
         ),
       );
       return;
@@ -102,7 +104,7 @@ export function checkWhatIf(
       errors.push(problem(`changes[${i}].part`, "duplicate", `${c.part} is changed twice`));
       return;
     }
-    const unit = KINDS[part.kind as keyof typeof KINDS].unit ?? "any";
+    const unit = unitOfSlot(part.kind, slot);
     const read = parseValue(c.value, { unit, notation: "record" });
     if (!read.ok) {
       errors.push(problem(`changes[${i}].value`, read.code, read.message));
@@ -127,7 +129,10 @@ export function checkWhatIf(
   };
 }
 
-/** The record with some parts' main values replaced (the written value follows, for display). */
+/**
+ * The record with some parts' values replaced where each keeps it (a load's in its model), the
+ * written value following for display.
+ */
 export function withValues(
   record: TeardownRecord,
   values: ReadonlyMap<string, number>,
@@ -138,7 +143,10 @@ export function withValues(
     parts: record.parts.map((p) => {
       const v = values.get(p.ref);
       if (v === undefined) return p;
-      return { ...p, value: v, value_text: exactValueText(v) };
+      const changed = withPartValue(p, v);
+      return changed.kind === p.kind && partValueOf(p)?.slot === "value"
+        ? { ...changed, value_text: exactValueText(v) }
+        : changed;
     }),
   };
 }
