@@ -53,16 +53,6 @@ export function searchColumnsFor(
   const flags = [...new Set(result.flags.map((f) => f.code))].sort();
   const solved = result.status === "not-solved" ? null : result;
   const input = solved?.input ?? null;
-  const text = [
-    record.summary ?? "",
-    ...record.parts.map((p) =>
-      [p.ref, p.kind, p.marking ?? "", p.value_text ?? "", p.note ?? ""].join(" "),
-    ),
-    ...Object.values(record.nets).map((n) => n.note ?? ""),
-  ]
-    .join("\n")
-    .replace(/\s+/g, " ")
-    .trim();
   return {
     ...topologyColumnsFor(record, features),
     blocks,
@@ -75,8 +65,22 @@ export function searchColumnsFor(
       input_current_a: input?.current_rms ?? null,
       analysis_status: result.status,
     },
-    text,
+    text: searchTextOf(record),
     tags: record.device.tags.join(" "),
     mismatch: (solved?.comparisons ?? []).some((c) => c.verdict === "disagrees"),
   };
+}
+
+/** The body text full-text search reads: summary, each part's ref, kind, marking, value and note, net notes. */
+export function searchTextOf(record: TeardownRecord): string {
+  return [
+    record.summary ?? "",
+    ...record.parts.map((p) =>
+      [p.ref, p.kind, p.marking ?? "", p.value_text ?? "", p.note ?? ""].join(" "),
+    ),
+    ...Object.values(record.nets).map((n) => n.note ?? ""),
+  ]
+    .join("\n")
+    .replace(/\s+/g, " ")
+    .trim();
 }
