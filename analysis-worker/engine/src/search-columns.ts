@@ -5,6 +5,7 @@
  */
 import type { AnalysisResult } from "./analysis-result.js";
 import { fragmentFeatures } from "./fingerprint/fragment-features.js";
+import { topologyOf, type StoredTopology } from "./fingerprint/stored-topology.js";
 import { FINGERPRINT_VERSION, fingerprint, valueFeatures } from "./fingerprint/wl-fingerprint.js";
 import type { TeardownRecord } from "./record/types.js";
 
@@ -16,6 +17,8 @@ export interface TopologyColumns {
   valueFeatures: number[];
   /** Kind counts and part-to-part links: the candidate index of fragment search. */
   fragmentFeatures: number[];
+  /** The structure fragment search confirms candidates on. */
+  topology: StoredTopology;
   /** The feature definitions' version these were computed under. */
   version: number;
 }
@@ -39,6 +42,7 @@ export function topologyColumnsFor(record: TeardownRecord, features?: number[]):
     fingerprint: fp,
     valueFeatures: valueFeatures(record),
     fragmentFeatures: fragmentFeatures(record),
+    topology: topologyOf(record),
     version: FINGERPRINT_VERSION,
   };
 }
