@@ -3,8 +3,8 @@
  * nothing about it: its team-only entries and the team itself answer 404 exactly as unknown ids
  * do. A member whose role is too low gets 403.
  */
-import { and, eq, getTableColumns } from "drizzle-orm";
-import { schema, type Database } from "@teardown/db";
+import { eq } from "drizzle-orm";
+import { membershipRole, schema, type Database } from "@teardown/db";
 import { forbidden, notFound } from "./api-error";
 import type { Caller } from "./caller";
 
@@ -23,12 +23,7 @@ export async function roleOn(
   teamId: string,
   userId: string | null,
 ): Promise<Role | null> {
-  if (userId === null) return null;
-  const [row] = await db
-    .select({ role: schema.memberships.role })
-    .from(schema.memberships)
-    .where(and(eq(schema.memberships.teamId, teamId), eq(schema.memberships.userId, userId)));
-  return row?.role ?? null;
+  return membershipRole(db, teamId, userId);
 }
 
 /** The caller's role on the team: 404 when not a member, 403 when below `min`. */
@@ -45,22 +40,25 @@ export async function requireTeamRole(
 }
 
 /**
- * An entry as reads need it: every column but the search index's own (text, vector,
- * fingerprint, facets), which only search reads and which cost more to fetch and decode than
- * the rest of the row together.
+ * An entry as reads need it: its own columns, without the search index's (text, vectors,
+ * fingerprints, facets, stored structure), which only search reads and which cost more to fetch
+ * and decode than the rest of the row together.
  */
-export type EntryRow = Omit<
-  typeof schema.entries.$inferSelect,
-  "searchText" | "searchVector" | "fingerprint" | "facets"
->;
+const ENTRY_COLUMNS = {
+  id: schema.entries.id,
+  teamId: schema.entries.teamId,
+  title: schema.entries.title,
+  category: schema.entries.category,
+  visibility: schema.entries.visibility,
+  currentRevision: schema.entries.currentRevision,
+  createdBy: schema.entries.createdBy,
+  createdAt: schema.entries.createdAt,
+  updatedAt: schema.entries.updatedAt,
+  archivedAt: schema.entries.archivedAt,
+};
 
-const {
-  searchText: _searchText,
-  searchVector: _searchVector,
-  fingerprint: _fingerprint,
-  facets: _facets,
-  ...ENTRY_COLUMNS
-} = getTableColumns(schema.entries);
+/** An entry row as `readableEntry` reads it. */
+export type EntryRow = Pick<typeof schema.entries.$inferSelect, keyof typeof ENTRY_COLUMNS>;
 
 /** An entry with the caller's role on its team (null for an outsider reading a public entry). */
 export interface EntryAccess {

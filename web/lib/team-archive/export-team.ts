@@ -102,11 +102,24 @@ export async function exportTeam(
   for (const u of snapshot.users) lines.push(line("person", u));
   for (const m of snapshot.members)
     lines.push(line("member", { userId: m.userId, role: m.role, createdAt: m.createdAt }));
-  for (const { teamId: _t, searchVector: _v, ...e } of snapshot.entries)
+  // The search features added after the archive format was fixed are left out: they are
+  // derived from the record, and the worker recomputes them for imported entries.
+  for (const {
+    teamId: _t,
+    searchVector: _v,
+    searchSupply: _s,
+    valueFeatures: _vf,
+    fragmentFeatures: _ff,
+    topology: _tp,
+    fingerprintVersion: _fv,
+    searchTags: _tg,
+    hasMismatch: _m,
+    ...e
+  } of snapshot.entries)
     lines.push(line("entry", e));
   for (const r of snapshot.revisions) lines.push(line("revision", r));
   for (const a of snapshot.analyses) lines.push(line("analysis", a));
-  for (const c of snapshot.comments) lines.push(line("comment", c));
+  for (const { searchVector: _v, ...c } of snapshot.comments) lines.push(line("comment", c));
   for (const p of snapshot.photos) {
     lines.push(line("photo", p));
     const bytes = await store.get(p.storageKey);
