@@ -40,8 +40,8 @@ export async function requireTeamRole(
 }
 
 /**
- * An entry as reads need it: its own columns, without the search index's (text, vectors,
- * fingerprints, facets, stored structure), which only search reads and which cost more to fetch
+ * An entry as reads need it: its own columns and its flag and block lists, without the rest of
+ * the search index's (text, vectors, fingerprints, facets, stored structure), which only search reads and which cost more to fetch
  * and decode than the rest of the row together.
  */
 const ENTRY_COLUMNS = {
@@ -55,6 +55,9 @@ const ENTRY_COLUMNS = {
   createdAt: schema.entries.createdAt,
   updatedAt: schema.entries.updatedAt,
   archivedAt: schema.entries.archivedAt,
+  // Short lists the entry API shows as `flags` and `blocks`.
+  searchFlags: schema.entries.searchFlags,
+  searchBlocks: schema.entries.searchBlocks,
 };
 
 /** An entry row as `readableEntry` reads it. */
