@@ -20,6 +20,7 @@ const EXPECTED_TABLES = [
   "teams",
   "users",
   "verifications",
+  "what_if_results",
 ];
 
 describe("migrations", () => {
