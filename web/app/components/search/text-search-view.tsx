@@ -88,7 +88,7 @@ export function TextSearchView({
               {state.cursor ? "No more entries." : "No entries match."}
             </p>
           ) : (
-            <ol className={css.hitList} data-testid="search-results">
+            <ol className={css.hitList} data-testid="entry-list">
               {results.map((hit) => (
                 <li key={hit.entry.id} className={css.hit} data-entry-id={hit.entry.id}>
                   <input
