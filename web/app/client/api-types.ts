@@ -239,6 +239,8 @@ export interface FragmentMatch {
 /** POST /api/search/fragment. */
 export interface FragmentAnswer {
   results: { entry: EntrySummary; matches: FragmentMatch[] }[];
+  /** False when the server stopped before confirming every candidate (the list may be short). */
+  complete?: boolean;
 }
 
 /** The formats a pasted fragment may be written in. */

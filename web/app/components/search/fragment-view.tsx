@@ -110,6 +110,8 @@ export function FragmentView({
         <>
           <p className="muted" role="status">
             {results.length} entr{results.length === 1 ? "y contains" : "ies contain"} the fragment.
+            {search.data?.complete === false &&
+              " The search stopped before checking every candidate, so there may be more; a fragment with more parts narrows it."}
           </p>
           <ol className={css.hitList} data-testid="fragment-results">
             {results.map((r, i) => (
