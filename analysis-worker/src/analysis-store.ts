@@ -3,7 +3,7 @@
  * upsert keyed by (revision, engine version), so a job that runs twice leaves one row.
  */
 import { and, eq, sql } from "drizzle-orm";
-import { schema, type Database } from "@teardown/db";
+import { schema, writeSearchColumns, type Database } from "@teardown/db";
 import type { AnalysisOutput, AnalysisStage } from "@teardown/engine";
 
 export interface RevisionToAnalyse {
@@ -101,18 +101,7 @@ export async function storeDone(
         },
       });
     // Only the current revision's analysis feeds search; an older revision's late result must not.
-    await tx
-      .update(schema.entries)
-      .set({
-        searchBlocks: output.search.blocks,
-        searchFlags: output.search.flags,
-        fingerprint: output.search.fingerprint,
-        facets: output.search.facets,
-        searchText: output.search.text,
-      })
-      .where(
-        and(eq(schema.entries.id, rev.entryId), eq(schema.entries.currentRevision, rev.number)),
-      );
+    await writeSearchColumns(tx, rev.entryId, rev.number, output.search);
   });
 }
 

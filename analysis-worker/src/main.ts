@@ -17,6 +17,7 @@ import {
 } from "@teardown/db";
 import { runAnalysisJob } from "./analysis-job.js";
 import { EngineRunner } from "./engine-runner.js";
+import { backfillFingerprints } from "./fingerprint-backfill.js";
 import { logger } from "./logger.js";
 
 /** How long SIGTERM waits for jobs in hand before releasing them. */
@@ -64,6 +65,16 @@ async function main(): Promise<void> {
     },
   );
   logger.info({ concurrency, budgetMs: ANALYSIS_BUDGET_MS }, "worker ready");
+  // Rows written under an older fingerprint definition are brought up to date in the
+  // background; until then similar and fragment search leave them out.
+  backfillFingerprints(handle.db).then(
+    (done) => done.updated + done.unreadable > 0 && logger.info(done, "fingerprints recomputed"),
+    (err: unknown) =>
+      logger.warn(
+        { err: err instanceof Error ? err.message : String(err) },
+        "fingerprint backfill stopped",
+      ),
+  );
 
   let stopping = false;
   const stop = async (signal: string) => {

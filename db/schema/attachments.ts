@@ -1,8 +1,9 @@
 /** Board photos and comments on an entry (or on one part of it). */
-import { sql } from "drizzle-orm";
+import { sql, type SQL } from "drizzle-orm";
 import { check, index, integer, pgEnum, pgTable, text, timestamp, uuid } from "drizzle-orm/pg-core";
 import { users } from "./auth.js";
 import { entries } from "./entries.js";
+import { tsvector } from "./tsvector.js";
 
 /** The largest photo accepted, in bytes (15 MB). */
 export const MAX_PHOTO_BYTES = 15 * 1024 * 1024;
@@ -55,9 +56,14 @@ export const comments = pgTable(
       .notNull()
       .default(sql`'{}'::text[]`),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+    // Comments are searched only for members of the entry's team (search checks that).
+    searchVector: tsvector("search_vector").generatedAlwaysAs(
+      (): SQL => sql`to_tsvector('simple', ${comments.body})`,
+    ),
   },
   (t) => [
     check("comments_body_length", sql`char_length(${t.body}) between 1 and 10000`),
     index("comments_entry_idx").on(t.entryId, t.createdAt),
+    index("comments_search_vector_idx").using("gin", t.searchVector),
   ],
 );

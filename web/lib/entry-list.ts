@@ -5,7 +5,7 @@
  * or repeat while others save). Entries of teams the caller is not on never appear unless public.
  */
 import { and, asc, desc, eq, isNotNull, isNull, or, sql, type SQL } from "drizzle-orm";
-import { schema, type Database } from "@teardown/db";
+import { schema, type Database, type EntrySummary } from "@teardown/db";
 import { ENGINE_VERSION } from "@teardown/engine";
 import { ApiError } from "./api-error";
 import { requireTeamRole } from "./access";
@@ -92,20 +92,8 @@ function decodeCursor(text: string, byTitle: boolean): Cursor {
 
 const e = schema.entries;
 
-/** One entry in a list. */
-export interface EntrySummary {
-  id: string;
-  teamId: string;
-  title: string;
-  category: string | null;
-  visibility: "team" | "public";
-  currentRevision: number | null;
-  updatedAt: Date;
-  archived: boolean;
-  flags: string[];
-  blocks: string[];
-  analysisState: "queued" | "running" | "done" | "failed" | null;
-}
+/** One entry in a list (the same shape search answers with). */
+export type { EntrySummary };
 
 /** One page of entries the caller may read, and the cursor of the next page (null at the end). */
 export async function listEntries(

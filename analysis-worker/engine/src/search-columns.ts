@@ -1,17 +1,46 @@
 /**
  * What the worker writes into an entry's search columns from one analysis: block kinds, flag
- * codes, fingerprint features, facet figures and the text that full-text search reads.
+ * codes, the topology features of similar-circuit and fragment search, facet figures and the
+ * text that full-text search reads (tags apart, because they weigh more than the body text).
  */
 import type { AnalysisResult } from "./analysis-result.js";
+import { fragmentFeatures } from "./fingerprint/fragment-features.js";
+import { FINGERPRINT_VERSION, fingerprint, valueFeatures } from "./fingerprint/wl-fingerprint.js";
 import type { TeardownRecord } from "./record/types.js";
 
-export interface SearchColumns {
+/** The features of a record that similar-circuit and fragment search read. */
+export interface TopologyColumns {
+  /** Topology-only Weisfeiler-Lehman labels (no values). */
+  fingerprint: number[];
+  /** Part labels with value decades; only orders entries whose topology scores tie. */
+  valueFeatures: number[];
+  /** Kind counts and part-to-part links: the candidate index of fragment search. */
+  fragmentFeatures: number[];
+  /** The feature definitions' version these were computed under. */
+  version: number;
+}
+
+export interface SearchColumns extends TopologyColumns {
   blocks: string[];
   flags: string[];
-  fingerprint: number[];
   facets: Record<string, string | number | boolean | null>;
   /** Summary, markings, notes, part kinds and refs, for full-text search. */
   text: string;
+  /** The device's tags, weighted with the category. */
+  tags: string;
+  /** True when at least one measurement disagrees with the traced circuit's figures. */
+  mismatch: boolean;
+}
+
+/** The topology columns of a record (no analysis needed: the backfill uses this alone). */
+export function topologyColumnsFor(record: TeardownRecord, features?: number[]): TopologyColumns {
+  const fp = features ?? fingerprint(record);
+  return {
+    fingerprint: fp,
+    valueFeatures: valueFeatures(record),
+    fragmentFeatures: fragmentFeatures(record),
+    version: FINGERPRINT_VERSION,
+  };
 }
 
 /** The search columns of a record and its analysis result. */
@@ -22,10 +51,10 @@ export function searchColumnsFor(
 ): SearchColumns {
   const blocks = [...new Set(result.blocks.map((b) => b.kind))].sort();
   const flags = [...new Set(result.flags.map((f) => f.code))].sort();
-  const input = result.status === "not-solved" ? null : result.input;
+  const solved = result.status === "not-solved" ? null : result;
+  const input = solved?.input ?? null;
   const text = [
     record.summary ?? "",
-    record.device.tags.join(" "),
     ...record.parts.map((p) =>
       [p.ref, p.kind, p.marking ?? "", p.value_text ?? "", p.note ?? ""].join(" "),
     ),
@@ -35,9 +64,9 @@ export function searchColumnsFor(
     .replace(/\s+/g, " ")
     .trim();
   return {
+    ...topologyColumnsFor(record, features),
     blocks,
     flags,
-    fingerprint: features,
     facets: {
       supply_vrms: record.device.rated_supply.vrms,
       supply_hz: record.device.rated_supply.hz,
@@ -47,5 +76,7 @@ export function searchColumnsFor(
       analysis_status: result.status,
     },
     text,
+    tags: record.device.tags.join(" "),
+    mismatch: (solved?.comparisons ?? []).some((c) => c.verdict === "disagrees"),
   };
 }
