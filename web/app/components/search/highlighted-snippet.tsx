@@ -9,7 +9,7 @@ export function HighlightedSnippet({ snippet }: { snippet: string }) {
     <p className={css.snippet} data-testid="snippet">
       {pieces.map((p, i) =>
         p.marked ? (
-          <mark key={i} className={css.hit}>
+          <mark key={i} className={css.word}>
             {p.text}
           </mark>
         ) : (
