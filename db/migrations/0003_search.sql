@@ -1,10 +1,11 @@
 -- Search: topology-only fingerprints (recomputed by the worker's backfill at start for every row
--- whose fingerprint_version is behind the engine's), value features, fragment features, tags,
--- the mismatch and supply facets, and comments' text. New columns come first, because the
--- regenerated search_vector reads search_tags; dropping search_vector drops its index, so it is
--- made again.
+-- whose fingerprint_version is behind the engine's), value features, fragment features and the
+-- stored structure fragment search confirms on, tags, the mismatch and supply facets, and
+-- comments' text. New columns come first, because the regenerated search_vector reads
+-- search_tags; dropping search_vector drops its index, so it is made again.
 ALTER TABLE "entries" ADD COLUMN "value_features" integer[] DEFAULT '{}'::integer[] NOT NULL;--> statement-breakpoint
 ALTER TABLE "entries" ADD COLUMN "fragment_features" integer[] DEFAULT '{}'::integer[] NOT NULL;--> statement-breakpoint
+ALTER TABLE "entries" ADD COLUMN "topology" jsonb DEFAULT '{}'::jsonb NOT NULL;--> statement-breakpoint
 ALTER TABLE "entries" ADD COLUMN "fingerprint_version" integer DEFAULT 0 NOT NULL;--> statement-breakpoint
 ALTER TABLE "entries" ADD COLUMN "search_tags" text DEFAULT '' NOT NULL;--> statement-breakpoint
 ALTER TABLE "entries" ADD COLUMN "has_mismatch" boolean DEFAULT false NOT NULL;--> statement-breakpoint

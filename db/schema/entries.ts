@@ -65,6 +65,10 @@ export const entries = pgTable(
       .array()
       .notNull()
       .default(sql`'{}'::integer[]`),
+    // The circuit's structure (parts' kinds and pins, nets' roles): fragment search confirms on it.
+    topology: jsonb("topology")
+      .notNull()
+      .default(sql`'{}'::jsonb`),
     // The engine's feature definitions these columns were computed under; 0 = not yet.
     fingerprintVersion: integer("fingerprint_version").notNull().default(0),
     searchTags: text("search_tags").notNull().default(""),

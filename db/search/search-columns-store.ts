@@ -12,6 +12,8 @@ export interface TopologyColumnValues {
   fingerprint: number[];
   valueFeatures: number[];
   fragmentFeatures: number[];
+  /** The circuit's structure as the engine's topologyOf writes it. */
+  topology: unknown;
   version: number;
 }
 
@@ -40,6 +42,7 @@ export async function writeSearchColumns(
       fingerprint: s.fingerprint,
       valueFeatures: s.valueFeatures,
       fragmentFeatures: s.fragmentFeatures,
+      topology: s.topology,
       fingerprintVersion: s.version,
       facets: s.facets,
       searchText: s.text,
@@ -90,6 +93,7 @@ export async function writeTopologyColumns(
       fingerprint: t.fingerprint,
       valueFeatures: t.valueFeatures,
       fragmentFeatures: t.fragmentFeatures,
+      topology: t.topology,
       fingerprintVersion: t.version,
       searchTags: t.tags,
     })

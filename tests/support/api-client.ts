@@ -35,6 +35,9 @@ const ROUTES: [string, () => Promise<RouteModule>][] = [
   ["/api/teams/:teamId/import", () => import("@/app/api/teams/[teamId]/import/route")],
   ["/api/invites/:token", () => import("@/app/api/invites/[token]/route")],
   ["/api/entries", () => import("@/app/api/entries/route")],
+  ["/api/search", () => import("@/app/api/search/route")],
+  ["/api/search/fragment", () => import("@/app/api/search/fragment/route")],
+  ["/api/entries/:entryId/similar", () => import("@/app/api/entries/[entryId]/similar/route")],
   ["/api/entries/:entryId", () => import("@/app/api/entries/[entryId]/route")],
   ["/api/entries/:entryId/revisions", () => import("@/app/api/entries/[entryId]/revisions/route")],
   [

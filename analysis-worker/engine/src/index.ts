@@ -24,6 +24,7 @@ export * from "./fingerprint/fnv-hash.js";
 export * from "./fingerprint/wl-fingerprint.js";
 export * from "./fingerprint/match-fragment.js";
 export * from "./fingerprint/fragment-features.js";
+export * from "./fingerprint/stored-topology.js";
 export * from "./fingerprint/compare-topology.js";
 export * from "./layout/layout-types.js";
 export * from "./layout/layout-schematic.js";

@@ -5,6 +5,7 @@
  */
 import type { AnalysisResult } from "./analysis-result.js";
 import { fragmentFeatures } from "./fingerprint/fragment-features.js";
+import { topologyOf, type StoredTopology } from "./fingerprint/stored-topology.js";
 import { FINGERPRINT_VERSION, fingerprint, valueFeatures } from "./fingerprint/wl-fingerprint.js";
 import type { TeardownRecord } from "./record/types.js";
 
@@ -16,6 +17,8 @@ export interface TopologyColumns {
   valueFeatures: number[];
   /** Kind counts and part-to-part links: the candidate index of fragment search. */
   fragmentFeatures: number[];
+  /** The structure fragment search confirms candidates on. */
+  topology: StoredTopology;
   /** The feature definitions' version these were computed under. */
   version: number;
 }
@@ -39,6 +42,7 @@ export function topologyColumnsFor(record: TeardownRecord, features?: number[]):
     fingerprint: fp,
     valueFeatures: valueFeatures(record),
     fragmentFeatures: fragmentFeatures(record),
+    topology: topologyOf(record),
     version: FINGERPRINT_VERSION,
   };
 }
@@ -53,16 +57,6 @@ export function searchColumnsFor(
   const flags = [...new Set(result.flags.map((f) => f.code))].sort();
   const solved = result.status === "not-solved" ? null : result;
   const input = solved?.input ?? null;
-  const text = [
-    record.summary ?? "",
-    ...record.parts.map((p) =>
-      [p.ref, p.kind, p.marking ?? "", p.value_text ?? "", p.note ?? ""].join(" "),
-    ),
-    ...Object.values(record.nets).map((n) => n.note ?? ""),
-  ]
-    .join("\n")
-    .replace(/\s+/g, " ")
-    .trim();
   return {
     ...topologyColumnsFor(record, features),
     blocks,
@@ -75,8 +69,22 @@ export function searchColumnsFor(
       input_current_a: input?.current_rms ?? null,
       analysis_status: result.status,
     },
-    text,
+    text: searchTextOf(record),
     tags: record.device.tags.join(" "),
     mismatch: (solved?.comparisons ?? []).some((c) => c.verdict === "disagrees"),
   };
+}
+
+/** The body text full-text search reads: summary, each part's ref, kind, marking, value and note, net notes. */
+export function searchTextOf(record: TeardownRecord): string {
+  return [
+    record.summary ?? "",
+    ...record.parts.map((p) =>
+      [p.ref, p.kind, p.marking ?? "", p.value_text ?? "", p.note ?? ""].join(" "),
+    ),
+    ...Object.values(record.nets).map((n) => n.note ?? ""),
+  ]
+    .join("\n")
+    .replace(/\s+/g, " ")
+    .trim();
 }

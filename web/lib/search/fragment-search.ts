@@ -8,7 +8,7 @@ import {
   FINGERPRINT_VERSION,
   fragmentFeatures,
   matchFragment,
-  parseRecord,
+  recordFromTopology,
   type TeardownRecord,
 } from "@teardown/engine";
 import { fragmentCandidates, type Database } from "@teardown/db";
@@ -62,9 +62,9 @@ export async function searchFragment(
     for (const c of batch) {
       if (now() - start > FRAGMENT_SEARCH_BUDGET_MS) return { hits, complete: false, checked };
       checked++;
-      const parsed = parseRecord(JSON.stringify(c.record), { filename: "revision.json" });
-      if (!parsed.ok) continue;
-      const found = matchFragment(fragment, parsed.record, {
+      const circuit = recordFromTopology(c.topology);
+      if (circuit === null) continue;
+      const found = matchFragment(fragment, circuit, {
         maxMappings: MAX_PLACEMENTS_PER_ENTRY,
         budgetMs: PER_ENTRY_BUDGET_MS,
         now,
