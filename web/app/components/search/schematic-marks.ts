@@ -1,8 +1,8 @@
 /**
  * Marks a fragment's parts on an entry's schematic. The engine draws the schematic; this adds,
  * for each matched part, a `data-matched` attribute on its symbol (the page's style thickens it)
- * and, over the drawing, a dashed frame round the part with a tag naming the fragment's ref, so
- * the match reads in black and white and to a screen reader's text as well as by colour.
+ * and, over the drawing, a dashed frame round the part with a tag under it naming the fragment's
+ * ref, so the match reads in black and white, not by colour alone.
  */
 import { renderSchematicSvg, type SchematicLayout } from "@teardown/engine";
 
@@ -52,11 +52,13 @@ export function markedSchematicSvg(
     const y = part.y - FRAME_GAP_PX;
     const tag = `= ${fragmentRef}`;
     const tagWidth = tag.length * TAG_CHAR_PX + 6;
+    // The tag hangs under the frame: the part's ref and value labels sit above or beside it.
+    const bottom = part.y + part.height + FRAME_GAP_PX;
     frames.push(
       `<g data-match-frame="${ref}">` +
         `<rect x="${num(x)}" y="${num(y)}" width="${num(part.width + 2 * FRAME_GAP_PX)}" height="${num(part.height + 2 * FRAME_GAP_PX)}" fill="none" stroke="#000" stroke-width="2.5" stroke-dasharray="6 3"/>` +
-        `<rect x="${num(x)}" y="${num(y - TAG_FONT_PX - 4)}" width="${num(tagWidth)}" height="${num(TAG_FONT_PX + 4)}" fill="#000"/>` +
-        `<text x="${num(x + 3)}" y="${num(y - 4)}" font-size="${TAG_FONT_PX}" font-weight="bold" fill="#fff">${escapeXml(tag)}</text>` +
+        `<rect x="${num(x)}" y="${num(bottom)}" width="${num(tagWidth)}" height="${num(TAG_FONT_PX + 4)}" fill="#000"/>` +
+        `<text x="${num(x + 3)}" y="${num(bottom + TAG_FONT_PX)}" font-size="${TAG_FONT_PX}" font-weight="bold" fill="#fff">${escapeXml(tag)}</text>` +
         `</g>`,
     );
   }
