@@ -16,3 +16,5 @@ export * from "./search/search-cursor.js";
 export * from "./search/similar-search.js";
 export * from "./search/text-search.js";
 export * from "./search/visibility.js";
+export * from "./queries/analysis-of-revision.js";
+export * from "./queries/membership.js";

@@ -2,8 +2,8 @@
  * The worker's reads and writes. Each write is one transaction; the result is an idempotent
  * upsert keyed by (revision, engine version), so a job that runs twice leaves one row.
  */
-import { and, eq, sql } from "drizzle-orm";
-import { schema, writeSearchColumns, type Database } from "@teardown/db";
+import { eq, sql } from "drizzle-orm";
+import { analysisOfRevision, schema, writeSearchColumns, type Database } from "@teardown/db";
 import type { AnalysisOutput, AnalysisStage } from "@teardown/engine";
 
 export interface RevisionToAnalyse {
@@ -39,16 +39,7 @@ export async function analysisState(
   revisionId: string,
   engineVersion: string,
 ): Promise<string | null> {
-  const rows = await db
-    .select({ state: schema.analyses.state })
-    .from(schema.analyses)
-    .where(
-      and(
-        eq(schema.analyses.revisionId, revisionId),
-        eq(schema.analyses.engineVersion, engineVersion),
-      ),
-    );
-  return rows[0]?.state ?? null;
+  return (await analysisOfRevision(db, revisionId, engineVersion))?.state ?? null;
 }
 
 /** Marks the analysis running (creating the row if a job arrived without one). */

@@ -24,6 +24,8 @@ import { logger } from "./logger.js";
 const SHUTDOWN_GRACE_MS = Number(process.env.WORKER_SHUTDOWN_GRACE_MS ?? 20_000);
 /** The time budget of one analysis. */
 const ANALYSIS_BUDGET_MS = Number(process.env.ANALYSIS_BUDGET_MS ?? 60_000);
+/** How often the worker looks for entries whose search features are behind. */
+const BACKFILL_INTERVAL_MS = 5 * 60_000;
 /** The longest one database call of a job is retried through an outage. */
 const MAX_DB_RETRY_MS = 60_000;
 
@@ -65,16 +67,28 @@ async function main(): Promise<void> {
     },
   );
   logger.info({ concurrency, budgetMs: ANALYSIS_BUDGET_MS }, "worker ready");
-  // Rows written under an older fingerprint definition are brought up to date in the
-  // background; until then similar and fragment search leave them out.
-  backfillFingerprints(handle.db).then(
-    (done) => done.updated + done.unreadable > 0 && logger.info(done, "fingerprints recomputed"),
-    (err: unknown) =>
-      logger.warn(
-        { err: err instanceof Error ? err.message : String(err) },
-        "fingerprint backfill stopped",
-      ),
-  );
+  // Rows written under an older fingerprint definition (or imported from an archive, which
+  // carries no current features) are brought up to date in the background, at start and then
+  // every few minutes; until then similar and fragment search leave them out.
+  let backfilling = false;
+  const backfill = (): void => {
+    if (backfilling) return;
+    backfilling = true;
+    backfillFingerprints(handle.db)
+      .then(
+        (done) =>
+          done.updated + done.unreadable > 0 && logger.info(done, "fingerprints recomputed"),
+        (err: unknown) =>
+          logger.warn(
+            { err: err instanceof Error ? err.message : String(err) },
+            "fingerprint backfill stopped",
+          ),
+      )
+      .finally(() => (backfilling = false));
+  };
+  backfill();
+  const backfillTimer = setInterval(backfill, BACKFILL_INTERVAL_MS);
+  backfillTimer.unref();
 
   let stopping = false;
   const stop = async (signal: string) => {

@@ -20,9 +20,9 @@ export interface FeatureStats {
 }
 
 /** Estimated rows the chosen features may reach together, at least this many. */
-export const MIN_CANDIDATE_BUDGET_ROWS = 2000;
+export const MIN_CANDIDATE_BUDGET_ROWS = 500;
 /** ... or this share of the table, whichever is more. */
-export const CANDIDATE_BUDGET_SHARE = 0.01;
+export const CANDIDATE_BUDGET_SHARE = 0.005;
 
 /**
  * The features to look candidates up by: all of them when there are no statistics or the table

@@ -93,30 +93,31 @@ export async function similarEntries(
   const vf = intArrayParam(query.valueFeatures);
   const candidate =
     lookup === null ? sql`true` : sql`e.fingerprint && ${intArrayParam(lookup)}::int[]`;
+  // Intersections by hash join (each candidate's features against the query's), which stays
+  // linear where per-row array intersections did not.
   const rows = await db.execute<{
     id: string;
     score: number;
     value_score: number;
     shared: string[];
   }>(sql`
-    with c as (
+    with c as materialized (
       select e.id, e.fingerprint, e.value_features, e.search_blocks from entries e
       where ${candidate} and e.fingerprint_version = ${query.version}
         and e.id is distinct from ${query.entryId}::uuid and ${visibleEntry("e", viewerId)}
-    ), scored as (
-      select c.id, c.search_blocks,
-        cardinality(array(select unnest(c.fingerprint) intersect select unnest(${fp}::int[]))) as fi,
-        cardinality(c.fingerprint) as fn,
-        cardinality(array(select unnest(c.value_features) intersect select unnest(${vf}::int[]))) as vi,
-        cardinality(c.value_features) as vn
-      from c
+    ), fi as (
+      select c.id, count(*) as n from c cross join lateral unnest(c.fingerprint) f(x)
+      where f.x in (select unnest(${fp}::int[])) group by c.id
+    ), vi as (
+      select c.id, count(*) as n from c cross join lateral unnest(c.value_features) v(x)
+      where v.x in (select unnest(${vf}::int[])) group by c.id
     )
-    select s.id,
-      s.fi::float8 / nullif(s.fn + ${query.fingerprint.length} - s.fi, 0) as score,
-      coalesce(s.vi::float8 / nullif(s.vn + ${query.valueFeatures.length} - s.vi, 0), 0) as value_score,
-      array(select unnest(s.search_blocks) intersect select unnest(${textArrayParam(query.blocks)}::text[]) order by 1) as shared
-    from scored s where s.fi > 0
-    order by score desc, value_score desc, s.id
+    select c.id,
+      fi.n::float8 / (cardinality(c.fingerprint) + ${query.fingerprint.length} - fi.n) as score,
+      coalesce(vi.n::float8 / nullif(cardinality(c.value_features) + ${query.valueFeatures.length} - vi.n, 0), 0) as value_score,
+      array(select unnest(c.search_blocks) intersect select unnest(${textArrayParam(query.blocks)}::text[]) order by 1) as shared
+    from c join fi on fi.id = c.id left join vi on vi.id = c.id
+    order by score desc, value_score desc, c.id
     limit ${query.limit}`);
   return rows.rows.map((r) => ({
     id: r.id,

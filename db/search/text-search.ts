@@ -99,14 +99,20 @@ export async function searchText(
   const words = query.q?.trim() ?? "";
   const ranked = words !== "";
   const tsq = sql`websearch_to_tsquery('simple', ${words})`;
-  const matching = ranked
-    ? sql`e.id in (select x.id from entries x where x.search_vector @@ ${tsq}
-        union select c.entry_id from comments c join entries y on y.id = c.entry_id
-          where c.search_vector @@ ${tsq} and ${viewersTeam("y", viewerId)})`
-    : sql`true`;
+  // Comment hits (members of the entry's team only), ranked once and joined, rather than looked
+  // up per matched entry.
+  const commentHits = ranked
+    ? sql`select c.entry_id as id, max(ts_rank(c.search_vector, ${tsq})) as r
+        from comments c join entries y on y.id = c.entry_id
+        where c.search_vector @@ ${tsq} and ${viewersTeam("y", viewerId)} group by c.entry_id`
+    : sql`select null::uuid as id, 0::real as r where false`;
+  // A union of ids, so the entries' own GIN index answers the words (an OR would not use it).
+  const source = ranked
+    ? sql`(select x.id from entries x where x.search_vector @@ ${tsq} union select id from cm) ids
+        join entries e on e.id = ids.id left join cm on cm.id = e.id`
+    : sql`entries e left join cm on false`;
   const rank = ranked
-    ? sql`(ts_rank(e.search_vector, ${tsq}) + coalesce((select max(ts_rank(c.search_vector, ${tsq}))
-        from comments c where c.entry_id = e.id and ${viewersTeam("e", viewerId)}), 0))::real`
+    ? sql`(ts_rank(e.search_vector, ${tsq}) + coalesce(cm.r, 0))::real`
     : sql`0::real`;
   const filters = SEARCH_FACETS.map((f) => facetFilter(f, query.filters[f]));
   const flagColumns = SEARCH_FACETS.map(
@@ -114,7 +120,7 @@ export async function searchText(
   );
   const base = sql`select e.id, e.team_id, e.category, e.search_supply, e.search_flags,
       e.search_blocks, e.has_mismatch, e.updated_at, ${rank} as rank, ${sql.join(flagColumns, sql`, `)}
-    from entries e where ${visibleEntry("e", viewerId)} and ${matching}`;
+    from ${source} where ${visibleEntry("e", viewerId)}`;
   const allFilters = sql.join(
     SEARCH_FACETS.map((f) => sql.raw(`b.f_${f}`)),
     sql` and `,
@@ -146,7 +152,8 @@ export async function searchText(
       rank_text: string | null;
       at_text: string | null;
     }>(sql`
-      with base as materialized (${base}),
+      with cm as (${commentHits}),
+      base as materialized (${base}),
       page as (select b.id, b.rank::text as rank_text, b.updated_at::text as at_text from base b
         where ${allFilters} and ${after} order by ${order} limit ${query.limit + 1}),
       facets as (${sql.join(facetQueries, sql` union all `)})

@@ -33,7 +33,7 @@ import {
 } from "@teardown/engine";
 import { searchFragment } from "../../web/lib/search/fragment-search.js";
 import { readFragment } from "../../web/lib/search/fragment-text.js";
-import { BENCH_FRAGMENTS, mainsGadgets } from "./search/mains-circuit-generator.js";
+import { BENCH_FRAGMENTS, inventedWord, mainsGadgets } from "./search/mains-circuit-generator.js";
 
 const ADMIN_URL = process.env.DATABASE_ADMIN_URL ?? "postgres://postgres@127.0.0.1:5432/postgres";
 const TOTAL = Number(process.env.SEARCH_BENCH_ENTRIES ?? 100_000);
@@ -50,8 +50,32 @@ const SIMILAR_QUERIES = 100;
 const TEXT_QUERIES = 100;
 const FULL_SCAN_QUERIES = 10;
 const FRAGMENT_ROUNDS = 4;
-const FLAG_CODES = ["no-fuse", "bleeder-slow", "overstress-voltage", "overstress-power", "capacitor-class", "no-surge-limit"];
-const WORDS = ["dropper", "bridge", "relay coil", "scorched", "amber", "heater", "Quillo", "zener", "charger", "timer socket", "cracked joint", "LED string"];
+const FLAG_CODES = [
+  "no-fuse",
+  "bleeder-slow",
+  "overstress-voltage",
+  "overstress-power",
+  "capacitor-class",
+  "no-surge-limit",
+];
+/** Trade words users type (each in a few percent of summaries); invented words are drawn too. */
+const WORDS = [
+  "dropper",
+  "bridge",
+  "relay coil",
+  "scorched",
+  "amber",
+  "heater",
+  "zener",
+  "charger",
+  "timer socket",
+  "cracked joint",
+  "LED string",
+];
+/** Sizes at which figures are taken (besides the first step and the last), from SEARCH_BENCH_MEASURE_AT. */
+const MEASURE_AT = new Set(
+  (process.env.SEARCH_BENCH_MEASURE_AT ?? "").split(",").filter(Boolean).map(Number),
+);
 
 function quantile(sorted: readonly number[], q: number): number {
   const rank = Math.min(sorted.length - 1, Math.max(0, Math.ceil(q * sorted.length) - 1));
@@ -112,6 +136,8 @@ async function main(): Promise<void> {
     const { teamIds, viewerId } = await makeTeams(db);
     const next = mainsGadgets(20261202);
     const random = mulberry32(7);
+    // Queries draw from their own generator, so measuring at more sizes leaves the data the same.
+    const queryRandom = mulberry32(11);
     const sample: Loaded[] = [];
     const rows: Array<Figures & { entries: number }> = [];
     let loaded = 0;
@@ -131,9 +157,15 @@ async function main(): Promise<void> {
         loaded += n;
       }
       const loadS = (performance.now() - t0) / 1000;
+      const measureHere =
+        MEASURE_AT.size === 0 || loaded === STEP || loaded === TOTAL || MEASURE_AT.has(loaded);
+      if (!measureHere) {
+        console.log(`${loaded} entries (loaded in ${loadS.toFixed(0)} s)`);
+        continue;
+      }
       await pool.query("vacuum analyze entries");
       await fingerprintStats(db, true);
-      const figures = await measure(db, scanDb, viewerId, sample, random);
+      const figures = await measure(db, scanDb, viewerId, sample, queryRandom);
       rows.push({ entries: loaded, ...figures });
       console.log(
         `${loaded} entries (loaded in ${loadS.toFixed(0)} s): similar p50 ${ms(figures.similarP50)} p95 ${ms(figures.similarP95)} ` +
@@ -146,7 +178,9 @@ async function main(): Promise<void> {
     const last = rows[rows.length - 1]!;
     console.log(`\ngrowth ${first.entries} -> ${last.entries} entries (p95):`);
     for (const k of ["similarP95", "textP95", "fragmentP95"] as const)
-      console.log(`  ${k}: ${ms(first[k])} -> ${ms(last[k])} (${(last[k] / first[k]).toFixed(2)}x)`);
+      console.log(
+        `  ${k}: ${ms(first[k])} -> ${ms(last[k])} (${(last[k] / first[k]).toFixed(2)}x)`,
+      );
     console.log(
       `targets at ${last.entries}: similar p95 ${ms(last.similarP95)} (< 50 ms: ${last.similarP95 < 50 ? "met" : "missed"}), ` +
         `text p95 ${ms(last.textP95)} (< 30 ms: ${last.textP95 < 30 ? "met" : "missed"})`,
@@ -163,15 +197,26 @@ async function main(): Promise<void> {
 
 async function makeTeams(db: Database): Promise<{ teamIds: string[]; viewerId: string }> {
   const viewerId = "bench-viewer";
-  await db.insert(schema.users).values({ id: viewerId, name: "Bench Viewer", email: "viewer@bench.example" });
+  await db
+    .insert(schema.users)
+    .values({ id: viewerId, name: "Bench Viewer", email: "viewer@bench.example" });
   const teams = await db
     .insert(schema.teams)
-    .values(Array.from({ length: TEAMS }, (_, i) => ({ name: `Bench lab ${i + 1}`, slug: `bench-lab-${i + 1}` })))
+    .values(
+      Array.from({ length: TEAMS }, (_, i) => ({
+        name: `Bench lab ${i + 1}`,
+        slug: `bench-lab-${i + 1}`,
+      })),
+    )
     .returning({ id: schema.teams.id });
   const teamIds = teams.map((t) => t.id);
   await db
     .insert(schema.memberships)
-    .values(teamIds.slice(0, VIEWER_TEAMS).map((teamId) => ({ teamId, userId: viewerId, role: "viewer" as const })));
+    .values(
+      teamIds
+        .slice(0, VIEWER_TEAMS)
+        .map((teamId) => ({ teamId, userId: viewerId, role: "viewer" as const })),
+    );
   return { teamIds, viewerId };
 }
 
@@ -186,7 +231,15 @@ async function insertBatch(
     const id = randomUUID();
     const topo = topologyColumnsFor(g.record);
     const flags = FLAG_CODES.filter(() => random() < 0.15);
-    return { id, g, topo, flags, team: teamIds[Math.floor(random() * teamIds.length)]!, pub: random() < PUBLIC_SHARE, mismatch: random() < 0.05 };
+    return {
+      id,
+      g,
+      topo,
+      flags,
+      team: teamIds[Math.floor(random() * teamIds.length)]!,
+      pub: random() < PUBLIC_SHARE,
+      mismatch: random() < 0.05,
+    };
   });
   await db.transaction(async (tx) => {
     await tx.insert(schema.entries).values(
@@ -202,7 +255,10 @@ async function insertBatch(
         searchBlocks: m.g.blocks,
         searchFlags: m.flags,
         hasMismatch: m.mismatch,
-        facets: { supply_vrms: m.g.record.device.rated_supply.vrms, supply_hz: m.g.record.device.rated_supply.hz },
+        facets: {
+          supply_vrms: m.g.record.device.rated_supply.vrms,
+          supply_hz: m.g.record.device.rated_supply.hz,
+        },
         fingerprint: m.topo.fingerprint,
         valueFeatures: m.topo.valueFeatures,
         fragmentFeatures: m.topo.fragmentFeatures,
@@ -220,7 +276,10 @@ async function insertBatch(
       })),
     );
   });
-  return made.map((m) => ({ id: m.id, features: { fingerprint: m.topo.fingerprint, valueFeatures: m.topo.valueFeatures } }));
+  return made.map((m) => ({
+    id: m.id,
+    features: { fingerprint: m.topo.fingerprint, valueFeatures: m.topo.valueFeatures },
+  }));
 }
 
 async function measure(
@@ -235,11 +294,20 @@ async function measure(
   const candidates: number[] = [];
   for (let i = 0; i < SIMILAR_QUERIES; i++) {
     const q = sample[Math.floor(random() * sample.length)]!;
-    const query = { entryId: q.id, fingerprint: q.fingerprint, valueFeatures: q.valueFeatures, blocks: q.blocks, version: FINGERPRINT_VERSION, limit: 20 };
+    const query = {
+      entryId: q.id,
+      fingerprint: q.fingerprint,
+      valueFeatures: q.valueFeatures,
+      blocks: q.blocks,
+      version: FINGERPRINT_VERSION,
+      limit: 20,
+    };
     const [t] = await timed(() => similarEntries(db, viewerId, query));
     similar.push(t);
     if (i < FULL_SCAN_QUERIES) {
-      const [ts] = await timed(() => similarEntries(scanDb, viewerId, { ...query, fullScan: true }));
+      const [ts] = await timed(() =>
+        similarEntries(scanDb, viewerId, { ...query, fullScan: true }),
+      );
       similarScan.push(ts);
       candidates.push(await candidateCount(db, q.fingerprint));
     }
@@ -247,21 +315,28 @@ async function measure(
   const text: number[] = [];
   const textScan: number[] = [];
   for (let i = 0; i < TEXT_QUERIES; i++) {
-    const words = WORDS[Math.floor(random() * WORDS.length)]!;
+    // Half trade words, half invented words of middling frequency (rank 20 to 2000).
+    const words =
+      random() < 0.5
+        ? WORDS[Math.floor(random() * WORDS.length)]!
+        : inventedWord(20 + Math.floor(random() * 1980));
     const filters: Partial<Record<SearchFacet, string[]>> = {};
     if (random() < 0.5) filters.flag = [FLAG_CODES[Math.floor(random() * FLAG_CODES.length)]!];
     if (random() < 0.3) filters.block = ["bridge-rectifier", "half-wave-rectifier"];
     const query = { q: words, filters, limit: 20 };
     const [t] = await timed(() => searchText(db, viewerId, query));
     text.push(t);
-    if (i < FULL_SCAN_QUERIES) textScan.push((await timed(() => searchText(scanDb, viewerId, query)))[0]);
+    if (i < FULL_SCAN_QUERIES)
+      textScan.push((await timed(() => searchText(scanDb, viewerId, query)))[0]);
   }
   const fragment: number[] = [];
   for (let round = 0; round < FRAGMENT_ROUNDS; round++)
     for (const f of BENCH_FRAGMENTS) {
       const read = readFragment(f.text, f.format);
       if (!read.ok) throw new Error(`bench fragment does not read: ${read.errors[0]!.message}`);
-      fragment.push((await timed(() => searchFragment(db, viewerId, read.record as TeardownRecord, 20)))[0]);
+      fragment.push(
+        (await timed(() => searchFragment(db, viewerId, read.record as TeardownRecord, 20)))[0],
+      );
     }
   const s = stats(similar);
   const ss = stats(similarScan);

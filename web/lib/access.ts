@@ -3,8 +3,8 @@
  * nothing about it: its team-only entries and the team itself answer 404 exactly as unknown ids
  * do. A member whose role is too low gets 403.
  */
-import { and, eq } from "drizzle-orm";
-import { schema, type Database } from "@teardown/db";
+import { eq } from "drizzle-orm";
+import { membershipRole, schema, type Database } from "@teardown/db";
 import { forbidden, notFound } from "./api-error";
 import type { Caller } from "./caller";
 
@@ -23,12 +23,7 @@ export async function roleOn(
   teamId: string,
   userId: string | null,
 ): Promise<Role | null> {
-  if (userId === null) return null;
-  const [row] = await db
-    .select({ role: schema.memberships.role })
-    .from(schema.memberships)
-    .where(and(eq(schema.memberships.teamId, teamId), eq(schema.memberships.userId, userId)));
-  return row?.role ?? null;
+  return membershipRole(db, teamId, userId);
 }
 
 /** The caller's role on the team: 404 when not a member, 403 when below `min`. */

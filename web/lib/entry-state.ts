@@ -4,12 +4,10 @@
  * done, the newest finished analysis by an older engine version so the page has something to show.
  */
 import { and, desc, eq, ne } from "drizzle-orm";
-import { schema, type Database } from "@teardown/db";
+import { analysisOfRevision, schema, type AnalysisRow, type Database } from "@teardown/db";
 import { ENGINE_VERSION, parseStoredResult, type AnalysisResult } from "@teardown/engine";
 import type { EntryRow, Role } from "./access";
 import { revisionByNumber } from "./revisions";
-
-type AnalysisRow = typeof schema.analyses.$inferSelect;
 
 /** An analysis as the API shows it; which fields are set depends on the state. */
 export type AnalysisView =
@@ -93,22 +91,13 @@ export function entryView(entry: EntryRow) {
   };
 }
 
-/** The analysis of a revision for an engine version, or null when none was queued. */
-export async function analysisFor(
+/** The analysis of a revision for an engine version (the shared query in db/), or null. */
+export function analysisFor(
   db: Database,
   revisionId: string,
   engineVersion = ENGINE_VERSION,
 ): Promise<AnalysisRow | null> {
-  const [row] = await db
-    .select()
-    .from(schema.analyses)
-    .where(
-      and(
-        eq(schema.analyses.revisionId, revisionId),
-        eq(schema.analyses.engineVersion, engineVersion),
-      ),
-    );
-  return row ?? null;
+  return analysisOfRevision(db, revisionId, engineVersion);
 }
 
 /** Everything the entry page shows, for a caller who may read the entry. */

@@ -37,14 +37,102 @@ const CATEGORIES = [
   "clock supply",
   "mat heater",
 ];
-const MAKERS = ["Brindle", "Quillo", "Fennick", "Marrowby", "Tansel", "Orrin", "Pebblewick", "Sorrel", "Vantle", "Cobbet"];
-const ADJECTIVES = ["compact", "amber", "slim", "twin", "budget", "round", "square", "travel", "desk", "wall"];
-const SUMMARY_WORDS = [
-  "board", "traced", "both", "sides", "dropper", "capacitor", "bleeder", "bridge", "rectifier", "zener",
-  "reservoir", "LED", "string", "heater", "relay", "coil", "fuse", "varistor", "marking", "faded",
-  "scorched", "resistor", "cracked", "solder", "joint", "clip", "shell", "screws", "potted", "glue",
+const SYLLABLES = [
+  "bri",
+  "qui",
+  "fen",
+  "mar",
+  "tan",
+  "or",
+  "peb",
+  "sor",
+  "van",
+  "cob",
+  "lu",
+  "zel",
+  "dra",
+  "mo",
+  "kin",
+  "vel",
+  "tor",
+  "ash",
+  "wim",
+  "gry",
 ];
-const TAGS = ["non-isolated", "capacitive dropper", "led", "heater", "relay", "triac", "thyristor", "bridge", "half-wave"];
+
+/** An invented word from two or three syllables, the n-th of a fixed list. */
+function inventedWord(n: number): string {
+  const a = SYLLABLES[n % SYLLABLES.length]!;
+  const b = SYLLABLES[Math.floor(n / SYLLABLES.length) % SYLLABLES.length]!;
+  const c = n >= 400 ? SYLLABLES[Math.floor(n / 400) % SYLLABLES.length]! : "";
+  return a + b + c;
+}
+
+/** A Zipf-like pick from 0..n-1 (rank k with weight about 1/k), as words occur in real text. */
+export function zipfIndex(r: Rand, n: number): number {
+  return Math.min(n - 1, Math.floor(Math.exp(r() * Math.log(n + 1)) - 1));
+}
+
+/** Invented makers and summary vocabulary (no real brands). */
+const MAKER_COUNT = 400;
+const VOCABULARY = 8000;
+export const BENCH_VOCABULARY = VOCABULARY;
+export { inventedWord };
+const ADJECTIVES = [
+  "compact",
+  "amber",
+  "slim",
+  "twin",
+  "budget",
+  "round",
+  "square",
+  "travel",
+  "desk",
+  "wall",
+];
+const SUMMARY_WORDS = [
+  "board",
+  "traced",
+  "both",
+  "sides",
+  "dropper",
+  "capacitor",
+  "bleeder",
+  "bridge",
+  "rectifier",
+  "zener",
+  "reservoir",
+  "LED",
+  "string",
+  "heater",
+  "relay",
+  "coil",
+  "fuse",
+  "varistor",
+  "marking",
+  "faded",
+  "scorched",
+  "resistor",
+  "cracked",
+  "solder",
+  "joint",
+  "clip",
+  "shell",
+  "screws",
+  "potted",
+  "glue",
+];
+const TAGS = [
+  "non-isolated",
+  "capacitive dropper",
+  "led",
+  "heater",
+  "relay",
+  "triac",
+  "thyristor",
+  "bridge",
+  "half-wave",
+];
 
 function pick<T>(r: Rand, list: readonly T[]): T {
   return list[Math.floor(r() * list.length)]!;
@@ -136,7 +224,12 @@ export function mainsGadgets(seed: number): () => GeneratedGadget {
     }
     if (r() < 0.8) {
       b.blocks.add("smoothing-capacitor");
-      b.add("C", "capacitor", { plus: hi, minus: lo }, { polarised: true, value: value(r, -6, -4) });
+      b.add(
+        "C",
+        "capacitor",
+        { plus: hi, minus: lo },
+        { polarised: true, value: value(r, -6, -4) },
+      );
     }
     if (r() < 0.5) {
       b.blocks.add("zener-shunt-regulator");
@@ -169,8 +262,11 @@ export function mainsGadgets(seed: number): () => GeneratedGadget {
       }
     }
     const category = pick(r, CATEGORIES);
-    const maker = pick(r, MAKERS);
-    const words = Array.from({ length: 12 + Math.floor(r() * 20) }, () => pick(r, SUMMARY_WORDS));
+    const maker = inventedWord(zipfIndex(r, MAKER_COUNT));
+    // Mostly invented words, Zipf-distributed, with the trade's words mixed in.
+    const words = Array.from({ length: 12 + Math.floor(r() * 20) }, () =>
+      r() < 0.25 ? pick(r, SUMMARY_WORDS) : inventedWord(zipfIndex(r, VOCABULARY)),
+    );
     const title = `${maker} ${pick(r, ADJECTIVES)} ${category} ${serial}`;
     const summary = words.join(" ");
     const supply = r() < 0.8 ? { vrms: 230, hz: 50 } : { vrms: 120, hz: 60 };
