@@ -3,8 +3,8 @@ import Link from "next/link";
 import { schema } from "@teardown/db";
 import { database } from "@/lib/database";
 import { currentCaller } from "./components/current-caller";
-import { EntryBrowser } from "./components/entry-browser";
 import { SafetyCaution } from "./components/safety-caution";
+import searchCss from "./components/search/search.module.css";
 
 export const dynamic = "force-dynamic";
 
@@ -56,14 +56,30 @@ export default async function HomePage() {
             ? "Searches your teams' entries and every public entry."
             : "Searches public entries; sign in to include your teams' entries."}
         </p>
-        <EntryBrowser endpoint="/api/entries" label="Search results" />
+        {/* A plain GET form: it opens the search page with the words in its URL, even without script. */}
+        <form action="/search" method="get" role="search" className={searchCss.searchForm}>
+          <label className="grow">
+            <span>Words</span>
+            <input
+              name="q"
+              type="search"
+              placeholder="title, summary, tags, markings, notes"
+              aria-label="Search words"
+            />
+          </label>
+          <button type="submit">Search</button>
+        </form>
+        <p className="small">
+          Or look for a <Link href="/search?view=fragment">circuit fragment</Link> you traced, or
+          narrow by <Link href="/search">category, supply, blocks and flags</Link>.
+        </p>
       </section>
       <section>
         <h2>Newest public entries</h2>
         {rows.length === 0 ? (
           <p className="muted">No public entries yet.</p>
         ) : (
-          <table className="list">
+          <table className="list" data-testid="entry-list">
             <thead>
               <tr>
                 <th>Title</th>

@@ -267,3 +267,60 @@ export interface EntryComparison {
   figures: FigureRow[];
   flags: { onlyA: string[]; onlyB: string[]; both: string[] };
 }
+
+/** One value of a search facet and how many entries have it under the current query. */
+export interface FacetCount {
+  value: string;
+  count: number;
+}
+
+/** The facets GET /api/search counts (`mismatch` holds "true"/"false" when the server sends it). */
+export interface SearchFacets {
+  category: FacetCount[];
+  flag: FacetCount[];
+  block: FacetCount[];
+  supply: FacetCount[];
+  team: FacetCount[];
+  mismatch?: FacetCount[];
+}
+
+/** One hit of GET /api/search; `snippet` is escaped text whose matched words sit in <mark>…</mark>. */
+export interface SearchHit {
+  entry: EntrySummary;
+  score: number;
+  snippet: string;
+}
+
+/** GET /api/search. */
+export interface SearchAnswer {
+  results: SearchHit[];
+  facets: SearchFacets;
+  nextCursor: string | null;
+}
+
+/** One hit of GET /api/entries/:id/similar: the entry, its similarity (0..1), blocks both have. */
+export interface SimilarHit {
+  entry: EntrySummary;
+  score: number;
+  sharedBlocks: string[];
+}
+
+/** GET /api/entries/:id/similar, best first. */
+export interface SimilarAnswer {
+  results: SimilarHit[];
+}
+
+/** Where a fragment sits in one entry: fragment part ref → the entry's part ref. */
+export interface FragmentMatch {
+  parts: Record<string, string>;
+}
+
+/** POST /api/search/fragment. */
+export interface FragmentAnswer {
+  results: { entry: EntrySummary; matches: FragmentMatch[] }[];
+  /** False when the server stopped before confirming every candidate (the list may be short). */
+  complete?: boolean;
+}
+
+/** The formats a pasted fragment may be written in. */
+export type FragmentFormat = "record" | "deck" | "csv";

@@ -3,6 +3,8 @@
  * A searchable, sortable, paginated list of entries over one of the API's list endpoints
  * (`/api/entries` for everything the visitor may read, `/api/teams/:id/entries` for one team).
  * Pages follow the API's opaque cursor; the cursors seen so far are kept so "Previous" works.
+ * This is a plain list (sorting, archived entries); ranked search with facet counts, similar
+ * circuits and fragments is the search page, which a link here opens with the same words.
  */
 import { keepPreviousData, useQuery } from "@tanstack/react-query";
 import Link from "next/link";
@@ -28,6 +30,16 @@ const NO_FILTERS: Filters = {
   sort: "updated",
   archived: "exclude",
 };
+/** The search page for the same words (and the same team, for a team's list). */
+function searchPageHref(endpoint: string, q: string): string {
+  const p = new URLSearchParams();
+  const team = /^\/api\/teams\/([^/]+)\/entries$/.exec(endpoint)?.[1];
+  if (q.trim()) p.set("q", q.trim());
+  if (team) p.set("team", decodeURIComponent(team));
+  const qs = p.toString();
+  return qs ? `/search?${qs}` : "/search";
+}
+
 /** Entries per page. */
 const PAGE_SIZE = 20;
 
@@ -151,6 +163,9 @@ export function EntryBrowser(props: { endpoint: string; showArchived?: boolean; 
             </select>
           </label>
         )}
+        <Link href={searchPageHref(props.endpoint, filters.q)}>
+          Ranked search with facet counts
+        </Link>
         {query.isFetching && <span className="muted">Loading…</span>}
       </div>
       {query.isError ? (

@@ -14,6 +14,7 @@ export async function SiteHeader() {
           Teardown Ledger
         </Link>
         <nav aria-label="Main">
+          <Link href="/search">Search</Link>
           {caller ? (
             <>
               <Link href="/teams">Teams</Link>
