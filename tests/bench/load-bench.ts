@@ -215,7 +215,7 @@ async function load(base: string, users: User[], seconds: number, during?: () =>
         await request(
           base,
           "search",
-          `/api/entries?q=${SEARCH_WORDS[turn % SEARCH_WORDS.length]}`,
+          `/api/search?q=${SEARCH_WORDS[turn % SEARCH_WORDS.length]}`,
           { headers: h },
           samples,
         );
