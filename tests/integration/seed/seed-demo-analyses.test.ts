@@ -2,12 +2,18 @@
 // fails), is complete, raises each flag the scenario intends and no danger flag it does not, and
 // its measurements agree or disagree exactly as intended. The mismatch hints are checked on a
 // clock-free engine run, which is deterministic (the worker's hints are cut by a wall-clock
-// budget, so under load they may stop early).
+// budget, so under load they may stop early). Stored results are read back the way the app
+// reads them (parseStoredResult), so a result the schema rejects fails here too.
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { sql } from "drizzle-orm";
 import type { PgBoss } from "pg-boss";
 import { createQueue, recordHash, startQueue } from "@teardown/db";
-import { analyzeStoredRecord } from "@teardown/engine";
+import {
+  analyzeStoredRecord,
+  parseStoredResult,
+  type SolvedResult,
+  type StoredFlag,
+} from "@teardown/engine";
 import { demoRecordDocs, loadDemoData } from "@teardown/seed-demo";
 import {
   REVISION_EXPECTATIONS,
@@ -20,21 +26,6 @@ import path from "node:path";
 import { createTestDatabase, type TestDatabase } from "../../support/test-database.js";
 import { startWorkerProcess, type WorkerProcess } from "../../support/worker-process.js";
 
-interface StoredFlag {
-  code: string;
-  severity: string;
-  parts: string[];
-  nets: string[];
-  message: string;
-  evidence: Record<string, unknown>;
-}
-interface StoredResult {
-  status?: string;
-  gaps?: unknown[];
-  flags: StoredFlag[];
-  comparisons: Array<{ measurement: number; what: string; verdict: string }>;
-}
-
 /** How long all demo analyses may take on a loaded two-core machine. */
 const ALL_ANALYSES_MS = 900_000;
 /** One analysis's budget in the test worker: generous, since helpers share the cores. */
@@ -45,7 +36,7 @@ let boss: PgBoss;
 let worker: WorkerProcess | undefined;
 let uploads: string;
 const docs = demoRecordDocs().flatMap((e) => e.revisions);
-const results = new Map<string, StoredResult>();
+const results = new Map<string, SolvedResult>();
 
 beforeAll(async () => {
   t = await createTestDatabase();
@@ -65,20 +56,32 @@ function matches(f: StoredFlag, want: IntendedFlag): boolean {
   return f.code === want.code && f.severity === want.severity && want.on.every((x) => named.has(x));
 }
 
-/** The part a mismatch hint names, wherever the evidence keeps it. */
+/** The part a mismatch hint names as the explanation, from its labelled evidence. */
 function explainingPart(f: StoredFlag): string | null {
-  const e = f.evidence as { explaining_part?: unknown; explaining?: { part?: unknown } };
-  if (typeof e.explaining_part === "string") return e.explaining_part;
-  if (typeof e.explaining?.part === "string") return e.explaining.part;
-  return /\b([A-Za-z][A-Za-z0-9_]*) at [-0-9.e+]+ \(×/.exec(f.message)?.[1] ?? null;
+  for (const e of f.evidence) {
+    const m = /^value of (\S+) that would explain it$/.exec(e.label);
+    if (m) return m[1]!;
+  }
+  return null;
 }
 
+/** The measurement (0-based, as in the record's list) a mismatch flag is about. */
 function measurementOf(f: StoredFlag): number | null {
-  const m = (f.evidence as { measurement?: unknown }).measurement;
-  return typeof m === "number" ? m : null;
+  const e = f.evidence.find((x) => x.label === "measurement number");
+  // The evidence counts measurements from 1, as a reader does.
+  return typeof e?.value === "number" ? e.value - 1 : null;
 }
 
-function checkAgainstIntent(file: string, r: StoredResult, want: RevisionExpectation): void {
+/** A stored result read back as the app reads it; a not-solved one fails the test. */
+function solvedResult(file: string, raw: unknown): SolvedResult {
+  const read = parseStoredResult(raw);
+  if (!read.ok) throw new Error(`${file}: ${read.message}`);
+  if (read.result.status === "not-solved")
+    throw new Error(`${file}: not solved (${read.result.reason})`);
+  return read.result;
+}
+
+function checkAgainstIntent(file: string, r: SolvedResult, want: RevisionExpectation): void {
   const where = `${file}: `;
   for (const w of want.flags)
     expect(
@@ -100,7 +103,7 @@ function checkAgainstIntent(file: string, r: StoredResult, want: RevisionExpecta
     expect(r.comparisons[m.measurement]?.what).toBe(m.what);
     const hinted = r.flags.filter((f) => f.code === "measurement-mismatch");
     expect(
-      hinted.some((f) => measurementOf(f) === null || measurementOf(f) === m.measurement),
+      hinted.some((f) => measurementOf(f) === m.measurement),
       `${where}a mismatch flag for measurement ${m.measurement}`,
     ).toBe(true);
   }
@@ -130,14 +133,14 @@ describe("the demo's analyses", () => {
       expect(states.rows.map((r) => [r.state, r.n, r.errors])).toEqual([
         ["done", docs.length, null],
       ]);
-      const stored = await t.db.execute<{ record_hash: string; result: StoredResult }>(
+      const stored = await t.db.execute<{ record_hash: string; result: unknown }>(
         sql`select r.record_hash, a.result from analyses a join revisions r on r.id = a.revision_id`,
       );
       const byHash = new Map(stored.rows.map((r) => [r.record_hash, r.result]));
       for (const d of docs) {
         const result = byHash.get(recordHash(d.doc));
         expect(result, `${d.file} has a stored analysis`).toBeDefined();
-        results.set(d.file, result!);
+        results.set(d.file, solvedResult(d.file, result));
       }
     },
     ALL_ANALYSES_MS + 60_000,
@@ -146,9 +149,8 @@ describe("the demo's analyses", () => {
   it("is complete for every revision: nothing left out of the simulation", () => {
     expect(results.size).toBe(docs.length);
     for (const [file, r] of results) {
-      // `status` and `gaps` arrive with the trust work; until then every field is required below.
-      expect(r.status ?? "complete", file).toBe("complete");
-      expect(r.gaps ?? [], file).toEqual([]);
+      expect(r.status, file).toBe("complete");
+      expect(r.gaps, file).toEqual([]);
       for (const d of docs.filter((x) => x.file === file))
         for (const p of d.doc.parts as Array<{ kind: string; model?: Record<string, unknown> }>) {
           if (p.kind === "load") expect(p.model?.r ?? p.model?.c, file).toBeDefined();
@@ -174,11 +176,9 @@ describe("the demo's analyses", () => {
       const out = await analyzeStoredRecord(d.doc);
       expect(out.ok, d.file).toBe(true);
       if (!out.ok) continue;
-      const flags = (out.output.result as unknown as StoredResult).flags.filter(
-        (f) => f.code === "measurement-mismatch",
-      );
+      const flags = out.output.result.flags.filter((f) => f.code === "measurement-mismatch");
       for (const m of want) {
-        const f = flags.find((x) => measurementOf(x) === m.measurement) ?? flags[0];
+        const f = flags.find((x) => measurementOf(x) === m.measurement);
         expect(f && explainingPart(f), `${d.file} measurement ${m.measurement}`).toBe(
           m.explainedBy,
         );

@@ -7,7 +7,6 @@
  * The page owns the state (so it can keep the editor's edits across a stale save) and the submit.
  */
 import { useState, type ReactNode } from "react";
-import { gapsText, type ExpectedGaps } from "@teardown/engine";
 import type { FormState } from "./form-state";
 import { FieldProblems, hasProblem } from "./field-problems";
 import { MeasurementsEditor } from "./measurements-editor";
@@ -15,7 +14,7 @@ import { NetsEditor } from "./nets-editor";
 import { PartsEditor } from "./parts-editor";
 import { fieldPaths, placeProblems, type PlacedProblem } from "./place-errors";
 import { SpacingsEditor } from "./spacings-editor";
-import { checkForm, useLiveCheck } from "./use-live-check";
+import { checkForm, solverShortfall, useLiveCheck } from "./use-live-check";
 import css from "./form.module.css";
 
 export interface FormEditorProps {
@@ -220,12 +219,4 @@ export function FormEditor(props: FormEditorProps) {
       </div>
     </form>
   );
-}
-
-/** One sentence on what an analysis would not cover, or null when it would cover everything. */
-function solverShortfall(expected: ExpectedGaps | null): string | null {
-  if (expected === null) return null;
-  if (expected.notSolvable !== null) return `Nothing will be computed: ${expected.notSolvable}.`;
-  if (expected.gaps.length === 0) return null;
-  return `Left out of the analysis: ${gapsText(expected.gaps)}.`;
 }

@@ -8,6 +8,7 @@ import { useDeferredValue, useMemo } from "react";
 import {
   checkCircuit,
   expectedGaps,
+  gapsText,
   parseRecord,
   type CircuitIssue,
   type ExpectedGaps,
@@ -48,6 +49,14 @@ export function checkForm(state: FormState): LiveCheck {
     issues: checkCircuit(read.record),
     expected: expectedGaps(read.record),
   };
+}
+
+/** One sentence on what an analysis would not cover, or null when it would cover everything. */
+export function solverShortfall(expected: ExpectedGaps | null): string | null {
+  if (expected === null) return null;
+  if (expected.notSolvable !== null) return `Nothing will be computed: ${expected.notSolvable}.`;
+  if (expected.gaps.length === 0) return null;
+  return `Left out of the analysis: ${gapsText(expected.gaps)}.`;
 }
 
 /** The live check of a form state, computed off the typing path (deferred). */
