@@ -1,8 +1,14 @@
 /**
  * The API's response shapes as the browser reads them: one type for each thing, shared by every
- * component (the server's own modules are named beside each where the shape comes from).
+ * component. Where the server declares the shape it sends, the type here is derived from the
+ * server's with `import type` (erased from the browser bundle); the rest name their server module.
  */
+import type { EntrySummary as StoredEntrySummary } from "@teardown/db";
 import type { AnalysisResult } from "@teardown/engine";
+import type { CompareSide, EntryComparison } from "@/lib/compare/compare-entries";
+
+export type { ComparedPair, FigureRow, NetChange } from "@teardown/engine";
+export type { CompareSide, EntryComparison };
 
 /** One problem the API lists (422 bodies), with the file line for records. */
 export interface ApiProblem {
@@ -157,20 +163,8 @@ export interface TeamMemberRow {
   joinedAt: string;
 }
 
-/** One entry as the list endpoints return it. */
-export interface EntrySummary {
-  id: string;
-  teamId: string;
-  title: string;
-  category: string | null;
-  visibility: "team" | "public";
-  currentRevision: number | null;
-  updatedAt: string;
-  archived: boolean;
-  flags: string[];
-  blocks: string[];
-  analysisState: "queued" | "running" | "done" | "failed" | null;
-}
+/** One entry as the list and search endpoints return it: the server's summary, dates as JSON strings. */
+export type EntrySummary = Omit<StoredEntrySummary, "updatedAt"> & { updatedAt: string };
 
 /** An API token as the settings list shows it (never the token itself). */
 export interface TokenInfo {
@@ -212,60 +206,6 @@ export interface TriggerSuggestion {
   value: number;
   series: string;
   angle_deg: number;
-}
-
-/** One side of GET /api/compare (web/lib/compare/compare-entries.ts). */
-export interface CompareSide {
-  entry: {
-    id: string;
-    teamId: string;
-    title: string;
-    category: string | null;
-    visibility: "team" | "public";
-    currentRevision: number | null;
-  };
-  revision: number;
-  /** The finished analysis the figures come from; null when none has finished yet. */
-  analysis: { engineVersion: string; status: "complete" | "partial" | "not-solved" } | null;
-  layout: unknown;
-}
-/** One matched pair of parts (the engine's ComparedPair). */
-export interface ComparedPair {
-  a: string;
-  b: string;
-  kind: string;
-  values: { a: string | null; b: string | null };
-  differs: boolean;
-  confidence: number;
-  by: "structure" | "value" | "kind";
-  marking: { a: string | null; b: string | null };
-}
-/** One computed figure of both boards; difference is B − A, ratio B / A. */
-export interface FigureRow {
-  what: string;
-  unit: string;
-  refs: { a: string | null; b: string | null } | null;
-  a: number | null;
-  b: number | null;
-  difference: number | null;
-  ratio: number | null;
-}
-/** A net that changed; pins as `REF.role` on their own board. */
-export interface NetChange {
-  a: string | null;
-  b: string | null;
-  onlyA: string[];
-  onlyB: string[];
-  changes: string[];
-}
-/** GET /api/compare. */
-export interface EntryComparison {
-  a: CompareSide;
-  b: CompareSide;
-  parts: { pairs: ComparedPair[]; onlyA: string[]; onlyB: string[] };
-  nets: NetChange[];
-  figures: FigureRow[];
-  flags: { onlyA: string[]; onlyB: string[]; both: string[] };
 }
 
 /** One value of a search facet and how many entries have it under the current query. */
