@@ -4,8 +4,8 @@
  * older engine is upgraded for the page, with internal marks gone from its sources.
  */
 import { describe, expect, it } from "vitest";
-import { parseStoredResult, withoutInternalMarks } from "@teardown/engine";
-import { checkForm } from "@/app/components/entry/form/use-live-check";
+import { analyzeCircuit, parseStoredResult, withoutInternalMarks } from "@teardown/engine";
+import { checkForm, solverShortfall } from "@/app/components/entry/form/use-live-check";
 import { emptyForm, formFromDocument } from "@/app/components/entry/form/form-state";
 
 const PARTIAL_DOC = {
@@ -26,16 +26,39 @@ describe("the form editor's account of what the solver needs", () => {
     expect(live.expected?.notSolvable).toBeNull();
     const named = (live.expected?.gaps ?? []).map((g) => g.part ?? `net ${g.net}`);
     expect(named).toEqual(["HT1", "U1", "net A"]);
+    // The sentence the form shows above its submit button, part by part.
+    expect(solverShortfall(live.expected)).toMatch(
+      /^Left out of the analysis: HT1: load without a resistance.*; U1: unknown kind "widget"; net A: /,
+    );
+    // The promise holds: the solver then leaves out exactly what the form said it would.
+    const solved = analyzeCircuit(live.record!, { minSupply: false });
+    if (!solved.ok) throw new Error(solved.error.message);
+    expect(solved.value.gaps.map((g) => g.part ?? `net ${g.net}`)).toEqual(named);
+  });
+
+  it("asks for nothing once the load has a resistance and the unknown part is gone", () => {
+    const doc = {
+      ...PARTIAL_DOC,
+      parts: [
+        PARTIAL_DOC.parts[0],
+        { ...PARTIAL_DOC.parts[1], pins: ["L", "N"], model: { r: 47 } },
+      ],
+    };
+    const live = checkForm(formFromDocument(doc));
+    expect(live.expected).toEqual({ notSolvable: null, gaps: [] });
+    expect(solverShortfall(live.expected)).toBeNull();
   });
 
   it("says nothing will be computed when no net has the line and neutral roles", () => {
     const doc = { ...PARTIAL_DOC, parts: PARTIAL_DOC.parts.slice(0, 1), nets: {} };
     const live = checkForm(formFromDocument(doc));
     expect(live.expected?.notSolvable).toMatch(/line or the neutral role/);
+    expect(solverShortfall(live.expected)).toMatch(/^Nothing will be computed: no net has the/);
   });
 
   it("has nothing to say about an empty form the engine cannot read yet", () => {
     expect(checkForm(emptyForm()).expected ?? null).toBeNull();
+    expect(solverShortfall(checkForm(emptyForm()).expected)).toBeNull();
   });
 });
 
