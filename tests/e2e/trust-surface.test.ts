@@ -1,7 +1,9 @@
 // What an analysis says about itself, in a real browser: a record with a load without a
 // resistance and a part of an unknown kind is uploaded; the upload page shows every warning the
 // reader returned with its line; the entry page then says "partial: … left out (…)" at the top,
-// next to the figures, and the left-out parts read "left out" in the parts table.
+// next to the figures (in the first screenful), and the left-out parts read "left out" in the
+// parts table. Saving that record again from the form editor first asks for what the solver
+// needs and names what will be left out; only a second, explicit click saves it.
 import { existsSync, mkdirSync } from "node:fs";
 import path from "node:path";
 import { chromium, type Browser, type Page } from "playwright-core";
@@ -107,13 +109,36 @@ describe.skipIf(missing)("browser: the analysis states what it left out", () => 
       /^partial: 2 parts and 1 net left out \(HT1: load without a resistance or capacitance \(model\.r or model\.c\); U1: unknown kind "widget"; net A: /,
     );
     // The state comes before the figures: it is the first thing of the results on the page.
+    await page.evaluate(() => window.scrollTo(0, 0));
     const statusTop = (await status.boundingBox())!.y;
     const figuresTop = (await page.getByTestId("input-figures").boundingBox())!.y;
     expect(statusTop).toBeLessThan(figuresTop);
+    // At the top: a reader sees it without scrolling (viewport 900 px high).
+    expect(statusTop).toBeLessThan(900);
+    await page.screenshot({ path: path.join(SHOTS, "trust-entry-partial.png"), fullPage: false });
     // The parts table is one of the entry page's sections, opened by its tab.
     await page.locator('[data-tab="parts"]').click();
     const ht1 = page.locator('[data-testid="part-figures"] tr[data-part="HT1"]');
     await textContaining(ht1, "left out: load without a resistance");
-    await page.screenshot({ path: path.join(SHOTS, "trust-entry-partial.png"), fullPage: false });
+    await page.screenshot({ path: path.join(SHOTS, "trust-entry-parts.png"), fullPage: false });
+
+    // The form editor, on the same record: the first save asks, the second saves anyway.
+    // The open tab lives in the address's #fragment; the entry's own address is without it.
+    const entryUrl = page.url().split("#")[0]!;
+    await page.goto(`${entryUrl}/edit`);
+    const needs = page.getByTestId("solver-needs");
+    await textMatching(
+      needs,
+      /Left out of the analysis: HT1: load without a resistance[\s\S]*U1: unknown kind "widget"/,
+    );
+    await page.locator('input[name="message"]').fill("saved with the heater unmeasured");
+    await page.getByRole("button", { name: "Save revision", exact: true }).click();
+    const anyway = page.getByRole("button", { name: "Save revision anyway" });
+    await anyway.waitFor({ state: "visible" });
+    await textContaining(needs, "Saving now stores the entry with these left out");
+    expect(page.url()).toBe(`${entryUrl}/edit`);
+    await page.screenshot({ path: path.join(SHOTS, "trust-form-asks.png"), fullPage: false });
+    await anyway.click();
+    await page.waitForURL(entryUrl);
   }, 240_000);
 });
