@@ -172,36 +172,33 @@ function partNode(
   };
 }
 
-/** A divider as one box: its two resistors in a column, the tap leaving east. */
-function dividerNode(id: string, divider: DividerMatch): GraphNode {
-  return {
-    id,
-    ...dividerSize(divider),
-    layer: "free",
-    partition: null,
-    ports: dividerPorts(divider).map((p) => ({
-      id: `${id}.${p.key}`,
-      net: p.net,
-      role: p.key,
-      side: p.side,
-      x: p.x,
-      y: p.y,
-    })),
-    labels: [],
-    labelSide: "NORTH",
-    origin: { type: "divider", divider },
-  };
+/** A port of a block drawn as a fixed shape, relative to the block's top-left corner. */
+interface ShapePort {
+  key: string;
+  net: string;
+  side: Side;
+  x: number;
+  y: number;
 }
 
-/** A bridge rectifier as one square box with its four corner ports. */
-function bridgeNode(id: string, bridge: BridgeMatch): GraphNode {
+/**
+ * A recognised block drawn as a fixed shape (a bridge's diamond, a divider's upright pair): one
+ * box for ELK with the shape's ports, opened up into its parts after layout. The box carries no
+ * labels: the block places its parts' labels itself when it is opened.
+ */
+function shapeNode(
+  id: string,
+  size: { width: number; height: number },
+  ports: readonly ShapePort[],
+  origin: Extract<NodeOrigin, { type: "bridge" | "divider" }>,
+): GraphNode {
   return {
     id,
-    width: BRIDGE_SIZE_PX,
-    height: BRIDGE_SIZE_PX,
+    width: size.width,
+    height: size.height,
     layer: "free",
     partition: null,
-    ports: bridgePorts(bridge).map((p) => ({
+    ports: ports.map((p) => ({
       id: `${id}.${p.key}`,
       net: p.net,
       role: p.key,
@@ -211,7 +208,7 @@ function bridgeNode(id: string, bridge: BridgeMatch): GraphNode {
     })),
     labels: [],
     labelSide: "NORTH",
-    origin: { type: "bridge", bridge },
+    origin,
   };
 }
 
@@ -324,8 +321,22 @@ export function buildLayoutGraph(record: TeardownRecord): LayoutGraph {
     if (!inBridge.has(part) && !inDivider.has(part.ref))
       nodes.push(partNode(`p${i}`, part, downNets, upNets));
   });
-  bridges.forEach((bridge, i) => nodes.push(bridgeNode(`b${i}`, bridge)));
-  dividers.forEach((divider, i) => nodes.push(dividerNode(`v${i}`, divider)));
+  bridges.forEach((bridge, i) =>
+    nodes.push(
+      shapeNode(`b${i}`, { width: BRIDGE_SIZE_PX, height: BRIDGE_SIZE_PX }, bridgePorts(bridge), {
+        type: "bridge",
+        bridge,
+      }),
+    ),
+  );
+  dividers.forEach((divider, i) =>
+    nodes.push(
+      shapeNode(`v${i}`, dividerSize(divider), dividerPorts(divider), {
+        type: "divider",
+        divider,
+      }),
+    ),
+  );
 
   const endpointsByNet = new Map<string, Endpoint[]>(netNames.map((n) => [n, []]));
   for (const node of nodes)
