@@ -91,6 +91,10 @@ function settingsFrom(opts: SchematicLayoutOptions): LayeredSettings | Invalid {
   };
 }
 
+/** The nodes that stand for something drawn: every node but the gate groups' unseen boxes. */
+const drawnNodes = (graph: LayoutGraph): GraphNode[] =>
+  graph.nodes.filter((n) => n.origin.type !== "gate-group");
+
 function pinsOf(node: GraphNode, placed: PlacedNode): PlacedPin[] {
   return node.ports.map((p) => {
     const at = placed.ports.get(p.id)!;
@@ -212,6 +216,8 @@ function assemble(
         sectionsByNet.set(w.net, [...(sectionsByNet.get(w.net) ?? []), w.section]);
       continue;
     }
+    // A gate group's box is never drawn: only its parts and wires are solid.
+    if (node.origin.type === "gate-group") continue;
     if (node.origin.type !== "bridge") {
       space.addSolid(boxOf(at));
       continue;
@@ -231,9 +237,10 @@ function assemble(
     list.push(...placed.edges.get(edge.id)!);
     sectionsByNet.set(edge.net, list);
   }
-  // A bridge's ports only join its leads to the outside wires; its diodes' pins are the pins.
+  // The ports of blocks (bridges, dividers) and gate groups only join wires inside them to the
+  // wires outside; the pins of the parts they hold are the pins.
   const allPins = [
-    ...graph.nodes
+    ...drawnNodes(graph)
       .filter((n) => n.origin.type !== "bridge" && n.origin.type !== "divider")
       .flatMap((n) => pinsOf(n, placed.nodes.get(n.id)!)),
     ...bridgeParts.flatMap((b) => b.part.pins),
@@ -402,7 +409,7 @@ function drawRails(
   ].filter(({ net }) => graph.netRoles.has(net));
   const named = new Set(rails.map((r) => r.net));
   const portCount = new Map<string, number>();
-  for (const node of graph.nodes)
+  for (const node of drawnNodes(graph))
     for (const port of node.ports) portCount.set(port.net, (portCount.get(port.net) ?? 0) + 1);
   const tries = [
     ...rails.map((r) => ({ ...r, strict: false })),
@@ -417,14 +424,14 @@ function drawRails(
   ];
   for (const { net, down, strict } of tries) {
     const ends: RailEnd[] = [];
-    for (const node of graph.nodes) {
+    for (const node of drawnNodes(graph)) {
       const at = placed.nodes.get(node.id)!;
       for (const port of node.ports)
         if (port.net === net) ends.push({ ...at.ports.get(port.id)!, side: port.side });
     }
     const runs = [...sectionsByNet].flatMap(([n, list]) => runsOfSections(n, list));
     const others = runs.filter((r) => r.net !== net);
-    const bodies = graph.nodes.map((n) => boxOf(placed.nodes.get(n.id)!));
+    const bodies = drawnNodes(graph).map((n) => boxOf(placed.nodes.get(n.id)!));
     const extent = boundsOf([
       ...bodies,
       ...others.map((r) =>
@@ -519,7 +526,7 @@ function barriersFor(graph: LayoutGraph, placed: PlacedGraph): PlacedBarrier[] {
     const at = placed.nodes.get(n.id)!;
     const x = at.x + at.width / 2;
     // Should ELK ever put another box across the line, draw no boundary rather than a false one.
-    const crossed = graph.nodes.some((m) => {
+    const crossed = drawnNodes(graph).some((m) => {
       const b = placed.nodes.get(m.id)!;
       return m !== n && b.x < x && x < b.x + b.width;
     });
