@@ -40,13 +40,14 @@ function rootOf(ends: readonly Endpoint[]): Endpoint {
 }
 
 /**
- * The side of a group's box where a net leaves it: a bottom rail (the neutral, a return) at
- * the bottom, so it can drop onto the rail; a net some member feeds on the right; any other on
- * the left, where it comes in.
+ * The side of a group's box where a net leaves it, chosen by where the rest of the net is: a
+ * bottom rail (the neutral, a return) at the bottom, so it can drop onto the rail; a net fed
+ * from outside (the supply, a right-hand pin) on the left, where its feed comes from; a net
+ * that only goes on to loads and outputs (drawn last) on the right, toward them.
  */
-function groupPortSide(inner: readonly Endpoint[], bottomRail: boolean): GraphPort["side"] {
+function groupPortSide(outside: readonly Endpoint[], bottomRail: boolean): GraphPort["side"] {
   if (bottomRail) return "SOUTH";
-  return inner.some((e) => e.source) ? "EAST" : "WEST";
+  return outside.some((e) => e.source) ? "WEST" : "EAST";
 }
 
 /**
@@ -87,11 +88,12 @@ export function netEdges(
       continue;
     }
     const outside = ends.filter((e) => e.node.group === null);
+    const fedFromOutside = ends.filter((e) => e.node.group === null);
     for (const scope of scopes) {
       if (scope === null) continue;
       const group = byId.get(scope)!;
       const inner = ends.filter((e) => e.node.group === scope);
-      const side = groupPortSide(inner, bottomRails.has(net));
+      const side = groupPortSide(fedFromOutside, bottomRails.has(net));
       const port: GraphPort = {
         id: `${group.id}.${group.ports.length}`,
         net,
