@@ -33,6 +33,8 @@ function isSource(port: GraphPort, node: GraphNode): boolean {
 function rootOf(ends: readonly Endpoint[]): Endpoint {
   return (
     ends.find((e) => e.node.layer === "first") ??
+    // A rectifier's output feeds its rail, whatever part comes first in the list.
+    ends.find((e) => e.source && e.node.origin.type === "bridge") ??
     ends.find((e) => e.source) ??
     ends.find((e) => e.node.layer !== "last") ??
     ends[0]!
