@@ -14,6 +14,12 @@ import { dividerPorts, dividerSize, findDividers, type DividerMatch } from "./di
 import { railNets, type RailNets } from "./rail-nets.js";
 import { gateGroups } from "./gate-group.js";
 import { netEdges } from "./net-edges.js";
+import {
+  findMultipliers,
+  multiplierPorts,
+  multiplierSize,
+  type MultiplierMatch,
+} from "./multiplier-block.js";
 
 /** Vertical pitch of the ports on a terminal. */
 const TERMINAL_PORT_PITCH_PX = 20;
@@ -48,6 +54,7 @@ export type NodeOrigin =
   | { type: "terminal"; kind: "supply" | "output" }
   | { type: "bridge"; bridge: BridgeMatch }
   | { type: "divider"; divider: DividerMatch }
+  | { type: "multiplier"; multiplier: MultiplierMatch }
   | { type: "gate-group"; device: string };
 
 /** A box to place: a part, a terminal or a bridge rectifier drawn as one diamond. */
@@ -184,7 +191,8 @@ interface ShapePort {
 }
 
 /**
- * A recognised block drawn as a fixed shape (a bridge's diamond, a divider's upright pair): one
+ * A recognised block drawn as a fixed shape (a bridge's diamond, a divider's upright pair, a
+ * multiplier's ladder): one
  * box for ELK with the shape's ports, opened up into its parts after layout. The box carries no
  * labels: the block places its parts' labels itself when it is opened.
  */
@@ -192,7 +200,7 @@ function shapeNode(
   id: string,
   size: { width: number; height: number },
   ports: readonly ShapePort[],
-  origin: Extract<NodeOrigin, { type: "bridge" | "divider" }>,
+  origin: Extract<NodeOrigin, { type: "bridge" | "divider" | "multiplier" }>,
 ): GraphNode {
   return {
     id,
@@ -290,14 +298,23 @@ export function buildLayoutGraph(record: TeardownRecord): LayoutGraph {
     bridges.flatMap((b) => [b.topLeft, b.topRight, b.bottomLeft, b.bottomRight]),
   );
   // Dividers (the engine's block finder's) as upright pairs, their tap leaving east.
+  // Voltage multipliers as regular ladders.
+  const multipliers = findMultipliers(
+    parts,
+    new Set([...inBridge].map((p) => p.ref)),
+    new Set(rails.bottom),
+  );
+  const inLadder = new Set(
+    multipliers.flatMap((m) => m.stages.flatMap((s) => [s.top, s.up, s.down, s.bottom])),
+  );
   const dividers = findDividers(
     record,
     new Set(rails.bottom),
-    new Set([...inBridge].map((p) => p.ref)),
+    new Set([...inBridge, ...inLadder].map((p) => p.ref)),
   );
   const inDivider = new Set(dividers.flatMap((d) => [d.upper.ref, d.lower.ref]));
   parts.forEach((part, i) => {
-    if (!inBridge.has(part) && !inDivider.has(part.ref))
+    if (!inBridge.has(part) && !inLadder.has(part) && !inDivider.has(part.ref))
       nodes.push(partNode(`p${i}`, part, downNets, upNets));
   });
   bridges.forEach((bridge, i) =>
@@ -305,6 +322,14 @@ export function buildLayoutGraph(record: TeardownRecord): LayoutGraph {
       shapeNode(`b${i}`, { width: BRIDGE_SIZE_PX, height: BRIDGE_SIZE_PX }, bridgePorts(bridge), {
         type: "bridge",
         bridge,
+      }),
+    ),
+  );
+  multipliers.forEach((multiplier, i) =>
+    nodes.push(
+      shapeNode(`m${i}`, multiplierSize(multiplier), multiplierPorts(multiplier), {
+        type: "multiplier",
+        multiplier,
       }),
     ),
   );
@@ -336,7 +361,9 @@ export function buildLayoutGraph(record: TeardownRecord): LayoutGraph {
               ? sides.get(o.bridge.topLeft.ref)!
               : o.type === "divider"
                 ? sides.get(o.divider.upper.ref)!
-                : null;
+                : o.type === "multiplier"
+                  ? sides.get(o.multiplier.stages[0]!.up.ref)!
+                  : null;
       // A load left of the transformer cannot be in the last column.
       if (o.type === "part" && node.layer === "last" && node.partition !== 2) node.layer = "free";
     }

@@ -30,6 +30,7 @@ import type {
 } from "./layout-types.js";
 import { BRIDGE_SIZE_PX, expandBridge } from "./bridge-block.js";
 import { expandDivider } from "./divider-block.js";
+import { expandMultiplier } from "./multiplier-block.js";
 import { junctionDots } from "./junction-dots.js";
 import { mergeNetSections } from "./merge-wires.js";
 import { RAIL_GAP_PX, railFor, runsOfSections, type RailEnd, type Run } from "./rail-routes.js";
@@ -199,7 +200,8 @@ function assemble(
   const sectionsByNet = new Map<string, WireSection[]>();
   const terminalNets = new Set<string>();
 
-  // Bridges open up into four diagonal diodes and the leads from their corners to the ports.
+  // Bridges open up into four diagonal diodes, ladders into their rows and zigzag, each with
+  // the leads from its parts to the box's ports.
   const bridgeParts: { node: GraphNode; part: Omit<PlacedPart, "labels"> }[] = [];
   const blockParts: PlacedPart[] = [];
   for (const node of graph.nodes) {
@@ -218,11 +220,14 @@ function assemble(
     }
     // A gate group's box is never drawn: only its parts and wires are solid.
     if (node.origin.type === "gate-group") continue;
-    if (node.origin.type !== "bridge") {
+    if (node.origin.type !== "bridge" && node.origin.type !== "multiplier") {
       space.addSolid(boxOf(at));
       continue;
     }
-    const opened = expandBridge(node.origin.bridge, at);
+    const opened =
+      node.origin.type === "bridge"
+        ? expandBridge(node.origin.bridge, at)
+        : expandMultiplier(node.origin.multiplier, at);
     for (const part of opened.parts) {
       space.addSolid(boxOf(part));
       bridgeParts.push({ node, part });
@@ -241,7 +246,7 @@ function assemble(
   // wires outside; the pins of the parts they hold are the pins.
   const allPins = [
     ...drawnNodes(graph)
-      .filter((n) => n.origin.type !== "bridge" && n.origin.type !== "divider")
+      .filter((n) => !["bridge", "divider", "multiplier"].includes(n.origin.type))
       .flatMap((n) => pinsOf(n, placed.nodes.get(n.id)!)),
     ...bridgeParts.flatMap((b) => b.part.pins),
     ...blockParts.flatMap((p) => p.pins),
@@ -315,17 +320,31 @@ function assemble(
     });
   }
   for (const { node, part } of bridgeParts) {
-    if (node.origin.type !== "bridge") continue;
-    const b = node.origin.bridge;
-    const source = [b.topLeft, b.topRight, b.bottomLeft, b.bottomRight].find(
-      (d) => d.ref === part.ref,
-    )!;
-    // Labels go outside the diamond, beside each diode's outer side.
+    const o = node.origin;
+    if (o.type !== "bridge" && o.type !== "multiplier") continue;
+    const source = (
+      o.type === "bridge"
+        ? [o.bridge.topLeft, o.bridge.topRight, o.bridge.bottomLeft, o.bridge.bottomRight]
+        : o.multiplier.stages.flatMap((s) => [s.top, s.up, s.down, s.bottom])
+    ).find((d) => d.ref === part.ref)!;
     const box = placed.nodes.get(node.id)!;
-    const side = part.x < box.x + BRIDGE_SIZE_PX / 2 ? "WEST" : "EAST";
+    // A bridge's labels go outside the diamond, beside each diode's outer side; a ladder's
+    // beside its upright diodes, above its top row and below its bottom row.
+    const side =
+      o.type === "bridge"
+        ? part.x < box.x + BRIDGE_SIZE_PX / 2
+          ? "WEST"
+          : "EAST"
+        : part.height > part.width
+          ? "EAST"
+          : part.y + part.height / 2 < box.y + box.height / 2
+            ? "NORTH"
+            : "SOUTH";
     const texts: { text: string; of: "ref" | "value" }[] = [{ text: source.ref, of: "ref" }];
     if (source.value_text !== null && source.value_text !== "")
       texts.push({ text: source.value_text, of: "value" });
+    // Above a part the value goes first, nearest the part, so the ref still reads above it.
+    if (side === "NORTH") texts.reverse();
     const labels = texts.map(({ text, of }): PlacedLabel => {
       const { width, height } = labelSize(text);
       const box = space.place(width, height, candidatesAround(part, width, height, side), part);
