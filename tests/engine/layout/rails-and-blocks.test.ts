@@ -114,3 +114,43 @@ describe("a voltage divider is an upright pair", () => {
     expect(right).toBe(true);
   });
 });
+
+describe("a voltage multiplier is a regular ladder", () => {
+  const centre = (p: { x: number; y: number; width: number; height: number }) => ({
+    x: p.x + p.width / 2,
+    y: p.y + p.height / 2,
+  });
+
+  it("zaptrel-bug-zapper: coupling capacitors on top, DC stack below, diodes in a zigzag between", async () => {
+    const layout = await laidOut(demo("zaptrel-bug-zapper.yaml"));
+    const at = (ref: string) => layout.parts.find((p) => p.ref === ref)!;
+    // The two-stage ladder's rows: C1, C3 (input side) and C2, C4 (from the neutral to HV).
+    const [c1, c3, c2, c4] = ["C1", "C3", "C2", "C4"].map((r) => centre(at(r)));
+    expect(c1!.y).toBeCloseTo(c3!.y, 6);
+    expect(c2!.y).toBeCloseTo(c4!.y, 6);
+    expect(c2!.y).toBeGreaterThan(c1!.y);
+    // Every diode stands upright between the rows, all at one height, evenly spaced.
+    const diodes = ["D1", "D2", "D3", "D4"].map(at);
+    for (const d of diodes) {
+      expect(d.height).toBeGreaterThan(d.width);
+      for (const pin of d.pins) {
+        expect(pin.y).toBeGreaterThan(c1!.y);
+        expect(pin.y).toBeLessThan(c2!.y);
+      }
+    }
+    const xs = diodes.map((d) => centre(d).x);
+    const ys = diodes.map((d) => centre(d).y);
+    for (const y of ys) expect(y).toBeCloseTo(ys[0]!, 6);
+    for (let i = 2; i < xs.length; i++) expect(xs[i]! - xs[i - 1]!).toBeCloseTo(xs[1]! - xs[0]!, 6);
+    // The zigzag: each capacitor in the gap between two diodes, top and bottom in turn.
+    const order = ["C1", "D1", "C2", "D2", "C3", "D3", "C4", "D4"].map((r) => centre(at(r)).x);
+    for (let i = 1; i < order.length; i++) expect(order[i]).toBeGreaterThan(order[i - 1]!);
+    // Up diodes (anode on the bottom row's side) alternate with down ones.
+    const anodeBelow = diodes.map((d) => {
+      const anode = d.pins.find((p) => p.role === "anode")!;
+      const cathode = d.pins.find((p) => p.role === "cathode")!;
+      return anode.y > cathode.y;
+    });
+    expect(anodeBelow).toEqual([true, false, true, false]);
+  });
+});

@@ -441,7 +441,8 @@ function drawRails(
         { net, down: false, strict: true },
       ]),
   ];
-  for (const { net, down, strict } of tries) {
+  // Returns whether the net was redrawn.
+  const tryRail = ({ net, down, strict }: (typeof tries)[number]): boolean => {
     const ends: RailEnd[] = [];
     for (const node of drawnNodes(graph)) {
       const at = placed.nodes.get(node.id)!;
@@ -459,11 +460,12 @@ function drawRails(
           : { x: r.at, y: r.lo, width: 0, height: r.hi - r.lo },
       ),
     ]);
-    if (extent === null) continue;
+    if (extent === null) return false;
     const railY = down ? extent.y + extent.height + RAIL_GAP_PX : extent.y - RAIL_GAP_PX;
     const rail = railFor(net, ends, railY, { bodies, runs: others, pins });
     const before = crossingCount(net, runs);
-    if (rail === null || rail.crossings > before || (strict && rail.crossings === before)) continue;
+    if (rail === null || rail.crossings > before || (strict && rail.crossings === before))
+      return false;
     const leads = leadsByNet.get(net) ?? [];
     sectionsByNet.set(
       net,
@@ -472,7 +474,11 @@ function drawRails(
         pins.filter((p) => p.net === net),
       ),
     );
-  }
+    return true;
+  };
+  const failed = tries.filter((t) => !tryRail(t) && !t.strict);
+  // A rail blocked by another net's route may be clear once that net became a bus: one more try.
+  for (const t of failed) tryRail(t);
 }
 
 function shiftPoint(p: Point, dx: number, dy: number): Point {
