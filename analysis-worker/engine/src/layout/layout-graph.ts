@@ -372,3 +372,7 @@ export function buildLayoutGraph(record: TeardownRecord): LayoutGraph {
   const edges = netEdges(netNames, nodes, new Set(rails.bottom));
   return { nodes, edges, netRoles, rails };
 }
+
+/** The nodes that stand for something drawn: every node but the gate groups' unseen boxes. */
+export const drawnNodes = (graph: LayoutGraph): GraphNode[] =>
+  graph.nodes.filter((n) => n.origin.type !== "gate-group");
