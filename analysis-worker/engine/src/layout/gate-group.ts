@@ -6,7 +6,7 @@
  * whole, so no other part can come between the network and the gate it drives. The box itself
  * is never drawn; only its parts and wires are.
  */
-import { findBlocks } from "../blocks/find-blocks.js";
+import type { Block } from "../blocks/block-types.js";
 import type { TeardownRecord } from "../record/types.js";
 import type { GraphNode } from "./layout-graph.js";
 
@@ -17,10 +17,7 @@ function refsOf(node: GraphNode): string[] {
   const o = node.origin;
   if (o.type === "part") return [o.part.ref];
   if (o.type === "divider") return [o.divider.upper.ref, o.divider.lower.ref];
-  if (o.type === "bridge")
-    return [o.bridge.topLeft, o.bridge.topRight, o.bridge.bottomLeft, o.bridge.bottomRight].map(
-      (p) => p.ref,
-    );
+  // A bridge's or a ladder's diodes are never all in a gate network; terminals draw no part.
   return [];
 }
 
@@ -30,10 +27,14 @@ function refsOf(node: GraphNode): string[] {
  * no group yet; a group needs its device and at least one other node, all on one side of an
  * isolating transformer.
  */
-export function gateGroups(record: TeardownRecord, nodes: readonly GraphNode[]): GraphNode[] {
+export function gateGroups(
+  record: TeardownRecord,
+  blocks: readonly Block[],
+  nodes: readonly GraphNode[],
+): GraphNode[] {
   const groups: GraphNode[] = [];
   const kindOf = new Map(record.parts.map((p) => [p.ref, p.kind]));
-  for (const block of findBlocks(record)) {
+  for (const block of blocks) {
     if (!TRIGGER_KINDS.has(block.kind)) continue;
     const refs = new Set(block.parts);
     const members = nodes.filter((n) => {

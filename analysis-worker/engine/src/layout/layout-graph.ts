@@ -13,6 +13,7 @@ import { labelSize } from "./text-size.js";
 import { dividerPorts, dividerSize, findDividers, type DividerMatch } from "./divider-block.js";
 import { railNets, type RailNets } from "./rail-nets.js";
 import { gateGroups } from "./gate-group.js";
+import { findBlocks } from "../blocks/find-blocks.js";
 import { netEdges } from "./net-edges.js";
 import {
   findMultipliers,
@@ -307,8 +308,11 @@ export function buildLayoutGraph(record: TeardownRecord): LayoutGraph {
   const inLadder = new Set(
     multipliers.flatMap((m) => m.stages.flatMap((s) => [s.top, s.up, s.down, s.bottom])),
   );
+  // The engine's functional blocks, found once: dividers and gate networks come from them.
+  const blocks = findBlocks(record);
   const dividers = findDividers(
     record,
+    blocks,
     new Set(rails.bottom),
     new Set([...inBridge, ...inLadder].map((p) => p.ref)),
   );
@@ -368,7 +372,7 @@ export function buildLayoutGraph(record: TeardownRecord): LayoutGraph {
       if (o.type === "part" && node.layer === "last" && node.partition !== 2) node.layer = "free";
     }
   // Gate networks beside their thyristor or triac, each in a box of its own; then the wires.
-  nodes.push(...gateGroups(record, nodes));
+  nodes.push(...gateGroups(record, blocks, nodes));
   const edges = netEdges(netNames, nodes, new Set(rails.bottom));
   return { nodes, edges, netRoles, rails };
 }

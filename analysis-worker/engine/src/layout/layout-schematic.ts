@@ -198,7 +198,7 @@ function assemble(
 
   // Bridges open up into four diagonal diodes, ladders into their rows and zigzag, each with
   // the leads from its parts to the box's ports.
-  const bridgeParts: { node: GraphNode; part: Omit<PlacedPart, "labels"> }[] = [];
+  const shapeParts: { node: GraphNode; part: Omit<PlacedPart, "labels"> }[] = [];
   const blockParts: PlacedPart[] = [];
   for (const node of graph.nodes) {
     const at = placed.nodes.get(node.id)!;
@@ -226,7 +226,7 @@ function assemble(
         : expandMultiplier(node.origin.multiplier, at);
     for (const part of opened.parts) {
       space.addSolid(boxOf(part));
-      bridgeParts.push({ node, part });
+      shapeParts.push({ node, part });
     }
     for (const w of opened.wires)
       sectionsByNet.set(w.net, [...(sectionsByNet.get(w.net) ?? []), w.section]);
@@ -244,7 +244,7 @@ function assemble(
     ...drawnNodes(graph)
       .filter((n) => !["bridge", "divider", "multiplier"].includes(n.origin.type))
       .flatMap((n) => pinsOf(n, placed.nodes.get(n.id)!)),
-    ...bridgeParts.flatMap((b) => b.part.pins),
+    ...shapeParts.flatMap((b) => b.part.pins),
     ...blockParts.flatMap((p) => p.pins),
   ];
   for (const [net, sections] of sectionsByNet)
@@ -315,7 +315,7 @@ function assemble(
       labels,
     });
   }
-  for (const { node, part } of bridgeParts) {
+  for (const { node, part } of shapeParts) {
     const o = node.origin;
     if (o.type !== "bridge" && o.type !== "multiplier") continue;
     const source = (
