@@ -10,38 +10,26 @@
  * failed (the fan control's unit held C2, R3, VR1 and VR2; the heater controller's C2 and VR1;
  * a 60-part circuit's network sat 519 px from its gate).
  */
-import { readdirSync, readFileSync } from "node:fs";
-import path from "node:path";
 import { describe, expect, it } from "vitest";
 import {
   findBlocks,
   layoutSchematic,
-  readCircuitFile,
   type Box,
   type PlacedPart,
   type SchematicLayout,
   type TeardownRecord,
 } from "@teardown/engine";
-import { projectRoot } from "@teardown/db";
 import { generatedCircuitSet } from "../../support/generated-circuits.js";
 import { ALL_TEST_CIRCUITS } from "../../support/circuits/all-test-circuits.js";
 import { LAYOUT_CIRCUITS } from "./layout-circuits.js";
+import { demoCircuits } from "./circuit-set.js";
 
 /** How far the gate pin may be from the network's rectangle. */
 const GATE_REACH_PX = 150;
 const EPS = 0.01;
 
-const RECORDS = path.join(projectRoot(), "seed-demo", "records");
-const demo = readdirSync(RECORDS)
-  .filter((f) => f.endsWith(".yaml"))
-  .sort()
-  .map((f) => {
-    const parsed = readCircuitFile(readFileSync(path.join(RECORDS, f), "utf8"), { filename: f });
-    if (!parsed.ok) throw new Error(`${f}: ${parsed.errors[0]?.message}`);
-    return { name: f, record: parsed.record };
-  });
 const all = [
-  ...demo,
+  ...demoCircuits(),
   ...LAYOUT_CIRCUITS,
   ...ALL_TEST_CIRCUITS.map((c) => ({ name: `library ${c.name}`, record: c.record })),
   ...generatedCircuitSet(),
