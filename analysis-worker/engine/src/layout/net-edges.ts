@@ -89,13 +89,14 @@ export function netEdges(
       wire(net, ends, scopes[0] ?? null);
       continue;
     }
-    const outside = ends.filter((e) => e.node.group === null);
-    const fedFromOutside = ends.filter((e) => e.node.group === null);
+    // Port sides are chosen from the net's own ends outside; the group ports join them after.
+    const ownOutside = ends.filter((e) => e.node.group === null);
+    const outside = [...ownOutside];
     for (const scope of scopes) {
       if (scope === null) continue;
       const group = byId.get(scope)!;
       const inner = ends.filter((e) => e.node.group === scope);
-      const side = groupPortSide(fedFromOutside, bottomRails.has(net));
+      const side = groupPortSide(ownOutside, bottomRails.has(net));
       const port: GraphPort = {
         id: `${group.id}.${group.ports.length}`,
         net,
