@@ -3,8 +3,24 @@
  * shared test-circuit library (tests/support/circuits, `ALL_TEST_CIRCUITS`) when it is there.
  * The library is loaded by a computed path so this file still compiles and runs before it exists.
  */
-import type { TeardownRecord } from "@teardown/engine";
+import { readdirSync, readFileSync } from "node:fs";
+import path from "node:path";
+import { readCircuitFile, type TeardownRecord } from "@teardown/engine";
+import { projectRoot } from "@teardown/db";
 import { LAYOUT_CIRCUITS, type NamedRecord } from "./layout-circuits.js";
+
+/** Every demo record (seed-demo/records), named by its file, in file-name order. */
+export function demoCircuits(): NamedRecord[] {
+  const dir = path.join(projectRoot(), "seed-demo", "records");
+  return readdirSync(dir)
+    .filter((f) => f.endsWith(".yaml"))
+    .sort()
+    .map((f) => {
+      const parsed = readCircuitFile(readFileSync(path.join(dir, f), "utf8"), { filename: f });
+      if (!parsed.ok) throw new Error(`${f}: ${parsed.errors[0]?.message}`);
+      return { name: f, record: parsed.record };
+    });
+}
 
 function isRecord(value: unknown): value is TeardownRecord {
   const v = value as Partial<TeardownRecord> | null;

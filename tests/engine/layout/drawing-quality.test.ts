@@ -6,31 +6,20 @@
  * is drawn as a diamond, the supply enters on the left. The checker is first shown to catch each
  * fault on small hand-made drawings, so a clean result means something.
  */
-import { readdirSync, readFileSync } from "node:fs";
-import path from "node:path";
 import { describe, expect, it } from "vitest";
 import {
   layoutSchematic,
-  readCircuitFile,
   type PlacedPart,
   type SchematicLayout,
   type TeardownRecord,
 } from "@teardown/engine";
-import { projectRoot } from "@teardown/db";
 import { checkDrawing, hardFaults } from "../../support/drawing-check.js";
 import { generatedCircuitSet } from "../../support/generated-circuits.js";
 import { ALL_TEST_CIRCUITS } from "../../support/circuits/all-test-circuits.js";
 import { LAYOUT_CIRCUITS } from "./layout-circuits.js";
+import { demoCircuits } from "./circuit-set.js";
 
-const RECORDS = path.join(projectRoot(), "seed-demo", "records");
-const demo = readdirSync(RECORDS)
-  .filter((f) => f.endsWith(".yaml"))
-  .sort()
-  .map((f) => {
-    const parsed = readCircuitFile(readFileSync(path.join(RECORDS, f), "utf8"), { filename: f });
-    if (!parsed.ok) throw new Error(`${f}: ${parsed.errors[0]?.message}`);
-    return { name: f, record: parsed.record };
-  });
+const demo = demoCircuits();
 const generated = generatedCircuitSet();
 
 async function laidOut(record: TeardownRecord): Promise<SchematicLayout> {

@@ -14,6 +14,8 @@ import {
   type TeardownRecord,
 } from "@teardown/engine";
 import { projectRoot } from "@teardown/db";
+import { part, record } from "../../support/record-factory.js";
+import { checkDrawing, hardFaults } from "../../support/drawing-check.js";
 
 const RECORDS = path.join(projectRoot(), "seed-demo", "records");
 
@@ -112,5 +114,93 @@ describe("a voltage divider is an upright pair", () => {
     const cx = upper.x + upper.width / 2;
     const right = horizontalRuns(layout, tap).some(([, x0, x1]) => x0 <= cx + EPS && x1 > cx + 20);
     expect(right).toBe(true);
+  });
+});
+
+describe("a voltage multiplier is a regular ladder", () => {
+  const centre = (p: { x: number; y: number; width: number; height: number }) => ({
+    x: p.x + p.width / 2,
+    y: p.y + p.height / 2,
+  });
+
+  it("zaptrel-bug-zapper: coupling capacitors on top, DC stack below, diodes in a zigzag between", async () => {
+    const layout = await laidOut(demo("zaptrel-bug-zapper.yaml"));
+    const at = (ref: string) => layout.parts.find((p) => p.ref === ref)!;
+    // The two-stage ladder's rows: C1, C3 (input side) and C2, C4 (from the neutral to HV).
+    const [c1, c3, c2, c4] = ["C1", "C3", "C2", "C4"].map((r) => centre(at(r)));
+    expect(c1!.y).toBeCloseTo(c3!.y, 6);
+    expect(c2!.y).toBeCloseTo(c4!.y, 6);
+    expect(c2!.y).toBeGreaterThan(c1!.y);
+    // Every diode stands upright between the rows, all at one height, evenly spaced.
+    const diodes = ["D1", "D2", "D3", "D4"].map(at);
+    for (const d of diodes) {
+      expect(d.height).toBeGreaterThan(d.width);
+      for (const pin of d.pins) {
+        expect(pin.y).toBeGreaterThan(c1!.y);
+        expect(pin.y).toBeLessThan(c2!.y);
+      }
+    }
+    const xs = diodes.map((d) => centre(d).x);
+    const ys = diodes.map((d) => centre(d).y);
+    for (const y of ys) expect(y).toBeCloseTo(ys[0]!, 6);
+    for (let i = 2; i < xs.length; i++) expect(xs[i]! - xs[i - 1]!).toBeCloseTo(xs[1]! - xs[0]!, 6);
+    // The zigzag: each capacitor in the gap between two diodes, top and bottom in turn.
+    const order = ["C1", "D1", "C2", "D2", "C3", "D3", "C4", "D4"].map((r) => centre(at(r)).x);
+    for (let i = 1; i < order.length; i++) expect(order[i]).toBeGreaterThan(order[i - 1]!);
+    // Up diodes (anode on the bottom row's side) alternate with down ones.
+    const anodeBelow = diodes.map((d) => {
+      const anode = d.pins.find((p) => p.role === "anode")!;
+      const cathode = d.pins.find((p) => p.role === "cathode")!;
+      return anode.y > cathode.y;
+    });
+    expect(anodeBelow).toEqual([true, false, true, false]);
+  });
+});
+
+describe("a negative three-stage multiplier, and a ladder with a tapped node", () => {
+  /** A k-stage ladder with every diode reversed: top nodes T0..Tk, bottom nodes N, B1..Bk. */
+  function negativeLadder(stages: number, tap: boolean) {
+    const t = (i: number) => (i === 0 ? "IN" : `T${i}`);
+    const b = (i: number) => (i === 0 ? "N" : i === stages ? "OUT" : `B${i}`);
+    const parts = [part("F1", "fuse", ["L", "IN"], 1, { value_text: "1A" })];
+    for (let i = 1; i <= stages; i++)
+      parts.push(
+        part(`C${2 * i - 1}`, "capacitor", [t(i - 1), t(i)], 1e-8, { value_text: "10n" }),
+        part(`D${2 * i - 1}`, "diode", { cathode: b(i - 1), anode: t(i) }),
+        part(`D${2 * i}`, "diode", { cathode: t(i), anode: b(i) }),
+        part(`C${2 * i}`, "capacitor", [b(i - 1), b(i)], 1e-8, { value_text: "10n" }),
+      );
+    parts.push(part("R1", "resistor", ["OUT", "N"], 1e8, { value_text: "100M" }));
+    // A part on a node inside the ladder: that node can no longer be the ladder's own.
+    if (tap) parts.push(part("R9", "resistor", ["T2", "N"], 1e6, { value_text: "1M" }));
+    return record(parts, { OUT: { role: "output" } });
+  }
+
+  it("draws three stages of reversed diodes as a ladder: upright, level, evenly spaced", async () => {
+    const layout = await laidOut(negativeLadder(3, false));
+    expect(hardFaults(checkDrawing(layout))).toBe(0);
+    const at = (ref: string) => layout.parts.find((p) => p.ref === ref)!;
+    const diodes = ["D1", "D2", "D3", "D4", "D5", "D6"].map(at);
+    const mid = diodes.map((d) => ({ x: d.x + d.width / 2, y: d.y + d.height / 2 }));
+    for (const d of diodes) expect(d.height).toBeGreaterThan(d.width);
+    for (const m of mid) expect(m.y).toBeCloseTo(mid[0]!.y, 6);
+    for (let i = 2; i < mid.length; i++)
+      expect(mid[i]!.x - mid[i - 1]!.x).toBeCloseTo(mid[1]!.x - mid[0]!.x, 6);
+    // Reversed: the first diode's cathode is on the bottom row (the neutral), its anode above.
+    const d1 = diodes[0]!;
+    const cathode = d1.pins.find((p) => p.role === "cathode")!;
+    const anode = d1.pins.find((p) => p.role === "anode")!;
+    expect(cathode.y).toBeGreaterThan(anode.y);
+  });
+
+  it("keeps a node another part taps out of the ladder: only the stage before it is drawn so", async () => {
+    const layout = await laidOut(negativeLadder(3, true));
+    expect(hardFaults(checkDrawing(layout))).toBe(0);
+    // T2 is tapped, so at most the first stage could form a ladder, and one stage is too few:
+    // the diodes are left to the general layout, which draws them lying down.
+    const lying = ["D1", "D2", "D3", "D4", "D5", "D6"]
+      .map((r) => layout.parts.find((p) => p.ref === r)!)
+      .filter((d) => d.width > d.height);
+    expect(lying.length).toBeGreaterThan(0);
   });
 });

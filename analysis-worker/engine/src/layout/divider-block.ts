@@ -11,7 +11,7 @@
  * it is a bottom rail, goes straight down to a port below the column), and the tap leads east
  * to a port on the right edge.
  */
-import { findBlocks } from "../blocks/find-blocks.js";
+import type { Block } from "../blocks/block-types.js";
 import type { Part, TeardownRecord } from "../record/types.js";
 import type { Box, PlacedPart, PlacedPin, Point, Side, WireSection } from "./layout-types.js";
 import { labelSize } from "./text-size.js";
@@ -52,13 +52,14 @@ const isPlainResistor = (p: Part): boolean =>
  */
 export function findDividers(
   record: TeardownRecord,
+  blocks: readonly Block[],
   downNets: ReadonlySet<string>,
   taken: ReadonlySet<string>,
 ): DividerMatch[] {
   const byRef = new Map(record.parts.map((p) => [p.ref, p]));
   const used = new Set(taken);
   const out: DividerMatch[] = [];
-  for (const block of findBlocks(record)) {
+  for (const block of blocks) {
     if (block.kind !== "voltage-divider" || block.parts.length !== 2) continue;
     const [a, b] = block.parts.map((r) => byRef.get(r)) as [Part | undefined, Part | undefined];
     if (a === undefined || b === undefined || used.has(a.ref) || used.has(b.ref)) continue;

@@ -15,7 +15,7 @@ import type {
   LayoutOptions,
 } from "elkjs/lib/elk-api.js";
 import type { Box, Point, Side, WireSection } from "./layout-types.js";
-import type { GraphNode, LayoutGraph } from "./layout-graph.js";
+import type { GraphEdge, GraphNode, LayoutGraph } from "./layout-graph.js";
 
 /** Spacing choices for the layered algorithm, in pixels. Direction and routing are fixed. */
 export interface LayeredSettings {
@@ -73,7 +73,11 @@ const OPT = {
   layerConstraint: "org.eclipse.elk.layered.layering.layerConstraint",
   portSide: "org.eclipse.elk.port.side",
   labelPlacement: "org.eclipse.elk.nodeLabels.placement",
+  edgeCoords: "org.eclipse.elk.json.edgeCoords",
 } as const;
+
+/** Room between a gate group's box and the parts inside it. */
+const GROUP_PADDING_PX = 6;
 
 /** Where ELK puts a node's labels, by the side we chose for them. */
 const LABEL_PLACEMENT: Record<Side, string> = {
@@ -118,8 +122,42 @@ export function elkRootOptions(s: LayeredSettings): LayoutOptions {
     [OPT.modelOrder]: "NODES_AND_EDGES",
     // One layered graph for everything, so a stray part cannot be packed left of the supply.
     [OPT.separateComponents]: "false",
+    // Every wire in drawing coordinates, also those drawn inside a gate group's box.
+    [OPT.edgeCoords]: "ROOT",
   };
 }
+
+/**
+ * A gate group's box: laid out inside with the drawing's own settings (ELK lays out a box's
+ * inside before the graph around it), its ports on the sides we chose, placed along them by ELK.
+ */
+function toElkGroup(node: GraphNode, graph: LayoutGraph, s: LayeredSettings): ElkNode {
+  const p = String(GROUP_PADDING_PX);
+  const layoutOptions: LayoutOptions = {
+    ...elkRootOptions(s),
+    [OPT.padding]: `[top=${p},left=${p},bottom=${p},right=${p}]`,
+    [OPT.portConstraints]: "FIXED_SIDE",
+  };
+  if (node.partition !== null) layoutOptions[OPT.partition] = String(node.partition);
+  return {
+    id: node.id,
+    layoutOptions,
+    ports: node.ports.map((port): ElkPort => ({
+      id: port.id,
+      width: 0,
+      height: 0,
+      layoutOptions: { [OPT.portSide]: port.side },
+    })),
+    children: graph.nodes.filter((n) => n.group === node.id).map(toElkNode),
+    edges: graph.edges.filter((e) => e.scope === node.id).map(toElkEdge),
+  };
+}
+
+const toElkEdge = (e: GraphEdge): ElkExtendedEdge => ({
+  id: e.id,
+  sources: [e.source],
+  targets: [e.target],
+});
 
 function toElkNode(node: GraphNode): ElkNode {
   const layoutOptions: LayoutOptions = { [OPT.portConstraints]: "FIXED_POS" };
@@ -157,23 +195,38 @@ export function toElkGraph(graph: LayoutGraph, settings: LayeredSettings): ElkNo
   return {
     id: "root",
     layoutOptions,
-    children: graph.nodes.map(toElkNode),
-    edges: graph.edges.map((e): ElkExtendedEdge => ({
-      id: e.id,
-      sources: [e.source],
-      targets: [e.target],
-    })),
+    children: graph.nodes
+      .filter((n) => n.group === null)
+      .map((n) => (n.origin.type === "gate-group" ? toElkGroup(n, graph, settings) : toElkNode(n))),
+    edges: graph.edges.filter((e) => e.scope === null).map(toElkEdge),
   };
 }
 
 const num = (v: number | undefined): number => v ?? 0;
 
-/** ELK's laid-out graph back as absolute geometry (pure). Edges live in the root, so theirs already are. */
+/**
+ * ELK's laid-out graph back as absolute geometry (pure). Boxes, ports and labels are relative
+ * to their parent box, so a gate group's offset is added to its parts; wires are asked for in
+ * drawing coordinates (`edgeCoords`), so theirs already are absolute.
+ */
 export function fromElkGraph(laid: ElkNode): PlacedGraph {
   const nodes = new Map<string, PlacedNode>();
-  for (const child of laid.children ?? []) {
-    const x = num(child.x);
-    const y = num(child.y);
+  const edges = new Map<string, WireSection[]>();
+  collect(laid, 0, 0, nodes, edges);
+  return { width: num(laid.width), height: num(laid.height), nodes, edges };
+}
+
+/** The children and wires of one box, its top-left corner at (ox, oy). */
+function collect(
+  box: ElkNode,
+  ox: number,
+  oy: number,
+  nodes: Map<string, PlacedNode>,
+  edges: Map<string, WireSection[]>,
+): void {
+  for (const child of box.children ?? []) {
+    const x = ox + num(child.x);
+    const y = oy + num(child.y);
     const ports = new Map<string, Point>();
     for (const port of child.ports ?? [])
       ports.set(port.id, { x: x + num(port.x), y: y + num(port.y) });
@@ -191,9 +244,9 @@ export function fromElkGraph(laid: ElkNode): PlacedGraph {
       ports,
       labels,
     });
+    collect(child, x, y, nodes, edges);
   }
-  const edges = new Map<string, WireSection[]>();
-  for (const edge of laid.edges ?? []) {
+  for (const edge of box.edges ?? []) {
     const sections = ((edge as ElkExtendedEdge).sections ?? []).map((s): WireSection => ({
       start: { x: s.startPoint.x, y: s.startPoint.y },
       end: { x: s.endPoint.x, y: s.endPoint.y },
@@ -201,7 +254,6 @@ export function fromElkGraph(laid: ElkNode): PlacedGraph {
     }));
     edges.set(edge.id, sections);
   }
-  return { width: num(laid.width), height: num(laid.height), nodes, edges };
 }
 
 // One ELK instance for the process: building it loads the whole compiled layouter.

@@ -12,6 +12,15 @@ import { isolationSides, type IsolationSide } from "./isolation-sides.js";
 import { labelSize } from "./text-size.js";
 import { dividerPorts, dividerSize, findDividers, type DividerMatch } from "./divider-block.js";
 import { railNets, type RailNets } from "./rail-nets.js";
+import { gateGroups } from "./gate-group.js";
+import { findBlocks } from "../blocks/find-blocks.js";
+import { netEdges } from "./net-edges.js";
+import {
+  findMultipliers,
+  multiplierPorts,
+  multiplierSize,
+  type MultiplierMatch,
+} from "./multiplier-block.js";
 
 /** Vertical pitch of the ports on a terminal. */
 const TERMINAL_PORT_PITCH_PX = 20;
@@ -45,7 +54,9 @@ export type NodeOrigin =
   | { type: "part"; part: Part; symbol: SymbolName; rotation: Rotation }
   | { type: "terminal"; kind: "supply" | "output" }
   | { type: "bridge"; bridge: BridgeMatch }
-  | { type: "divider"; divider: DividerMatch };
+  | { type: "divider"; divider: DividerMatch }
+  | { type: "multiplier"; multiplier: MultiplierMatch }
+  | { type: "gate-group"; device: string };
 
 /** A box to place: a part, a terminal or a bridge rectifier drawn as one diamond. */
 export interface GraphNode {
@@ -62,6 +73,8 @@ export interface GraphNode {
    * transformer, 2 the secondary side; null when nothing is split.
    */
   partition: IsolationSide | null;
+  /** The gate group whose box this node is drawn inside (gate-group.ts), or null. */
+  group: string | null;
   ports: GraphPort[];
   labels: GraphLabel[];
   /** The side of the box where the labels go: one with no pins when there is one. */
@@ -75,6 +88,8 @@ export interface GraphEdge {
   net: string;
   source: string;
   target: string;
+  /** The gate group whose box holds this wire, or null for the drawing itself. */
+  scope: string | null;
 }
 
 /** Nodes and edges in canonical order, with each net's declared role. */
@@ -85,13 +100,6 @@ export interface LayoutGraph {
   netRoles: Map<string, NetRole | null>;
   /** Nets drawn as straight rails where that comes out clean (rail-nets.ts). */
   rails: RailNets;
-}
-
-/** A port as one end of a net, with whether wires should leave it (source) or enter it. */
-interface Endpoint {
-  port: GraphPort;
-  node: GraphNode;
-  source: boolean;
 }
 
 const byCodePoint = (a: string, b: string): number => (a < b ? -1 : a > b ? 1 : 0);
@@ -132,6 +140,7 @@ function terminalNode(
     height,
     layer: kind === "supply" ? "first" : "last",
     partition: null,
+    group: null,
     ports,
     labels: [{ text: caption, ...text, of: "caption" }],
     labelSide: "NORTH",
@@ -165,6 +174,7 @@ function partNode(
     height: geometry.height,
     layer: "free",
     partition: null,
+    group: null,
     ports,
     labels,
     labelSide: freeLabelSide(ports),
@@ -172,36 +182,35 @@ function partNode(
   };
 }
 
-/** A divider as one box: its two resistors in a column, the tap leaving east. */
-function dividerNode(id: string, divider: DividerMatch): GraphNode {
-  return {
-    id,
-    ...dividerSize(divider),
-    layer: "free",
-    partition: null,
-    ports: dividerPorts(divider).map((p) => ({
-      id: `${id}.${p.key}`,
-      net: p.net,
-      role: p.key,
-      side: p.side,
-      x: p.x,
-      y: p.y,
-    })),
-    labels: [],
-    labelSide: "NORTH",
-    origin: { type: "divider", divider },
-  };
+/** A port of a block drawn as a fixed shape, relative to the block's top-left corner. */
+interface ShapePort {
+  key: string;
+  net: string;
+  side: Side;
+  x: number;
+  y: number;
 }
 
-/** A bridge rectifier as one square box with its four corner ports. */
-function bridgeNode(id: string, bridge: BridgeMatch): GraphNode {
+/**
+ * A recognised block drawn as a fixed shape (a bridge's diamond, a divider's upright pair, a
+ * multiplier's ladder): one
+ * box for ELK with the shape's ports, opened up into its parts after layout. The box carries no
+ * labels: the block places its parts' labels itself when it is opened.
+ */
+function shapeNode(
+  id: string,
+  size: { width: number; height: number },
+  ports: readonly ShapePort[],
+  origin: Extract<NodeOrigin, { type: "bridge" | "divider" | "multiplier" }>,
+): GraphNode {
   return {
     id,
-    width: BRIDGE_SIZE_PX,
-    height: BRIDGE_SIZE_PX,
+    width: size.width,
+    height: size.height,
     layer: "free",
     partition: null,
-    ports: bridgePorts(bridge).map((p) => ({
+    group: null,
+    ports: ports.map((p) => ({
       id: `${id}.${p.key}`,
       net: p.net,
       role: p.key,
@@ -211,7 +220,7 @@ function bridgeNode(id: string, bridge: BridgeMatch): GraphNode {
     })),
     labels: [],
     labelSide: "NORTH",
-    origin: { type: "bridge", bridge },
+    origin,
   };
 }
 
@@ -220,10 +229,9 @@ function bridgeNode(id: string, bridge: BridgeMatch): GraphNode {
  * (its wires must leave some node, and ELK refuses an edge leaving a last-layer node): such a
  * load is left free, as is a load shorted by its own pins.
  */
-function pinLoadsLast(
-  nodes: readonly GraphNode[],
-  endpointsByNet: ReadonlyMap<string, Endpoint[]>,
-): void {
+function pinLoadsLast(nodes: readonly GraphNode[], netNames: readonly string[]): void {
+  const nodesByNet = new Map<string, GraphNode[]>(netNames.map((n) => [n, []]));
+  for (const node of nodes) for (const port of node.ports) nodesByNet.get(port.net)!.push(node);
   for (const node of nodes) {
     if (node.origin.type !== "part" || node.origin.part.kind !== "load") continue;
     const nets = node.ports.map((p) => p.net);
@@ -231,37 +239,14 @@ function pinLoadsLast(
   }
   for (let changed = true; changed;) {
     changed = false;
-    for (const ends of endpointsByNet.values()) {
-      if (ends.length < 2 || ends.some((e) => e.node.layer !== "last")) continue;
-      const load = ends.find((e) => e.node.origin.type === "part");
+    for (const ends of nodesByNet.values()) {
+      if (ends.length < 2 || ends.some((n) => n.layer !== "last")) continue;
+      const load = ends.find((n) => n.origin.type === "part");
       if (load === undefined) continue;
-      load.node.layer = "free";
+      load.layer = "free";
       changed = true;
     }
   }
-}
-
-/** Which ends of a net feed it: supply ports and right-hand pins do, last-layer nodes never. */
-function isSource(end: Endpoint): boolean {
-  if (end.node.layer === "first") return true;
-  if (end.node.layer === "last") return false;
-  if (end.node.origin.type === "bridge")
-    return end.port.role === "plus" || end.port.role === "minus";
-  return end.port.side === "EAST";
-}
-
-/**
- * The end a net's wires start from: the supply entry when the net has one (ELK lets nothing
- * enter a first-layer node), else the first feeding end (a right-hand pin), else the first end
- * that is not in the last layer (ELK lets nothing leave one).
- */
-function rootOf(ends: readonly Endpoint[]): Endpoint {
-  return (
-    ends.find((e) => e.node.layer === "first") ??
-    ends.find((e) => e.source) ??
-    ends.find((e) => e.node.layer !== "last") ??
-    ends[0]!
-  );
 }
 
 /** The record's parts, nets and declared roles as a layout graph. */
@@ -314,38 +299,54 @@ export function buildLayoutGraph(record: TeardownRecord): LayoutGraph {
     bridges.flatMap((b) => [b.topLeft, b.topRight, b.bottomLeft, b.bottomRight]),
   );
   // Dividers (the engine's block finder's) as upright pairs, their tap leaving east.
+  // Voltage multipliers as regular ladders.
+  const multipliers = findMultipliers(
+    parts,
+    new Set([...inBridge].map((p) => p.ref)),
+    new Set(rails.bottom),
+  );
+  const inLadder = new Set(
+    multipliers.flatMap((m) => m.stages.flatMap((s) => [s.top, s.up, s.down, s.bottom])),
+  );
+  // The engine's functional blocks, found once: dividers and gate networks come from them.
+  const blocks = findBlocks(record);
   const dividers = findDividers(
     record,
+    blocks,
     new Set(rails.bottom),
-    new Set([...inBridge].map((p) => p.ref)),
+    new Set([...inBridge, ...inLadder].map((p) => p.ref)),
   );
   const inDivider = new Set(dividers.flatMap((d) => [d.upper.ref, d.lower.ref]));
   parts.forEach((part, i) => {
-    if (!inBridge.has(part) && !inDivider.has(part.ref))
+    if (!inBridge.has(part) && !inLadder.has(part) && !inDivider.has(part.ref))
       nodes.push(partNode(`p${i}`, part, downNets, upNets));
   });
-  bridges.forEach((bridge, i) => nodes.push(bridgeNode(`b${i}`, bridge)));
-  dividers.forEach((divider, i) => nodes.push(dividerNode(`v${i}`, divider)));
+  bridges.forEach((bridge, i) =>
+    nodes.push(
+      shapeNode(`b${i}`, { width: BRIDGE_SIZE_PX, height: BRIDGE_SIZE_PX }, bridgePorts(bridge), {
+        type: "bridge",
+        bridge,
+      }),
+    ),
+  );
+  multipliers.forEach((multiplier, i) =>
+    nodes.push(
+      shapeNode(`m${i}`, multiplierSize(multiplier), multiplierPorts(multiplier), {
+        type: "multiplier",
+        multiplier,
+      }),
+    ),
+  );
+  dividers.forEach((divider, i) =>
+    nodes.push(
+      shapeNode(`v${i}`, dividerSize(divider), dividerPorts(divider), {
+        type: "divider",
+        divider,
+      }),
+    ),
+  );
 
-  const endpointsByNet = new Map<string, Endpoint[]>(netNames.map((n) => [n, []]));
-  for (const node of nodes)
-    for (const port of node.ports)
-      endpointsByNet.get(port.net)!.push({ port, node, source: false });
-  pinLoadsLast(nodes, endpointsByNet);
-
-  const edges: GraphEdge[] = [];
-  netNames.forEach((net) => {
-    const ends = endpointsByNet.get(net)!;
-    for (const end of ends) end.source = isSource(end);
-    if (ends.length < 2) return;
-    // One end feeds the whole net and every other end hangs off it: ELK's orthogonal router
-    // draws edges that share a source port as one branching tree (a hyperedge), so the branch
-    // points are real T-joints rather than a junction box placed somewhere in a column.
-    const root = rootOf(ends);
-    for (const end of ends)
-      if (end !== root)
-        edges.push({ id: `e${edges.length}`, net, source: root.port.id, target: end.port.id });
-  });
+  pinLoadsLast(nodes, netNames);
   // An isolated secondary: primary parts left of the transformer, the rest right of it.
   const sides = record.device.tags.some((t) => t.trim().toLowerCase() === "isolated")
     ? isolationSides(record)
@@ -362,9 +363,20 @@ export function buildLayoutGraph(record: TeardownRecord): LayoutGraph {
             ? sides.get(o.part.ref)!
             : o.type === "bridge"
               ? sides.get(o.bridge.topLeft.ref)!
-              : sides.get(o.divider.upper.ref)!;
+              : o.type === "divider"
+                ? sides.get(o.divider.upper.ref)!
+                : o.type === "multiplier"
+                  ? sides.get(o.multiplier.stages[0]!.up.ref)!
+                  : null;
       // A load left of the transformer cannot be in the last column.
       if (o.type === "part" && node.layer === "last" && node.partition !== 2) node.layer = "free";
     }
+  // Gate networks beside their thyristor or triac, each in a box of its own; then the wires.
+  nodes.push(...gateGroups(record, blocks, nodes));
+  const edges = netEdges(netNames, nodes, new Set(rails.bottom));
   return { nodes, edges, netRoles, rails };
 }
+
+/** The nodes that stand for something drawn: every node but the gate groups' unseen boxes. */
+export const drawnNodes = (graph: LayoutGraph): GraphNode[] =>
+  graph.nodes.filter((n) => n.origin.type !== "gate-group");

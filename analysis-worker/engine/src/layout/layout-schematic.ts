@@ -11,7 +11,7 @@ import {
   type PlacedNode,
 } from "./elk-adapter.js";
 import { boundsOf, FreeSpace, sectionBoxes } from "./free-space.js";
-import { buildLayoutGraph, type GraphNode, type LayoutGraph } from "./layout-graph.js";
+import { buildLayoutGraph, drawnNodes, type GraphNode, type LayoutGraph } from "./layout-graph.js";
 import type {
   Box,
   LayoutResult,
@@ -30,9 +30,10 @@ import type {
 } from "./layout-types.js";
 import { BRIDGE_SIZE_PX, expandBridge } from "./bridge-block.js";
 import { expandDivider } from "./divider-block.js";
+import { expandMultiplier } from "./multiplier-block.js";
 import { junctionDots } from "./junction-dots.js";
 import { mergeNetSections } from "./merge-wires.js";
-import { RAIL_GAP_PX, railFor, runsOfSections, type RailEnd, type Run } from "./rail-routes.js";
+import { drawRails } from "./draw-rails.js";
 import { labelSize } from "./text-size.js";
 
 const DEFAULT_NODE_SPACING_PX = 30;
@@ -195,8 +196,9 @@ function assemble(
   const sectionsByNet = new Map<string, WireSection[]>();
   const terminalNets = new Set<string>();
 
-  // Bridges open up into four diagonal diodes and the leads from their corners to the ports.
-  const bridgeParts: { node: GraphNode; part: Omit<PlacedPart, "labels"> }[] = [];
+  // Bridges open up into four diagonal diodes, ladders into their rows and zigzag, each with
+  // the leads from its parts to the box's ports.
+  const shapeParts: { node: GraphNode; part: Omit<PlacedPart, "labels"> }[] = [];
   const blockParts: PlacedPart[] = [];
   for (const node of graph.nodes) {
     const at = placed.nodes.get(node.id)!;
@@ -212,14 +214,19 @@ function assemble(
         sectionsByNet.set(w.net, [...(sectionsByNet.get(w.net) ?? []), w.section]);
       continue;
     }
-    if (node.origin.type !== "bridge") {
+    // A gate group's box is never drawn: only its parts and wires are solid.
+    if (node.origin.type === "gate-group") continue;
+    if (node.origin.type !== "bridge" && node.origin.type !== "multiplier") {
       space.addSolid(boxOf(at));
       continue;
     }
-    const opened = expandBridge(node.origin.bridge, at);
+    const opened =
+      node.origin.type === "bridge"
+        ? expandBridge(node.origin.bridge, at)
+        : expandMultiplier(node.origin.multiplier, at);
     for (const part of opened.parts) {
       space.addSolid(boxOf(part));
-      bridgeParts.push({ node, part });
+      shapeParts.push({ node, part });
     }
     for (const w of opened.wires)
       sectionsByNet.set(w.net, [...(sectionsByNet.get(w.net) ?? []), w.section]);
@@ -231,12 +238,13 @@ function assemble(
     list.push(...placed.edges.get(edge.id)!);
     sectionsByNet.set(edge.net, list);
   }
-  // A bridge's ports only join its leads to the outside wires; its diodes' pins are the pins.
+  // The ports of blocks (bridges, dividers) and gate groups only join wires inside them to the
+  // wires outside; the pins of the parts they hold are the pins.
   const allPins = [
-    ...graph.nodes
-      .filter((n) => n.origin.type !== "bridge" && n.origin.type !== "divider")
+    ...drawnNodes(graph)
+      .filter((n) => !["bridge", "divider", "multiplier"].includes(n.origin.type))
       .flatMap((n) => pinsOf(n, placed.nodes.get(n.id)!)),
-    ...bridgeParts.flatMap((b) => b.part.pins),
+    ...shapeParts.flatMap((b) => b.part.pins),
     ...blockParts.flatMap((p) => p.pins),
   ];
   for (const [net, sections] of sectionsByNet)
@@ -307,18 +315,32 @@ function assemble(
       labels,
     });
   }
-  for (const { node, part } of bridgeParts) {
-    if (node.origin.type !== "bridge") continue;
-    const b = node.origin.bridge;
-    const source = [b.topLeft, b.topRight, b.bottomLeft, b.bottomRight].find(
-      (d) => d.ref === part.ref,
-    )!;
-    // Labels go outside the diamond, beside each diode's outer side.
+  for (const { node, part } of shapeParts) {
+    const o = node.origin;
+    if (o.type !== "bridge" && o.type !== "multiplier") continue;
+    const source = (
+      o.type === "bridge"
+        ? [o.bridge.topLeft, o.bridge.topRight, o.bridge.bottomLeft, o.bridge.bottomRight]
+        : o.multiplier.stages.flatMap((s) => [s.top, s.up, s.down, s.bottom])
+    ).find((d) => d.ref === part.ref)!;
     const box = placed.nodes.get(node.id)!;
-    const side = part.x < box.x + BRIDGE_SIZE_PX / 2 ? "WEST" : "EAST";
+    // A bridge's labels go outside the diamond, beside each diode's outer side; a ladder's
+    // beside its upright diodes, above its top row and below its bottom row.
+    const side =
+      o.type === "bridge"
+        ? part.x < box.x + BRIDGE_SIZE_PX / 2
+          ? "WEST"
+          : "EAST"
+        : part.height > part.width
+          ? "EAST"
+          : part.y + part.height / 2 < box.y + box.height / 2
+            ? "NORTH"
+            : "SOUTH";
     const texts: { text: string; of: "ref" | "value" }[] = [{ text: source.ref, of: "ref" }];
     if (source.value_text !== null && source.value_text !== "")
       texts.push({ text: source.value_text, of: "value" });
+    // Above a part the value goes first, nearest the part, so the ref still reads above it.
+    if (side === "NORTH") texts.reverse();
     const labels = texts.map(({ text, of }): PlacedLabel => {
       const { width, height } = labelSize(text);
       const box = space.place(width, height, candidatesAround(part, width, height, side), part);
@@ -364,89 +386,6 @@ function assemble(
   };
   if (isolated) body.barriers = barriers;
   return body;
-}
-
-/** Crossings between one net's runs and every other net's. */
-function crossingCount(net: string, runs: readonly Run[]): number {
-  let n = 0;
-  for (const a of runs) {
-    if (a.net !== net) continue;
-    for (const b of runs) {
-      if (b.net === net || b.horizontal === a.horizontal) continue;
-      const [h, v] = a.horizontal ? [a, b] : [b, a];
-      if (v.at > h.lo && v.at < h.hi && h.at > v.lo && h.at < v.hi) n += 1;
-    }
-  }
-  return n;
-}
-
-/** Nets with at least this many ends may be drawn as a straight bus to cut crossings. */
-const BUS_MIN_ENDS = 3;
-
-/**
- * Rails (rail-nets.ts): the neutral and rectifier returns as straight lines along the bottom,
- * rectifier outputs along the top, every part on them hanging from them, wherever that is
- * clean and crosses no more wires than ELK's route (see rail-routes.ts). Then the same for
- * any other net of three or more ends, where it crosses strictly fewer.
- */
-function drawRails(
-  graph: LayoutGraph,
-  placed: PlacedGraph,
-  sectionsByNet: Map<string, WireSection[]>,
-  leadsByNet: ReadonlyMap<string, WireSection[]>,
-  pins: readonly PlacedPin[],
-): void {
-  const rails = [
-    ...graph.rails.bottom.map((net) => ({ net, down: true })),
-    ...graph.rails.top.map((net) => ({ net, down: false })),
-  ].filter(({ net }) => graph.netRoles.has(net));
-  const named = new Set(rails.map((r) => r.net));
-  const portCount = new Map<string, number>();
-  for (const node of graph.nodes)
-    for (const port of node.ports) portCount.set(port.net, (portCount.get(port.net) ?? 0) + 1);
-  const tries = [
-    ...rails.map((r) => ({ ...r, strict: false })),
-    // Any other net with three or more ends becomes a straight bus above or below the
-    // drawing when that crosses strictly fewer wires than ELK's route.
-    ...[...portCount]
-      .filter(([net, n]) => n >= BUS_MIN_ENDS && !named.has(net))
-      .flatMap(([net]) => [
-        { net, down: true, strict: true },
-        { net, down: false, strict: true },
-      ]),
-  ];
-  for (const { net, down, strict } of tries) {
-    const ends: RailEnd[] = [];
-    for (const node of graph.nodes) {
-      const at = placed.nodes.get(node.id)!;
-      for (const port of node.ports)
-        if (port.net === net) ends.push({ ...at.ports.get(port.id)!, side: port.side });
-    }
-    const runs = [...sectionsByNet].flatMap(([n, list]) => runsOfSections(n, list));
-    const others = runs.filter((r) => r.net !== net);
-    const bodies = graph.nodes.map((n) => boxOf(placed.nodes.get(n.id)!));
-    const extent = boundsOf([
-      ...bodies,
-      ...others.map((r) =>
-        r.horizontal
-          ? { x: r.lo, y: r.at, width: r.hi - r.lo, height: 0 }
-          : { x: r.at, y: r.lo, width: 0, height: r.hi - r.lo },
-      ),
-    ]);
-    if (extent === null) continue;
-    const railY = down ? extent.y + extent.height + RAIL_GAP_PX : extent.y - RAIL_GAP_PX;
-    const rail = railFor(net, ends, railY, { bodies, runs: others, pins });
-    const before = crossingCount(net, runs);
-    if (rail === null || rail.crossings > before || (strict && rail.crossings === before)) continue;
-    const leads = leadsByNet.get(net) ?? [];
-    sectionsByNet.set(
-      net,
-      mergeNetSections(
-        [...leads, ...rail.sections],
-        pins.filter((p) => p.net === net),
-      ),
-    );
-  }
 }
 
 function shiftPoint(p: Point, dx: number, dy: number): Point {
@@ -519,7 +458,7 @@ function barriersFor(graph: LayoutGraph, placed: PlacedGraph): PlacedBarrier[] {
     const at = placed.nodes.get(n.id)!;
     const x = at.x + at.width / 2;
     // Should ELK ever put another box across the line, draw no boundary rather than a false one.
-    const crossed = graph.nodes.some((m) => {
+    const crossed = drawnNodes(graph).some((m) => {
       const b = placed.nodes.get(m.id)!;
       return m !== n && b.x < x && x < b.x + b.width;
     });
