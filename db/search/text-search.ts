@@ -17,7 +17,7 @@
  * - Facet counts: taken over at most `facetSample` matches (under the words and the visibility
  *   rule), found the same way. Below the cap the counts are exact; above it they are lower
  *   bounds (`facetsExact: false`) and the page shows them as "at least".
- * Both caps are 1,000: ranking 1,000 rows and counting six facets over them takes a few
+ * Both caps are 500: ranking 500 rows and counting six facets over them takes a few
  * milliseconds, and a repository's search rarely needs to order more than that before a person
  * adds a word. Without words, the newest entries come first (an index on the update time) and
  * the facets are counted the same capped way.
@@ -37,9 +37,9 @@ import { viewersTeam, visibleEntry } from "./visibility.js";
 export { SEARCH_FACETS, type FacetCount, type SearchFacet } from "./text-search-facets.js";
 
 /** The most matches ranked (see the module comment). */
-export const RANK_CAP = 1000;
+export const RANK_CAP = 500;
 /** The most matches the facets are counted over (see the module comment). */
-export const FACET_SAMPLE = 1000;
+export const FACET_SAMPLE = 500;
 
 export interface TextSearchQuery {
   q?: string | undefined;
