@@ -32,6 +32,7 @@ import { FINGERPRINT_VERSION, mulberry32, type TeardownRecord } from "@teardown/
 import { searchFragment } from "../../web/lib/search/fragment-search.js";
 import { readFragment } from "../../web/lib/search/fragment-text.js";
 import { benchDatabase, FLAG_CODES, VIEWER_ID } from "./search/bench-database.js";
+import { buffersOf } from "./search/query-buffers.js";
 import { BENCH_FRAGMENTS, inventedWord } from "./search/mains-circuit-generator.js";
 
 const ADMIN_URL = process.env.DATABASE_ADMIN_URL ?? "postgres://postgres@127.0.0.1:5432/postgres";
@@ -100,6 +101,11 @@ interface Figures {
   fragmentP50: number;
   fragmentP95: number;
   candidatesP50: number;
+  /** Shared buffers touched (EXPLAIN BUFFERS): load-independent figures, p50 and p95. */
+  similarBuffers: { p50: number; p95: number };
+  similarScanBuffers: { p50: number; p95: number };
+  textBuffers: { p50: number; p95: number };
+  textScanBuffers: { p50: number; p95: number };
 }
 
 interface Loaded {
@@ -129,7 +135,11 @@ async function main(): Promise<void> {
       const scanDb = drizzle(scanPool, { schema }) as unknown as Database;
       await fingerprintStats(db, true);
       // Queries draw from their own generator, so every size and every rerun asks the same.
-      const figures = await measure(db, scanDb, await similarSample(db), mulberry32(11));
+      const figures = await measure(
+        { db, pool, scanDb, scanPool },
+        await similarSample(db),
+        mulberry32(11),
+      );
       rows.push({ entries: size, ...figures });
       console.log(
         `${size} entries: similar p50 ${ms(figures.similarP50)} p95 ${ms(figures.similarP95)} ` +
@@ -137,6 +147,12 @@ async function main(): Promise<void> {
           `text+facets p50 ${ms(figures.textP50)} p95 ${ms(figures.textP95)} (full scan p50 ${ms(figures.textScanP50)}, ${figures.textRatio.toFixed(1)}x; ` +
           `${(figures.textCappedShare * 100).toFixed(0)}% over the cap); ` +
           `fragment p50 ${ms(figures.fragmentP50)} p95 ${ms(figures.fragmentP95)}; similar candidates p50 ${figures.candidatesP50}`,
+      );
+      const b = (x: { p50: number; p95: number }) => `p50 ${x.p50} p95 ${x.p95}`;
+      console.log(
+        `${size} entries, buffers touched per query (EXPLAIN BUFFERS, unmoved by load): ` +
+          `similar ${b(figures.similarBuffers)} (full scan ${b(figures.similarScanBuffers)}); ` +
+          `text+facets ${b(figures.textBuffers)} (full scan ${b(figures.textScanBuffers)})`,
       );
     } finally {
       await pool.end().catch(() => {});
@@ -148,6 +164,10 @@ async function main(): Promise<void> {
   console.log(`\ngrowth ${first.entries} -> ${last.entries} entries (p95):`);
   for (const k of ["similarP95", "textP95", "fragmentP95"] as const)
     console.log(`  ${k}: ${ms(first[k])} -> ${ms(last[k])} (${(last[k] / first[k]).toFixed(2)}x)`);
+  for (const k of ["similarBuffers", "textBuffers"] as const)
+    console.log(
+      `  ${k} (p95): ${first[k].p95} -> ${last[k].p95} (${(last[k].p95 / first[k].p95).toFixed(2)}x)`,
+    );
   console.log(
     `targets at ${last.entries}: similar p95 ${ms(last.similarP95)} (< 50 ms: ${last.similarP95 < 50 ? "met" : "missed"}), ` +
       `text p95 ${ms(last.textP95)} (< 30 ms: ${last.textP95 < 30 ? "met" : "missed"})`,
@@ -172,12 +192,22 @@ async function similarSample(db: Database): Promise<Loaded[]> {
   }));
 }
 
+interface Connections {
+  db: Database;
+  pool: pg.Pool;
+  scanDb: Database;
+  scanPool: pg.Pool;
+}
+
 async function measure(
-  db: Database,
-  scanDb: Database,
+  { db, pool, scanDb, scanPool }: Connections,
   sample: Loaded[],
   random: () => number,
 ): Promise<Figures> {
+  const similarBuffers: number[] = [];
+  const similarScanBuffers: number[] = [];
+  const textBuffers: number[] = [];
+  const textScanBuffers: number[] = [];
   const similar: number[] = [];
   const similarScan: number[] = [];
   const candidates: number[] = [];
@@ -199,6 +229,12 @@ async function measure(
       );
       similarScan.push(ts);
       candidates.push(await candidateCount(db, q.fingerprint));
+      similarBuffers.push(await buffersOf(pool, (d) => similarEntries(d, VIEWER_ID, query)));
+      similarScanBuffers.push(
+        await buffersOf(scanPool, (d) =>
+          similarEntries(d, VIEWER_ID, { ...query, fullScan: true }),
+        ),
+      );
     }
   }
   const text: number[] = [];
@@ -217,8 +253,11 @@ async function measure(
     const [t, page] = await timed(() => searchText(db, VIEWER_ID, query));
     text.push(t);
     if (!page.facetsExact) capped++;
-    if (i < FULL_SCAN_QUERIES)
+    if (i < FULL_SCAN_QUERIES) {
       textScan.push((await timed(() => searchText(scanDb, VIEWER_ID, query)))[0]);
+      textBuffers.push(await buffersOf(pool, (d) => searchText(d, VIEWER_ID, query)));
+      textScanBuffers.push(await buffersOf(scanPool, (d) => searchText(d, VIEWER_ID, query)));
+    }
   }
   const fragment: number[] = [];
   for (let round = 0; round < FRAGMENT_ROUNDS; round++)
@@ -247,6 +286,10 @@ async function measure(
     fragmentP50: f.p50,
     fragmentP95: f.p95,
     candidatesP50: stats(candidates).p50,
+    similarBuffers: stats(similarBuffers),
+    similarScanBuffers: stats(similarScanBuffers),
+    textBuffers: stats(textBuffers),
+    textScanBuffers: stats(textScanBuffers),
   };
 }
 
