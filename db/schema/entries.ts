@@ -90,6 +90,8 @@ export const entries = pgTable(
       sql`${t.currentRevision} is null or ${t.currentRevision} > 0`,
     ),
     index("entries_team_idx").on(t.teamId, t.updatedAt),
+    // Search without words lists the newest first; this lets it stop at a page.
+    index("entries_updated_idx").on(t.updatedAt, t.id),
     index("entries_search_vector_idx").using("gin", t.searchVector),
     index("entries_search_blocks_idx").using("gin", t.searchBlocks),
     index("entries_search_flags_idx").using("gin", t.searchFlags),

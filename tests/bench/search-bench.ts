@@ -1,63 +1,51 @@
 /**
  * Search at scale: a seeded generator of plausible mains gadgets (tests/bench/search/) is
- * bulk-loaded into a scratch database on the server at 127.0.0.1:5432 (or DATABASE_ADMIN_URL) in
- * steps, and at each step the bench times, as one member of three of 50 teams:
+ * bulk-loaded into databases on the server at 127.0.0.1:5432 (or DATABASE_ADMIN_URL), one per
+ * measured size, which are kept between runs (see search/bench-database.ts: a rerun reuses them
+ * and only times queries). At each size the bench times, as one member of three of 50 teams:
  * - similar circuits (the indexed candidate method) and the same query as a full scan (every
  *   row compared, index scans switched off), with their ratio;
  * - text plus facets (words, sometimes facet filters) and the same with index scans off;
  * - fragment search (five fragments from the block patterns, 20 hits at most).
- * Sizes: SEARCH_BENCH_ENTRIES (default 100000) in steps of SEARCH_BENCH_STEP (default 10000).
+ * Sizes: SEARCH_BENCH_STEP (default 10000) and SEARCH_BENCH_ENTRIES (default 100000), plus any in
+ * SEARCH_BENCH_MEASURE_AT (comma-separated). SEARCH_BENCH_FRESH=1 loads every size again.
+ * Run alone: `npx tsx tests/bench/search-bench.ts`.
  * A measurement, not a test: it prints figures and fails only when something breaks. Targets
  * from issue 12: p95 < 50 ms similar, < 30 ms text.
  */
-import { randomBytes, randomUUID } from "node:crypto";
 import pg from "pg";
 import { drizzle } from "drizzle-orm/node-postgres";
 import { sql } from "drizzle-orm";
 import {
-  applyMigrations,
   createPool,
   fingerprintStats,
+  intArrayParam,
+  rareFeatures,
   schema,
   searchText,
   similarEntries,
+  visibleEntry,
   type Database,
   type SearchFacet,
 } from "@teardown/db";
-import {
-  FINGERPRINT_VERSION,
-  mulberry32,
-  searchTextOf,
-  topologyColumnsFor,
-  type TeardownRecord,
-} from "@teardown/engine";
+import { FINGERPRINT_VERSION, mulberry32, type TeardownRecord } from "@teardown/engine";
 import { searchFragment } from "../../web/lib/search/fragment-search.js";
 import { readFragment } from "../../web/lib/search/fragment-text.js";
-import { BENCH_FRAGMENTS, inventedWord, mainsGadgets } from "./search/mains-circuit-generator.js";
+import { benchDatabase, FLAG_CODES, VIEWER_ID } from "./search/bench-database.js";
+import { buffersOf } from "./search/query-buffers.js";
+import { BENCH_FRAGMENTS, inventedWord } from "./search/mains-circuit-generator.js";
 
 const ADMIN_URL = process.env.DATABASE_ADMIN_URL ?? "postgres://postgres@127.0.0.1:5432/postgres";
 const TOTAL = Number(process.env.SEARCH_BENCH_ENTRIES ?? 100_000);
 const STEP = Number(process.env.SEARCH_BENCH_STEP ?? 10_000);
-/** Teams the entries are spread over; the viewer is on three of them. */
-const TEAMS = 50;
-const VIEWER_TEAMS = 3;
-/** Share of entries that are public. */
-const PUBLIC_SHARE = 0.3;
-/** Rows per insert statement. */
-const INSERT_BATCH = 500;
-/** Timed queries per step. */
+const FRESH = process.env.SEARCH_BENCH_FRESH === "1";
+/** Timed queries per size. */
 const SIMILAR_QUERIES = 100;
 const TEXT_QUERIES = 100;
 const FULL_SCAN_QUERIES = 10;
 const FRAGMENT_ROUNDS = 4;
-const FLAG_CODES = [
-  "no-fuse",
-  "bleeder-slow",
-  "overstress-voltage",
-  "overstress-power",
-  "capacitor-class",
-  "no-surge-limit",
-];
+/** Entries similar search is asked about (drawn from those the viewer may read). */
+const SIMILAR_SAMPLE = 2000;
 /** Trade words users type (each in a few percent of summaries); invented words are drawn too. */
 const WORDS = [
   "dropper",
@@ -72,10 +60,16 @@ const WORDS = [
   "cracked joint",
   "LED string",
 ];
-/** Sizes at which figures are taken (besides the first step and the last), from SEARCH_BENCH_MEASURE_AT. */
-const MEASURE_AT = new Set(
-  (process.env.SEARCH_BENCH_MEASURE_AT ?? "").split(",").filter(Boolean).map(Number),
-);
+/** The sizes measured, smallest first. */
+const SIZES = [
+  ...new Set([
+    STEP,
+    TOTAL,
+    ...(process.env.SEARCH_BENCH_MEASURE_AT ?? "").split(",").filter(Boolean).map(Number),
+  ]),
+]
+  .filter((n) => n > 0 && n <= TOTAL)
+  .sort((a, b) => a - b);
 
 function quantile(sorted: readonly number[], q: number): number {
   const rank = Math.min(sorted.length - 1, Math.max(0, Math.ceil(q * sorted.length) - 1));
@@ -102,9 +96,16 @@ interface Figures {
   textP95: number;
   textScanP50: number;
   textRatio: number;
+  /** Share of text queries whose facet counts were lower bounds (the match set over the cap). */
+  textCappedShare: number;
   fragmentP50: number;
   fragmentP95: number;
   candidatesP50: number;
+  /** Shared buffers touched (EXPLAIN BUFFERS): load-independent figures, p50 and p95. */
+  similarBuffers: { p50: number; p95: number };
+  similarScanBuffers: { p50: number; p95: number };
+  textBuffers: { p50: number; p95: number };
+  textScanBuffers: { p50: number; p95: number };
 }
 
 interface Loaded {
@@ -115,180 +116,98 @@ interface Loaded {
 }
 
 async function main(): Promise<void> {
-  const name = `tl_search_bench_${randomBytes(5).toString("hex")}`;
-  const admin = new pg.Client({ connectionString: ADMIN_URL });
-  await admin.connect();
-  await admin.query(`create database ${name}`);
-  const url = new URL(ADMIN_URL);
-  url.pathname = `/${name}`;
-  const dbUrl = url.toString();
-  const pool = createPool(dbUrl, 4);
-  // The same database with index scans off: the "full scan" the ratios compare against.
-  const scanPool = new pg.Pool({
-    connectionString: dbUrl,
-    max: 2,
-    options: "-c enable_bitmapscan=off -c enable_indexscan=off",
-  });
-  try {
-    await applyMigrations(dbUrl);
-    const db = drizzle(pool, { schema }) as unknown as Database;
-    const scanDb = drizzle(scanPool, { schema }) as unknown as Database;
-    const { teamIds, viewerId } = await makeTeams(db);
-    const next = mainsGadgets(20261202);
-    const random = mulberry32(7);
-    // Queries draw from their own generator, so measuring at more sizes leaves the data the same.
-    const queryRandom = mulberry32(11);
-    const sample: Loaded[] = [];
-    const rows: Array<Figures & { entries: number }> = [];
-    let loaded = 0;
-    console.log(`search bench: up to ${TOTAL} entries in steps of ${STEP}, database ${name}`);
-    while (loaded < TOTAL) {
-      const target = Math.min(TOTAL, loaded + STEP);
-      const t0 = performance.now();
-      while (loaded < target) {
-        const n = Math.min(INSERT_BATCH, target - loaded);
-        const batch = Array.from({ length: n }, () => next());
-        const ids = await insertBatch(db, batch, teamIds, random);
-        // Keep a reservoir of entries the viewer can read, to query similar from.
-        batch.forEach((g, i) => {
-          if (sample.length < 2000 && random() < 0.05)
-            sample.push({ id: ids[i]!.id, ...ids[i]!.features, blocks: g.blocks });
-        });
-        loaded += n;
-      }
-      const loadS = (performance.now() - t0) / 1000;
-      const measureHere =
-        MEASURE_AT.size === 0 || loaded === STEP || loaded === TOTAL || MEASURE_AT.has(loaded);
-      if (!measureHere) {
-        console.log(`${loaded} entries (loaded in ${loadS.toFixed(0)} s)`);
-        continue;
-      }
-      await pool.query("vacuum analyze entries");
+  console.log(`search bench: sizes ${SIZES.join(", ")}${FRESH ? " (fresh loads)" : ""}`);
+  const rows: Array<Figures & { entries: number }> = [];
+  for (const size of SIZES) {
+    const bench = await benchDatabase(ADMIN_URL, size, FRESH, console.log);
+    console.log(
+      `${size} entries: database ${bench.name}, ${bench.reused ? "kept from an earlier run (its load took" : "loaded in"} ${bench.loadSeconds.toFixed(0)} s${bench.reused ? ")" : ""}`,
+    );
+    const pool = createPool(bench.url, 4);
+    // The same database with index scans off: the "full scan" the ratios compare against.
+    const scanPool = new pg.Pool({
+      connectionString: bench.url,
+      max: 2,
+      options: "-c enable_bitmapscan=off -c enable_indexscan=off",
+    });
+    try {
+      const db = drizzle(pool, { schema }) as unknown as Database;
+      const scanDb = drizzle(scanPool, { schema }) as unknown as Database;
       await fingerprintStats(db, true);
-      const figures = await measure(db, scanDb, viewerId, sample, queryRandom);
-      rows.push({ entries: loaded, ...figures });
+      // Queries draw from their own generator, so every size and every rerun asks the same.
+      const figures = await measure(
+        { db, pool, scanDb, scanPool },
+        await similarSample(db),
+        mulberry32(11),
+      );
+      rows.push({ entries: size, ...figures });
       console.log(
-        `${loaded} entries (loaded in ${loadS.toFixed(0)} s): similar p50 ${ms(figures.similarP50)} p95 ${ms(figures.similarP95)} ` +
+        `${size} entries: similar p50 ${ms(figures.similarP50)} p95 ${ms(figures.similarP95)} ` +
           `(full scan p50 ${ms(figures.similarScanP50)}, ${figures.similarRatio.toFixed(1)}x); ` +
-          `text+facets p50 ${ms(figures.textP50)} p95 ${ms(figures.textP95)} (full scan p50 ${ms(figures.textScanP50)}, ${figures.textRatio.toFixed(1)}x); ` +
+          `text+facets p50 ${ms(figures.textP50)} p95 ${ms(figures.textP95)} (full scan p50 ${ms(figures.textScanP50)}, ${figures.textRatio.toFixed(1)}x; ` +
+          `${(figures.textCappedShare * 100).toFixed(0)}% over the cap); ` +
           `fragment p50 ${ms(figures.fragmentP50)} p95 ${ms(figures.fragmentP95)}; similar candidates p50 ${figures.candidatesP50}`,
       );
-    }
-    const first = rows[0]!;
-    const last = rows[rows.length - 1]!;
-    console.log(`\ngrowth ${first.entries} -> ${last.entries} entries (p95):`);
-    for (const k of ["similarP95", "textP95", "fragmentP95"] as const)
+      const b = (x: { p50: number; p95: number }) => `p50 ${x.p50} p95 ${x.p95}`;
       console.log(
-        `  ${k}: ${ms(first[k])} -> ${ms(last[k])} (${(last[k] / first[k]).toFixed(2)}x)`,
+        `${size} entries, buffers touched per query (EXPLAIN BUFFERS, unmoved by load): ` +
+          `similar ${b(figures.similarBuffers)} (full scan ${b(figures.similarScanBuffers)}); ` +
+          `text+facets ${b(figures.textBuffers)} (full scan ${b(figures.textScanBuffers)})`,
       );
-    console.log(
-      `targets at ${last.entries}: similar p95 ${ms(last.similarP95)} (< 50 ms: ${last.similarP95 < 50 ? "met" : "missed"}), ` +
-        `text p95 ${ms(last.textP95)} (< 30 ms: ${last.textP95 < 30 ? "met" : "missed"})`,
-    );
-  } finally {
-    await pool.end().catch(() => {});
-    await scanPool.end().catch(() => {});
-    // SEARCH_BENCH_KEEP=1 leaves the database for a look at the plans (drop it by hand after).
-    if (process.env.SEARCH_BENCH_KEEP === "1") console.log(`kept database ${name}`);
-    else await admin.query(`drop database if exists ${name} with (force)`);
-    await admin.end();
+    } finally {
+      await pool.end().catch(() => {});
+      await scanPool.end().catch(() => {});
+    }
   }
+  const first = rows[0]!;
+  const last = rows[rows.length - 1]!;
+  console.log(`\ngrowth ${first.entries} -> ${last.entries} entries (p95):`);
+  for (const k of ["similarP95", "textP95", "fragmentP95"] as const)
+    console.log(`  ${k}: ${ms(first[k])} -> ${ms(last[k])} (${(last[k] / first[k]).toFixed(2)}x)`);
+  for (const k of ["similarBuffers", "textBuffers"] as const)
+    console.log(
+      `  ${k} (p95): ${first[k].p95} -> ${last[k].p95} (${(last[k].p95 / first[k].p95).toFixed(2)}x)`,
+    );
+  console.log(
+    `targets at ${last.entries}: similar p95 ${ms(last.similarP95)} (< 50 ms: ${last.similarP95 < 50 ? "met" : "missed"}), ` +
+      `text p95 ${ms(last.textP95)} (< 30 ms: ${last.textP95 < 30 ? "met" : "missed"})`,
+  );
+  console.log(`(databases kept for the next run; drop them with: drop database <name>)`);
 }
 
-async function makeTeams(db: Database): Promise<{ teamIds: string[]; viewerId: string }> {
-  const viewerId = "bench-viewer";
-  await db
-    .insert(schema.users)
-    .values({ id: viewerId, name: "Bench Viewer", email: "viewer@bench.example" });
-  const teams = await db
-    .insert(schema.teams)
-    .values(
-      Array.from({ length: TEAMS }, (_, i) => ({
-        name: `Bench lab ${i + 1}`,
-        slug: `bench-lab-${i + 1}`,
-      })),
-    )
-    .returning({ id: schema.teams.id });
-  const teamIds = teams.map((t) => t.id);
-  await db
-    .insert(schema.memberships)
-    .values(
-      teamIds
-        .slice(0, VIEWER_TEAMS)
-        .map((teamId) => ({ teamId, userId: viewerId, role: "viewer" as const })),
-    );
-  return { teamIds, viewerId };
-}
-
-/** Inserts one batch of entries with their first revision and search columns, in one transaction. */
-async function insertBatch(
-  db: Database,
-  batch: ReturnType<ReturnType<typeof mainsGadgets>>[],
-  teamIds: string[],
-  random: () => number,
-): Promise<Array<{ id: string; features: { fingerprint: number[]; valueFeatures: number[] } }>> {
-  const made = batch.map((g) => {
-    const id = randomUUID();
-    const topo = topologyColumnsFor(g.record);
-    const flags = FLAG_CODES.filter(() => random() < 0.15);
-    return {
-      id,
-      g,
-      topo,
-      flags,
-      team: teamIds[Math.floor(random() * teamIds.length)]!,
-      pub: random() < PUBLIC_SHARE,
-      mismatch: random() < 0.05,
-    };
-  });
-  await db.transaction(async (tx) => {
-    await tx.insert(schema.entries).values(
-      made.map((m) => ({
-        id: m.id,
-        teamId: m.team,
-        title: String(m.g.doc.title),
-        category: m.g.category,
-        visibility: m.pub ? ("public" as const) : ("team" as const),
-        currentRevision: 1,
-        searchText: searchTextOf(m.g.record),
-        searchTags: m.g.record.device.tags.join(" "),
-        searchBlocks: m.g.blocks,
-        searchFlags: m.flags,
-        hasMismatch: m.mismatch,
-        facets: {
-          supply_vrms: m.g.record.device.rated_supply.vrms,
-          supply_hz: m.g.record.device.rated_supply.hz,
-        },
-        fingerprint: m.topo.fingerprint,
-        valueFeatures: m.topo.valueFeatures,
-        fragmentFeatures: m.topo.fragmentFeatures,
-        topology: m.topo.topology,
-        fingerprintVersion: m.topo.version,
-      })),
-    );
-    await tx.insert(schema.revisions).values(
-      made.map((m) => ({
-        entryId: m.id,
-        number: 1,
-        record: m.g.doc,
-        recordHash: randomBytes(32).toString("hex"),
-        message: "bench",
-      })),
-    );
-  });
-  return made.map((m) => ({
-    id: m.id,
-    features: { fingerprint: m.topo.fingerprint, valueFeatures: m.topo.valueFeatures },
+/** Entries the viewer may read to ask "similar" about: a fixed pseudo-random draw. */
+async function similarSample(db: Database): Promise<Loaded[]> {
+  const r = await db.execute<{
+    id: string;
+    fingerprint: number[];
+    value_features: number[];
+    search_blocks: string[];
+  }>(sql`select e.id, e.fingerprint, e.value_features, e.search_blocks from entries e
+    where ${visibleEntry("e", VIEWER_ID)} order by md5(e.title), e.id limit ${SIMILAR_SAMPLE}`);
+  return r.rows.map((x) => ({
+    id: x.id,
+    fingerprint: x.fingerprint,
+    valueFeatures: x.value_features,
+    blocks: x.search_blocks,
   }));
 }
 
+interface Connections {
+  db: Database;
+  pool: pg.Pool;
+  scanDb: Database;
+  scanPool: pg.Pool;
+}
+
 async function measure(
-  db: Database,
-  scanDb: Database,
-  viewerId: string,
+  { db, pool, scanDb, scanPool }: Connections,
   sample: Loaded[],
   random: () => number,
 ): Promise<Figures> {
+  const similarBuffers: number[] = [];
+  const similarScanBuffers: number[] = [];
+  const textBuffers: number[] = [];
+  const textScanBuffers: number[] = [];
   const similar: number[] = [];
   const similarScan: number[] = [];
   const candidates: number[] = [];
@@ -302,18 +221,25 @@ async function measure(
       version: FINGERPRINT_VERSION,
       limit: 20,
     };
-    const [t] = await timed(() => similarEntries(db, viewerId, query));
+    const [t] = await timed(() => similarEntries(db, VIEWER_ID, query));
     similar.push(t);
     if (i < FULL_SCAN_QUERIES) {
       const [ts] = await timed(() =>
-        similarEntries(scanDb, viewerId, { ...query, fullScan: true }),
+        similarEntries(scanDb, VIEWER_ID, { ...query, fullScan: true }),
       );
       similarScan.push(ts);
       candidates.push(await candidateCount(db, q.fingerprint));
+      similarBuffers.push(await buffersOf(pool, (d) => similarEntries(d, VIEWER_ID, query)));
+      similarScanBuffers.push(
+        await buffersOf(scanPool, (d) =>
+          similarEntries(d, VIEWER_ID, { ...query, fullScan: true }),
+        ),
+      );
     }
   }
   const text: number[] = [];
   const textScan: number[] = [];
+  let capped = 0;
   for (let i = 0; i < TEXT_QUERIES; i++) {
     // Half trade words, half invented words of middling frequency (rank 20 to 2000).
     const words =
@@ -324,10 +250,14 @@ async function measure(
     if (random() < 0.5) filters.flag = [FLAG_CODES[Math.floor(random() * FLAG_CODES.length)]!];
     if (random() < 0.3) filters.block = ["bridge-rectifier", "half-wave-rectifier"];
     const query = { q: words, filters, limit: 20 };
-    const [t] = await timed(() => searchText(db, viewerId, query));
+    const [t, page] = await timed(() => searchText(db, VIEWER_ID, query));
     text.push(t);
-    if (i < FULL_SCAN_QUERIES)
-      textScan.push((await timed(() => searchText(scanDb, viewerId, query)))[0]);
+    if (!page.facetsExact) capped++;
+    if (i < FULL_SCAN_QUERIES) {
+      textScan.push((await timed(() => searchText(scanDb, VIEWER_ID, query)))[0]);
+      textBuffers.push(await buffersOf(pool, (d) => searchText(d, VIEWER_ID, query)));
+      textScanBuffers.push(await buffersOf(scanPool, (d) => searchText(d, VIEWER_ID, query)));
+    }
   }
   const fragment: number[] = [];
   for (let round = 0; round < FRAGMENT_ROUNDS; round++)
@@ -335,7 +265,7 @@ async function measure(
       const read = readFragment(f.text, f.format);
       if (!read.ok) throw new Error(`bench fragment does not read: ${read.errors[0]!.message}`);
       fragment.push(
-        (await timed(() => searchFragment(db, viewerId, read.record as TeardownRecord, 20)))[0],
+        (await timed(() => searchFragment(db, VIEWER_ID, read.record as TeardownRecord, 20)))[0],
       );
     }
   const s = stats(similar);
@@ -352,15 +282,19 @@ async function measure(
     textP95: t.p95,
     textScanP50: ts.p50,
     textRatio: ts.p50 / t.p50,
+    textCappedShare: capped / TEXT_QUERIES,
     fragmentP50: f.p50,
     fragmentP95: f.p95,
     candidatesP50: stats(candidates).p50,
+    similarBuffers: stats(similarBuffers),
+    similarScanBuffers: stats(similarScanBuffers),
+    textBuffers: stats(textBuffers),
+    textScanBuffers: stats(textScanBuffers),
   };
 }
 
 /** How many rows the similar query's candidate lookup reaches (for the report). */
 async function candidateCount(db: Database, fp: number[]): Promise<number> {
-  const { rareFeatures, intArrayParam } = await import("@teardown/db");
   const rare = rareFeatures(fp, await fingerprintStats(db));
   const r = await db.execute<{ n: number }>(
     sql`select count(*)::int as n from entries where fingerprint && ${intArrayParam(rare)}::int[]`,

@@ -10,6 +10,7 @@ import path from "node:path";
 import { chromium, type Browser, type Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { projectRoot } from "@teardown/db";
+import { DEMO_TEAM } from "@teardown/seed-demo";
 import { startApp, type RunningApp } from "./app-process.js";
 import { attributeMatching, textContaining, textMatching } from "./page-waits.js";
 
@@ -160,6 +161,8 @@ describe.skipIf(missing)(title, () => {
     const category = page.locator('fieldset[data-facet="category"]');
     // Two demo gadgets are night lights, and the owner reads both.
     await textMatching(category, /night light\s*\(2\)/);
+    // The team facet names the owner's own team.
+    await textContaining(page.locator('fieldset[data-facet="team"]'), DEMO_TEAM.name);
     // A tick changes the URL; the box shows the URL's state, so it turns on once the page moves.
     await category.getByRole("checkbox", { name: /^night light/ }).click();
     await page.waitForURL(/category=night\+light/);
@@ -280,6 +283,10 @@ describe.skipIf(missing)(title, () => {
         outsider.locator('fieldset[data-facet="category"]'),
         /night light\s*\(1\)/,
       );
+      // Not a member: the team facet names no team, not even the one whose entry was found.
+      const team = outsider.locator('fieldset[data-facet="team"]');
+      await textContaining(team, "none under this search");
+      expect(await team.innerText()).not.toContain(DEMO_TEAM.name);
       await shot(outsider, "signed-out");
     } finally {
       await outsider.close();

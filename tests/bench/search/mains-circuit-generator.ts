@@ -10,6 +10,12 @@
 import { mulberry32, type TeardownRecord } from "@teardown/engine";
 import { part, record } from "../../support/record-factory.js";
 
+/**
+ * Bump whenever a change here changes what the generator produces: the bench keeps its loaded
+ * databases under a name carrying this number and reuses them while it is unchanged.
+ */
+export const GENERATOR_VERSION = 1;
+
 type Rand = () => number;
 type Pins = string[] | Record<string, string>;
 interface RawPart {

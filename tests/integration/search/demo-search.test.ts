@@ -343,7 +343,21 @@ describe("text search and facets", () => {
           ),
         ),
       );
-      expect(body.facets.team!.map((t) => t.count)).toEqual([seen.length]);
+      // The team facet names only the reader's own teams: the member sees the demo team by
+      // name; others see no team at all (not its id, not its name), though they find its
+      // public entries.
+      const team = await app.db.db.execute<{ id: string; name: string }>(
+        sql`select distinct t.id::text as id, t.name from teams t join entries e on e.team_id = t.id`,
+      );
+      expect(team.rows).toHaveLength(1);
+      const { id: teamId, name: teamName } = team.rows[0]!;
+      if (as === member)
+        expect(body.facets.team).toEqual([{ value: teamId, count: seen.length, label: teamName }]);
+      else {
+        expect(body.facets.team).toEqual([]);
+        expect(JSON.stringify(body.facets)).not.toContain(teamId);
+        expect(JSON.stringify(body.facets)).not.toContain(teamName);
+      }
     }
   });
 

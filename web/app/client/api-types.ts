@@ -212,6 +212,8 @@ export interface TriggerSuggestion {
 export interface FacetCount {
   value: string;
   count: number;
+  /** The value as people read it, where it is not the value itself (a team's name). */
+  label?: string;
 }
 
 /** The facets GET /api/search counts (`mismatch` holds "true"/"false" when the server sends it). */
@@ -235,6 +237,10 @@ export interface SearchHit {
 export interface SearchAnswer {
   results: SearchHit[];
   facets: SearchFacets;
+  /** False when more entries matched than the server counted: each count is a lower bound. */
+  facetsExact: boolean;
+  /** False when more entries matched than the server ranked: the best of the first ones. */
+  rankedAll: boolean;
   nextCursor: string | null;
 }
 

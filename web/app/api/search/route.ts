@@ -1,6 +1,8 @@
 /**
  * GET /api/search?q&category&flag&block&supply&mismatch&team&limit&cursor: ranked text search
- * over everything the caller may read, with each facet's counts under the query.
+ * over everything the caller may read, with each facet's counts under the query (`facetsExact`
+ * false: more matched than were counted, so the counts are lower bounds; `rankedAll` false: more
+ * matched than were ranked).
  */
 import { ENGINE_VERSION } from "@teardown/engine";
 import { loadEntrySummaries, searchText } from "@teardown/db";
@@ -28,6 +30,8 @@ export function GET(req: Request): Promise<Response> {
         .filter((h) => entries.has(h.id))
         .map((h) => ({ entry: entries.get(h.id)!, score: h.score, snippet: h.snippet })),
       facets: page.facets,
+      facetsExact: page.facetsExact,
+      rankedAll: page.rankedAll,
       nextCursor: page.nextCursor,
     });
   });

@@ -11,15 +11,20 @@ export const FACET_TITLES: Record<Facet, string> = {
   mismatch: "Measurements",
 };
 
-/** A value as people read it; team ids become names where the visitor knows the team. */
+/**
+ * A value as people read it. Team ids become names: the server names the visitor's own teams
+ * (the only ones the team facet lists); a team id picked in the URL that is not one of theirs is
+ * never shown, not even in part.
+ */
 export function facetValueLabel(
   facet: Facet,
   value: string,
   teamNames: ReadonlyMap<string, string>,
+  label?: string,
 ): string {
   switch (facet) {
     case "team":
-      return teamNames.get(value) ?? `another team (${value.slice(0, 8)})`;
+      return label ?? teamNames.get(value) ?? "a team you are not in";
     case "supply": {
       const [volts, hertz] = value.split("/");
       return hertz ? `${volts} V, ${hertz} Hz` : value;

@@ -2,7 +2,8 @@
 /**
  * The facets of a text search: for each, its values with how many entries have them under the
  * current words and the other facets' picks. Several values of one facet may be picked (any of
- * them will do); picks of different facets must all hold. Each tick changes the URL.
+ * them will do); picks of different facets must all hold. Each tick changes the URL. When more
+ * entries match than the server counted, the counts are lower bounds and read "n+".
  */
 import type { FacetCount, SearchFacets } from "../../client/api-types";
 import { FACET_TITLES, facetValueLabel } from "./facet-labels";
@@ -21,16 +22,24 @@ function valuesOf(facet: Facet, facets: SearchFacets | undefined, picked: string
 export function FacetPanel({
   state,
   facets,
+  exact,
   teamNames,
   onToggle,
 }: {
   state: TextSearchState;
   facets: SearchFacets | undefined;
+  /** False when the counts are lower bounds (more entries matched than were counted). */
+  exact: boolean;
   teamNames: ReadonlyMap<string, string>;
   onToggle: (facet: Facet, value: string) => void;
 }) {
   return (
     <aside className={css.facets} aria-label="Narrow the search">
+      {!exact && (
+        <p className="muted small" data-testid="facet-counts-approximate">
+          More entries match than were counted: each count is at least the number shown.
+        </p>
+      )}
       {FACETS.map((facet) => {
         const values = valuesOf(facet, facets, state.filters[facet]);
         return (
@@ -40,8 +49,8 @@ export function FacetPanel({
               <p className="muted small">none under this search</p>
             ) : (
               <ul>
-                {values.map(({ value, count }) => {
-                  const label = facetValueLabel(facet, value, teamNames);
+                {values.map(({ value, count, label: named }) => {
+                  const label = facetValueLabel(facet, value, teamNames, named);
                   const checked = state.filters[facet].includes(value);
                   return (
                     <li key={value}>
@@ -53,7 +62,7 @@ export function FacetPanel({
                           checked={checked}
                           onChange={() => onToggle(facet, value)}
                         />{" "}
-                        {label} <span className={css.count}>({count})</span>
+                        {label} <span className={css.count}>({exact ? count : `${count}+`})</span>
                       </label>
                     </li>
                   );

@@ -72,6 +72,7 @@ export function TextSearchView({
         <FacetPanel
           state={state}
           facets={query.data?.facets}
+          exact={query.data?.facetsExact ?? true}
           teamNames={teamNames}
           onToggle={(facet, value) => go(toggleFacetValue(state, facet, value))}
         />
@@ -88,30 +89,38 @@ export function TextSearchView({
               {state.cursor ? "No more entries." : "No entries match."}
             </p>
           ) : (
-            <ol className={css.hitList} data-testid="entry-list">
-              {results.map((hit) => (
-                <li key={hit.entry.id} className={css.hit} data-entry-id={hit.entry.id}>
-                  <input
-                    type="checkbox"
-                    className={css.pick}
-                    aria-label={`Pick ${hit.entry.title} to compare`}
-                    checked={picks.picked.includes(hit.entry.id)}
-                    onChange={() => picks.toggle(hit.entry.id)}
-                  />
-                  <div className={css.hitBody}>
-                    <EntryHeading entry={hit.entry} teamName={teamNames.get(hit.entry.teamId)} />
-                    <HighlightedSnippet snippet={hit.snippet} />
-                    <p className="muted small">
-                      {ranked ? <>score {hit.score.toFixed(3)} · </> : null}
-                      updated {hit.entry.updatedAt.slice(0, 10)} ·{" "}
-                      <Link href={searchHref({ view: "similar", entryId: hit.entry.id })}>
-                        Similar circuits
-                      </Link>
-                    </p>
-                  </div>
-                </li>
-              ))}
-            </ol>
+            <>
+              {query.data?.rankedAll === false && (
+                <p className="muted small" data-testid="ranked-sample">
+                  Many entries hold these words, so only the first ones found were ranked. Add a
+                  word or pick a facet to rank every match.
+                </p>
+              )}
+              <ol className={css.hitList} data-testid="entry-list">
+                {results.map((hit) => (
+                  <li key={hit.entry.id} className={css.hit} data-entry-id={hit.entry.id}>
+                    <input
+                      type="checkbox"
+                      className={css.pick}
+                      aria-label={`Pick ${hit.entry.title} to compare`}
+                      checked={picks.picked.includes(hit.entry.id)}
+                      onChange={() => picks.toggle(hit.entry.id)}
+                    />
+                    <div className={css.hitBody}>
+                      <EntryHeading entry={hit.entry} teamName={teamNames.get(hit.entry.teamId)} />
+                      <HighlightedSnippet snippet={hit.snippet} />
+                      <p className="muted small">
+                        {ranked ? <>score {hit.score.toFixed(3)} · </> : null}
+                        updated {hit.entry.updatedAt.slice(0, 10)} ·{" "}
+                        <Link href={searchHref({ view: "similar", entryId: hit.entry.id })}>
+                          Similar circuits
+                        </Link>
+                      </p>
+                    </div>
+                  </li>
+                ))}
+              </ol>
+            </>
           )}
           <nav className="pager" aria-label="Result pages">
             {state.cursor && <Link href={searchHref({ ...state, cursor: null })}>First page</Link>}

@@ -1,0 +1,1 @@
+CREATE INDEX "entries_updated_idx" ON "entries" USING btree ("updated_at","id");
