@@ -21,7 +21,7 @@ import {
   makeBudget,
 } from "./solver/variants/budget.js";
 import { selectStoredWaveforms } from "./stored-waveforms.js";
-import { assessRisks } from "./flags/assess-risks.js";
+import { assessRisks } from "./assess-risks.js";
 import type { AnalysisResult } from "./analysis-result.js";
 import { missingSupplyRole, notSolved } from "./analysis-accounting.js";
 

@@ -47,7 +47,17 @@ export type CircuitDevice =
   | (DeviceBase & { type: "junction"; inner: number; rs: number; j: JunctionParams })
   | (DeviceBase & { type: "varistor"; vc: number; alpha: number; i0: number })
   | (DeviceBase & { type: "switching"; triac: boolean; p: SwitchingParams })
-  | (DeviceBase & { type: "supply"; branch: number; vpk: number; hz: number });
+  | (DeviceBase & {
+      type: "supply";
+      branch: number;
+      vpk: number;
+      hz: number;
+      /**
+       * Phase at t = 0 in radians: v = vpk·sin(2π·hz·t + phase). 0 for every periodic solve
+       * (the cycle runner's breakpoints and the AC view assume it); the crest plug-in sets π/2.
+       */
+      phase: number;
+    });
 
 /** The compiled circuit. */
 export interface Circuit {
@@ -150,6 +160,7 @@ export function compileCircuit(rec: TeardownRecord, supply: Supply): SolverOutco
       branch: b,
       vpk: supply.vrms * Math.SQRT2,
       hz: supply.hz,
+      phase: 0,
     }),
     1,
   );
