@@ -1,9 +1,11 @@
 /**
  * The worker's reads and writes. Each write is one transaction; the result is an idempotent
- * upsert keyed by (revision, engine version), so a job that runs twice leaves one row.
+ * upsert keyed by (revision, engine version), so a job that runs twice leaves one row. A job
+ * writes its row twice when it gets that far: the cheap part (state done, result partial with
+ * its variants pending), then the full result over it.
  */
-import { eq, sql } from "drizzle-orm";
-import { analysisOfRevision, schema, writeSearchColumns, type Database } from "@teardown/db";
+import { and, eq, sql } from "drizzle-orm";
+import { schema, writeSearchColumns, type Database } from "@teardown/db";
 import type { AnalysisOutput, AnalysisStage } from "@teardown/engine";
 
 export interface RevisionToAnalyse {
@@ -33,13 +35,29 @@ export async function loadRevision(
   return rows[0] ?? null;
 }
 
-/** The state of the analysis row, or null when none exists yet. */
-export async function analysisState(
+/**
+ * True when the analysis is done with its variants run (or stopped by the hard stop). A done row
+ * whose variants are still pending is the cheap part of a job that did not finish (a worker that
+ * died mid-variants): the job runs again and replaces it.
+ */
+export async function analysisFinished(
   db: Database,
   revisionId: string,
   engineVersion: string,
-): Promise<string | null> {
-  return (await analysisOfRevision(db, revisionId, engineVersion))?.state ?? null;
+): Promise<boolean> {
+  const [row] = await db
+    .select({
+      state: schema.analyses.state,
+      variants: sql<string | null>`${schema.analyses.result}->'variants'->>'state'`,
+    })
+    .from(schema.analyses)
+    .where(
+      and(
+        eq(schema.analyses.revisionId, revisionId),
+        eq(schema.analyses.engineVersion, engineVersion),
+      ),
+    );
+  return row?.state === "done" && row.variants !== "pending";
 }
 
 /** Marks the analysis running (creating the row if a job arrived without one). */
@@ -58,7 +76,10 @@ export async function markRunning(
     });
 }
 
-/** Stores a finished analysis and, when it is of the entry's current revision, its search columns. */
+/**
+ * Stores a done analysis (the cheap part with its variants pending, or the full result, which
+ * replaces it) and, when it is of the entry's current revision, its search columns.
+ */
 export async function storeDone(
   db: Database,
   rev: RevisionToAnalyse,

@@ -78,6 +78,22 @@ export function pinCapacitance(analysis: CircuitAnalysis): number {
   return Math.max(0, (2 * quad) / n / (w * vpk));
 }
 
+/** The variants of a nominal solve before any has run: the checks that need one find nothing to judge. */
+export function unsolvedVariants(solved: SolvedCircuit): RiskVariants {
+  return {
+    solved,
+    solveFailure: null,
+    pinCapacitanceF: 0,
+    unplug: null,
+    plugIn: null,
+    checks: [],
+    hints: new Map(),
+    assumptions: [],
+    notes: [],
+    unfinished: [],
+  };
+}
+
 /** Measurements whose band the spent budget cut short (fewer samples than asked for), as gaps naming the measured part or net. */
 function bandsCutShort(
   record: TeardownRecord,
