@@ -33,6 +33,11 @@ export function AnalysisStateLine({ analysis }: { analysis: AnalysisView | null 
           : `finished ${when(analysis.finishedAt)}`;
   // A finished analysis that left something out, or found no solution, is never a clean "done".
   const status = state === "done" ? (analysis?.result?.status ?? null) : null;
+  // The nominal part is shown while the worker still runs the variants (bands, hints, unplug, plug-in).
+  const variants =
+    state === "done" && analysis?.result?.status !== "not-solved"
+      ? (analysis?.result?.variants ?? null)
+      : null;
   const outcomeCls =
     status === "not-solved" ? css.stateFailed : status === "partial" ? css.statePartial : cls;
   return (
@@ -45,11 +50,19 @@ export function AnalysisStateLine({ analysis }: { analysis: AnalysisView | null 
             · {status === "not-solved" ? "not solved" : status}
           </span>
         ) : null}
+        {variants !== null ? (
+          <span data-testid="analysis-variants" title={variants.reason}>
+            {" "}
+            · {variants.state === "pending" ? "variants pending" : "variants stopped"}
+          </span>
+        ) : null}
       </span>
       <span className={css.meta}>
         {detail}
         {analysis ? ` · engine ${analysis.engineVersion}` : ""}
-        {state === "queued" || state === "running" ? " · this page updates by itself" : ""}
+        {state === "queued" || state === "running" || variants?.state === "pending"
+          ? " · this page updates by itself"
+          : ""}
       </span>
     </div>
   );
