@@ -15,6 +15,7 @@ import {
   SWITCH_CLOSED_OHMS,
   diodeModel,
   ledModel,
+  param,
   switchingModel,
   transformerModel,
   varistorModel,
@@ -85,14 +86,15 @@ export function compilePart(p: KnownPart, b: CircuitBuilder): NetName[] | null {
       resistance(p.value);
       return nets;
     case "fuse":
-      if (p.model.r === undefined)
-        b.assumptions.push({
-          part: ref,
-          field: "model.r",
-          value: FUSE_DEFAULT_OHMS,
-          why: "cold resistance not in the record; a small fuse's value",
-        });
-      resistance(p.model.r ?? FUSE_DEFAULT_OHMS);
+      resistance(
+        param(
+          p,
+          "r",
+          FUSE_DEFAULT_OHMS,
+          b.assumptions,
+          "cold resistance not in the record; a small fuse's value",
+        ),
+      );
       return nets;
     case "switch": {
       const r = p.closed ? SWITCH_CLOSED_OHMS : OFF_STATE_OHMS;
@@ -120,14 +122,13 @@ export function compilePart(p: KnownPart, b: CircuitBuilder): NetName[] | null {
     case "inductor": {
       if (p.value === null) return leaveOut("an inductor without a value");
       const l = p.value;
-      if (p.model.r === undefined)
-        b.assumptions.push({
-          part: ref,
-          field: "model.r",
-          value: 0,
-          why: "winding resistance not in the record; taken as none",
-        });
-      const r = p.model.r ?? 0;
+      const r = param(
+        p,
+        "r",
+        0,
+        b.assumptions,
+        "winding resistance not in the record; taken as none",
+      );
       b.add(
         "coupled",
         1,
