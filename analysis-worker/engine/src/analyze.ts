@@ -179,23 +179,23 @@ export async function analyzeRecord(
   // the lowest-firing-supply searches, the rest (whatever they left) for the risk variants.
   const variantMs = opts.variantBudgetMs ?? DEFAULT_RISK_BUDGET_MS;
   const endAt = now() + variantMs;
-  const t2 = now();
-  const searched = searchLowestSupplies(
-    record,
-    nominal.value,
-    { supply, now },
-    makeBudget(now, variantMs * MIN_SUPPLY_BUDGET_SHARE, MAX_STEPS_PER_ANALYSIS),
+  const searched = timed("solve", () =>
+    searchLowestSupplies(
+      record,
+      nominal.value,
+      { supply, now },
+      makeBudget(now, variantMs * MIN_SUPPLY_BUDGET_SHARE, MAX_STEPS_PER_ANALYSIS),
+    ),
   );
-  timings.solve = (timings.solve ?? 0) + (now() - t2);
   if (!searched.ok) return { ok: true, output: output(solverFailed(kept, searched.error)) };
   const a = searched.value.analysis;
-  const t3 = now();
-  const risks = assessRisks(record, a, {
-    now,
-    budgetMs: Math.max(0, endAt - now()),
-    nominal: searched.value.solved,
-  });
-  timings.flags = (timings.flags ?? 0) + (now() - t3);
+  const risks = timed("flags", () =>
+    assessRisks(record, a, {
+      now,
+      budgetMs: Math.max(0, endAt - now()),
+      nominal: searched.value.solved,
+    }),
+  );
   // Variants cut short by the budget are gaps too: the result is partial and says why.
   const gaps = [...searched.value.unfinished, ...risks.unfinished];
   return { ok: true, output: output(solvedResult(record, kept, a, gaps, risks, null)) };
