@@ -1,9 +1,9 @@
 /**
  * One analysis job: load the revision, run the engine with a time budget, store the outcome in
- * two steps. The cheap part (validate, blocks, nominal solve, layout) is stored as soon as the
- * engine has it, a done analysis whose result is partial with its variants pending, so the app
- * shows figures while the variants (lowest firing supply, bands, hints, unplug, plug-in) take
- * their budget; the full result then replaces it. An overrun after the cheap part keeps it, as
+ * two steps. The cheap part (validate, blocks, nominal solve, layout) goes on the running row as
+ * soon as the engine has it, a partial result with its variants pending, so the app shows
+ * figures while the variants (lowest firing supply, bands, hints, unplug, plug-in) take their
+ * budget; the full result then replaces it and the row is done. An overrun after the cheap part keeps it, as
  * partial with the variants stopped and why; an engine rejection, or an overrun before the
  * cheap part, is stored as a failed analysis and the job completes (it would fail the same way
  * again). A lost connection is retried in place for a while; a database
@@ -12,11 +12,12 @@
 import type { Database } from "@teardown/db";
 import type { AnalysisJob } from "@teardown/db";
 import {
-  analysisFinished,
+  analysisState,
   loadRevision,
   markRunning,
   storeDone,
   storeFailed,
+  storeNominal,
 } from "./analysis-store.js";
 import { parseStoredResult, type AnalysisOutput } from "@teardown/engine";
 import { withDatabaseRetry } from "./database-faults.js";
@@ -76,7 +77,10 @@ export async function runAnalysisJob(
           "database call failed, retrying",
         ),
     });
-  if (await db("read state", () => analysisFinished(ctx.db, job.revisionId, job.engineVersion)))
+  if (
+    (await db("read state", () => analysisState(ctx.db, job.revisionId, job.engineVersion))) ===
+    "done"
+  )
     return finish("skipped", { why: "already done" });
   const rev = await db("load revision", () => loadRevision(ctx.db, job.revisionId));
   if (!rev) return finish("skipped", { why: "revision no longer exists" });
@@ -88,17 +92,19 @@ export async function runAnalysisJob(
   // full result always lands last.
   let nominal: AnalysisOutput | null = null;
   let nominalStored: Promise<void> = Promise.resolve();
-  const storeNominal = (output: AnalysisOutput) => {
+  const onNominal = (output: AnalysisOutput) => {
     const problem = schemaProblem(output);
     if (problem !== null) return log.error({ reason: problem }, "nominal result refused");
     nominal = output;
-    nominalStored = db("store nominal", () => storeDone(ctx.db, rev, job.engineVersion, output))
+    nominalStored = db("store nominal", () =>
+      storeNominal(ctx.db, rev.id, job.engineVersion, output),
+    )
       .then(() => log.info({ timings: output.timings }, "nominal result stored"))
       .catch((err: unknown) =>
         log.warn({ err: err instanceof Error ? err.message : String(err) }, "nominal not stored"),
       );
   };
-  const run = await ctx.engine.run(rev.record, ctx.budgetMs, storeNominal);
+  const run = await ctx.engine.run(rev.record, ctx.budgetMs, onNominal);
   await nominalStored;
   const kept: AnalysisOutput | null = nominal;
   if (kept !== null && (run.kind === "timeout" || run.kind === "crash")) {

@@ -1,8 +1,8 @@
 /**
  * The worker's reads and writes. Each write is one transaction; the result is an idempotent
- * upsert keyed by (revision, engine version), so a job that runs twice leaves one row. A job
- * writes its row twice when it gets that far: the cheap part (state done, result partial with
- * its variants pending), then the full result over it.
+ * upsert keyed by (revision, engine version), so a job that runs twice leaves one row. While
+ * the variants run, the running row holds the cheap part (result partial, variants pending),
+ * so the app can show it; `done` is written once, with the full result.
  */
 import { and, eq, sql } from "drizzle-orm";
 import { schema, writeSearchColumns, type Database } from "@teardown/db";
@@ -35,21 +35,14 @@ export async function loadRevision(
   return rows[0] ?? null;
 }
 
-/**
- * True when the analysis is done with its variants run (or stopped by the hard stop). A done row
- * whose variants are still pending is the cheap part of a job that did not finish (a worker that
- * died mid-variants): the job runs again and replaces it.
- */
-export async function analysisFinished(
+/** The state of the analysis row, or null when none exists yet. */
+export async function analysisState(
   db: Database,
   revisionId: string,
   engineVersion: string,
-): Promise<boolean> {
+): Promise<string | null> {
   const [row] = await db
-    .select({
-      state: schema.analyses.state,
-      variants: sql<string | null>`${schema.analyses.result}->'variants'->>'state'`,
-    })
+    .select({ state: schema.analyses.state })
     .from(schema.analyses)
     .where(
       and(
@@ -57,7 +50,7 @@ export async function analysisFinished(
         eq(schema.analyses.engineVersion, engineVersion),
       ),
     );
-  return row?.state === "done" && row.variants !== "pending";
+  return row?.state ?? null;
 }
 
 /** Marks the analysis running (creating the row if a job arrived without one). */
@@ -77,9 +70,30 @@ export async function markRunning(
 }
 
 /**
- * Stores a done analysis (the cheap part with its variants pending, or the full result, which
- * replaces it) and, when it is of the entry's current revision, its search columns.
+ * Puts the cheap part (nominal figures, layout; its variants pending) on the running row, for
+ * the app to show until the full result is done. A row no longer running is left alone.
  */
+export async function storeNominal(
+  db: Database,
+  revisionId: string,
+  engineVersion: string,
+  output: AnalysisOutput,
+): Promise<void> {
+  await db.transaction(async (tx) => {
+    await tx
+      .update(schema.analyses)
+      .set({ result: output.result, layout: output.layout, timings: output.timings })
+      .where(
+        and(
+          eq(schema.analyses.revisionId, revisionId),
+          eq(schema.analyses.engineVersion, engineVersion),
+          eq(schema.analyses.state, "running"),
+        ),
+      );
+  });
+}
+
+/** Stores a finished analysis (replacing the cheap part) and, when it is of the entry's current revision, its search columns. */
 export async function storeDone(
   db: Database,
   rev: RevisionToAnalyse,

@@ -19,21 +19,12 @@ import type {
 /** How often the entry is re-read while its analysis is waiting or running, in milliseconds. */
 export const ANALYSIS_POLL_MS = 1500;
 
-/**
- * True while the analysis has not finished (nothing queued yet counts as waiting, and so does a
- * done analysis whose variants the worker is still running: its full result replaces it).
- */
+/** True while the analysis has not finished (nothing queued yet counts as waiting). */
 export function analysisPending(state: EntryState | undefined): boolean {
   const a = state?.analysis;
   return (
     state !== undefined &&
-    (a === null ||
-      a === undefined ||
-      a.state === "queued" ||
-      a.state === "running" ||
-      (a.state === "done" &&
-        a.result?.status === "partial" &&
-        a.result.variants?.state === "pending"))
+    (a === null || a === undefined || a.state === "queued" || a.state === "running")
   );
 }
 
