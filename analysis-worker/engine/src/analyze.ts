@@ -203,7 +203,7 @@ export async function analyzeRecord(
 
 /** The flags that need no variant, judged before the variants run (the pending result's). */
 function nominalFlags(record: TeardownRecord, nominal: NominalCircuitAnalysis): RiskAssessment {
-  return judgeRisks(record, nominal.analysis, unsolvedVariants(nominal.solved));
+  return judgeRisks(record, nominal.analysis, unsolvedVariants(nominal.analysis, nominal.solved));
 }
 
 /** A not-solved result for a solver failure, its gaps naming where. */

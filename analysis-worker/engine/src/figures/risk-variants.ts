@@ -78,12 +78,16 @@ export function pinCapacitance(analysis: CircuitAnalysis): number {
   return Math.max(0, (2 * quad) / n / (w * vpk));
 }
 
-/** The variants of a nominal solve before any has run: the checks that need one find nothing to judge. */
-export function unsolvedVariants(solved: SolvedCircuit): RiskVariants {
+/**
+ * The variants of a nominal analysis before any has run: the checks that need one find nothing
+ * to judge. The pin capacitance is a figure of the nominal cycle, so it is read already (a
+ * discharge check then waits for its run instead of calling the rule not applicable).
+ */
+export function unsolvedVariants(analysis: CircuitAnalysis, solved: SolvedCircuit): RiskVariants {
   return {
     solved,
     solveFailure: null,
-    pinCapacitanceF: 0,
+    pinCapacitanceF: pinCapacitance(analysis),
     unplug: null,
     plugIn: null,
     checks: [],
