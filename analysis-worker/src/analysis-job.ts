@@ -1,7 +1,12 @@
 /**
- * One analysis job: load the revision, run the engine with a time budget, store the outcome.
- * An engine rejection or an overrun is stored as a failed analysis and the job completes (it
- * would fail the same way again). A lost connection is retried in place for a while; a database
+ * One analysis job: load the revision, run the engine with a time budget, store the outcome in
+ * two steps. The cheap part (validate, blocks, nominal solve, layout) goes on the running row as
+ * soon as the engine has it, a partial result with its variants pending, so the app shows
+ * figures while the variants (lowest firing supply, bands, hints, unplug, plug-in) take their
+ * budget; the full result then replaces it and the row is done. An overrun after the cheap part keeps it, as
+ * partial with the variants stopped and why; an engine rejection, or an overrun before the
+ * cheap part, is stored as a failed analysis and the job completes (it would fail the same way
+ * again). A lost connection is retried in place for a while; a database
  * error that outlasts that throws, so the queue retries the job with backoff.
  */
 import type { Database } from "@teardown/db";
@@ -12,8 +17,9 @@ import {
   markRunning,
   storeDone,
   storeFailed,
+  storeNominal,
 } from "./analysis-store.js";
-import { parseStoredResult } from "@teardown/engine";
+import { parseStoredResult, type AnalysisOutput } from "@teardown/engine";
 import { withDatabaseRetry } from "./database-faults.js";
 import type { EngineRunner } from "./engine-runner.js";
 import { logger } from "./logger.js";
@@ -30,6 +36,21 @@ export interface JobContext {
 const DEFAULT_DB_RETRY_MS = 20_000;
 
 export type JobOutcome = "done" | "failed" | "skipped";
+
+/** The result's schema problem, or null when its readers will accept it as this engine's. */
+function schemaProblem(output: AnalysisOutput): string | null {
+  // Checked against the schema its readers parse it with, so nothing is stored that the web
+  // app would refuse to show.
+  const checked = parseStoredResult(JSON.parse(JSON.stringify(output.result)));
+  if (!checked.ok) return checked.message;
+  return checked.upgradedFrom !== null ? "it lacks a status" : null;
+}
+
+/** The cheap part kept as the final result when the hard stop ended the variants. */
+function variantsStopped(nominal: AnalysisOutput, reason: string): AnalysisOutput {
+  if (nominal.result.status === "not-solved") return nominal;
+  return { ...nominal, result: { ...nominal.result, variants: { state: "stopped", reason } } };
+}
 
 /** Runs one job to an outcome; throws only for transient (database) failures. */
 export async function runAnalysisJob(
@@ -67,7 +88,36 @@ export async function runAnalysisJob(
   // Logged once the row says running, so a log reader knows a job is in hand (crash tests use it).
   log.info("analysis job started");
 
-  const run = await ctx.engine.run(rev.record, ctx.budgetMs);
+  // The cheap part is stored while the variants run; every later write waits for it, so the
+  // full result always lands last.
+  let nominal: AnalysisOutput | null = null;
+  let nominalStored: Promise<void> = Promise.resolve();
+  const onNominal = (output: AnalysisOutput) => {
+    const problem = schemaProblem(output);
+    if (problem !== null) return log.error({ reason: problem }, "nominal result refused");
+    nominal = output;
+    nominalStored = db("store nominal", () =>
+      storeNominal(ctx.db, rev.id, job.engineVersion, output),
+    )
+      .then(() => log.info({ timings: output.timings }, "nominal result stored"))
+      .catch((err: unknown) =>
+        log.warn({ err: err instanceof Error ? err.message : String(err) }, "nominal not stored"),
+      );
+  };
+  const run = await ctx.engine.run(rev.record, ctx.budgetMs, onNominal);
+  await nominalStored;
+  const kept: AnalysisOutput | null = nominal;
+  if (kept !== null && (run.kind === "timeout" || run.kind === "crash")) {
+    const reason =
+      run.kind === "timeout"
+        ? `the variants ran past the analysis's time budget of ${run.budgetMs} ms and were stopped; the nominal figures are kept`
+        : `the engine failed while solving the variants (${run.message.split("\n")[0]}); the nominal figures are kept`;
+    if (run.kind === "crash") log.error({ stack: run.message }, "engine crash in the variants");
+    await db("store stopped", () =>
+      storeDone(ctx.db, rev, job.engineVersion, variantsStopped(kept, reason)),
+    );
+    return finish("done", { stage: "variants", reason });
+  }
   switch (run.kind) {
     case "timeout": {
       const reason = `the analysis ran past its time budget of ${run.budgetMs} ms and was stopped`;
@@ -92,11 +142,18 @@ export async function runAnalysisJob(
         );
         return finish("failed", { stage: outcome.stage, reason: outcome.message });
       }
-      // The stored result is checked against the schema its readers parse it with, so nothing
-      // is stored that the web app would refuse to show.
-      const checked = parseStoredResult(JSON.parse(JSON.stringify(outcome.output.result)));
-      if (!checked.ok || checked.upgradedFrom !== null) {
-        const reason = `the engine's result does not match its schema: ${checked.ok ? "it lacks a status" : checked.message}`;
+      const problem = schemaProblem(outcome.output);
+      if (problem !== null && kept !== null) {
+        // The cheap part is already shown: keep it, and say why the rest is missing.
+        const reason = `the full result does not match its schema (${problem}); the nominal figures are kept`;
+        log.error({ reason }, "engine result refused");
+        await db("store stopped", () =>
+          storeDone(ctx.db, rev, job.engineVersion, variantsStopped(kept, reason)),
+        );
+        return finish("done", { stage: "variants", reason });
+      }
+      if (problem !== null) {
+        const reason = `the engine's result does not match its schema: ${problem}`;
         await db("store failed", () =>
           storeFailed(ctx.db, rev.id, job.engineVersion, "engine", reason),
         );

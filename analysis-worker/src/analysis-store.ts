@@ -1,9 +1,11 @@
 /**
  * The worker's reads and writes. Each write is one transaction; the result is an idempotent
- * upsert keyed by (revision, engine version), so a job that runs twice leaves one row.
+ * upsert keyed by (revision, engine version), so a job that runs twice leaves one row. While
+ * the variants run, the running row holds the cheap part (result partial, variants pending),
+ * so the app can show it; `done` is written once, with the full result.
  */
-import { eq, sql } from "drizzle-orm";
-import { analysisOfRevision, schema, writeSearchColumns, type Database } from "@teardown/db";
+import { and, eq, sql } from "drizzle-orm";
+import { schema, writeSearchColumns, type Database } from "@teardown/db";
 import type { AnalysisOutput, AnalysisStage } from "@teardown/engine";
 
 export interface RevisionToAnalyse {
@@ -39,7 +41,16 @@ export async function analysisState(
   revisionId: string,
   engineVersion: string,
 ): Promise<string | null> {
-  return (await analysisOfRevision(db, revisionId, engineVersion))?.state ?? null;
+  const [row] = await db
+    .select({ state: schema.analyses.state })
+    .from(schema.analyses)
+    .where(
+      and(
+        eq(schema.analyses.revisionId, revisionId),
+        eq(schema.analyses.engineVersion, engineVersion),
+      ),
+    );
+  return row?.state ?? null;
 }
 
 /** Marks the analysis running (creating the row if a job arrived without one). */
@@ -58,7 +69,31 @@ export async function markRunning(
     });
 }
 
-/** Stores a finished analysis and, when it is of the entry's current revision, its search columns. */
+/**
+ * Puts the cheap part (nominal figures, layout; its variants pending) on the running row, for
+ * the app to show until the full result is done. A row no longer running is left alone.
+ */
+export async function storeNominal(
+  db: Database,
+  revisionId: string,
+  engineVersion: string,
+  output: AnalysisOutput,
+): Promise<void> {
+  await db.transaction(async (tx) => {
+    await tx
+      .update(schema.analyses)
+      .set({ result: output.result, layout: output.layout, timings: output.timings })
+      .where(
+        and(
+          eq(schema.analyses.revisionId, revisionId),
+          eq(schema.analyses.engineVersion, engineVersion),
+          eq(schema.analyses.state, "running"),
+        ),
+      );
+  });
+}
+
+/** Stores a finished analysis (replacing the cheap part) and, when it is of the entry's current revision, its search columns. */
 export async function storeDone(
   db: Database,
   rev: RevisionToAnalyse,

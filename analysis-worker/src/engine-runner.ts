@@ -3,7 +3,7 @@
  * terminated (so a runaway analysis cannot block other jobs) and replaced for the next job.
  */
 import { Worker } from "node:worker_threads";
-import type { AnalysisOutcome } from "@teardown/engine";
+import type { AnalysisOutcome, AnalysisOutput } from "@teardown/engine";
 
 export type EngineRun =
   | { kind: "outcome"; outcome: AnalysisOutcome }
@@ -24,6 +24,12 @@ export const VARIANT_BUDGET_SHARE = 0.5;
 export class EngineRunner {
   private idle: Worker[] = [];
   private nextId = 1;
+  private readonly variantShare: number;
+
+  /** `variantBudgetShare` overrides VARIANT_BUDGET_SHARE (above 1 the hard stop ends the variants first). */
+  constructor(opts: { variantBudgetShare?: number } = {}) {
+    this.variantShare = opts.variantBudgetShare ?? VARIANT_BUDGET_SHARE;
+  }
 
   private async take(): Promise<Worker> {
     const reused = this.idle.pop();
@@ -42,8 +48,16 @@ export class EngineRunner {
     return worker;
   }
 
-  /** Runs one analysis: its variants get a share of `budgetMs`, the thread is stopped at `budgetMs`. */
-  async run(record: unknown, budgetMs: number): Promise<EngineRun> {
+  /**
+   * Runs one analysis: its variants get a share of `budgetMs`, the thread is stopped at
+   * `budgetMs`. `onNominal` receives the cheap part (nominal solve, figures, layout) as soon as
+   * the thread has it, before the variants run.
+   */
+  async run(
+    record: unknown,
+    budgetMs: number,
+    onNominal?: (output: AnalysisOutput) => void,
+  ): Promise<EngineRun> {
     let worker: Worker;
     try {
       worker = await this.take();
@@ -63,9 +77,15 @@ export class EngineRunner {
         else void worker.terminate();
         resolve(r);
       };
-      const onMessage = (msg: { id: number; outcome?: AnalysisOutcome; crash?: string }) => {
+      const onMessage = (msg: {
+        id: number;
+        nominal?: AnalysisOutput;
+        outcome?: AnalysisOutcome;
+        crash?: string;
+      }) => {
         if (msg.id !== id) return;
-        if (msg.crash !== undefined) done({ kind: "crash", message: msg.crash }, true);
+        if (msg.nominal !== undefined) onNominal?.(msg.nominal);
+        else if (msg.crash !== undefined) done({ kind: "crash", message: msg.crash }, true);
         else done({ kind: "outcome", outcome: msg.outcome! }, true);
       };
       const onError = (err: Error) =>
@@ -73,7 +93,7 @@ export class EngineRunner {
       const timer = setTimeout(() => done({ kind: "timeout", budgetMs }, false), budgetMs);
       worker.on("message", onMessage);
       worker.on("error", onError);
-      worker.postMessage({ id, record, variantBudgetMs: budgetMs * VARIANT_BUDGET_SHARE });
+      worker.postMessage({ id, record, variantBudgetMs: budgetMs * this.variantShare });
     });
   }
 

@@ -11,6 +11,8 @@ parentPort!.on("message", async (msg: { id: number; record: unknown; variantBudg
     const outcome = await analyzeStoredRecord(msg.record, {
       now: () => performance.now(),
       variantBudgetMs: msg.variantBudgetMs,
+      // The cheap part goes out first, so the worker can store it while the variants run.
+      onNominal: (output) => parentPort!.postMessage({ id: msg.id, nominal: output }),
     });
     parentPort!.postMessage({ id: msg.id, outcome });
   } catch (err) {

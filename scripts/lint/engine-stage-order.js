@@ -13,6 +13,9 @@
 // One choice the order leaves open: reading a record parses its value notation and checks its
 // part kinds, so `record/` may use `values/` and the kind table `graph/kinds.ts`; nothing else
 // in a stage may reach forward.
+// The flags judge solved results and never run a simulation, so flags/ may read the solver's
+// types (`import type`) but none of its values: the variants are solved before the flags, in
+// figures/risk-variants.ts, and handed to them.
 import path from "node:path";
 
 /** Stage ranks: a file may import ranks at or below its own. */
@@ -41,6 +44,16 @@ const ALLOWED_FORWARD = [
   ["record", /^values\//],
   ["record", /^graph\/kinds\.(ts|js)$/],
 ];
+
+/** Stages that may import only types from an earlier stage, as [from stage, target stage]. */
+const TYPES_ONLY = [["flags", "solver"]];
+
+/** True when an import or re-export brings in types alone (`import type`, or every specifier `type`). */
+function typesOnly(node) {
+  if (node.importKind === "type" || node.exportKind === "type") return true;
+  const specs = node.specifiers ?? [];
+  return specs.length > 0 && specs.every((s) => s.importKind === "type" || s.exportKind === "type");
+}
 
 /** Files every stage may import. */
 const SHARED = /^engine-version\.(ts|js)$/;
@@ -76,6 +89,8 @@ export const engineStageOrder = {
         "{{from}}/ may not import {{to}}/ ({{target}}): engine stages flow one way, " +
         ORDER +
         ". Move the shared piece to the earlier stage or pass the result in.",
+      typesOnly:
+        "{{from}}/ may import only types from {{to}}/ ({{target}}): the flags judge solved results and never run the solver. Solve the variant in figures/risk-variants.ts and read its result.",
       unknownStage:
         "{{folder}}/ is not an engine stage this rule knows: add it to STAGE_RANK in scripts/lint/engine-stage-order.js.",
     },
@@ -97,6 +112,10 @@ export const engineStageOrder = {
       if (from === null || to === null) {
         const folder = (from === null ? inner : target).split("/")[0];
         context.report({ node: node.source, messageId: "unknownStage", data: { folder } });
+        return;
+      }
+      if (TYPES_ONLY.some(([f, t]) => f === from && t === to) && !typesOnly(node)) {
+        context.report({ node: node.source, messageId: "typesOnly", data: { from, to, target } });
         return;
       }
       if (STAGE_RANK[to] <= STAGE_RANK[from]) return;

@@ -7,10 +7,20 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { and, eq, sql } from "drizzle-orm";
 import { schema } from "@teardown/db";
-import { ENGINE_VERSION, analyzeStoredRecord, parseStoredResult } from "@teardown/engine";
+import {
+  ENGINE_VERSION,
+  analyzeStoredRecord,
+  parseStoredResult,
+  type AnalysisOutput,
+} from "@teardown/engine";
 import { readableEntry } from "@/lib/access";
 import { entryState } from "@/lib/entry-state";
-import { loadRevision, storeDone } from "../../analysis-worker/src/analysis-store.js";
+import {
+  loadRevision,
+  markRunning,
+  storeDone,
+  storeNominal,
+} from "../../analysis-worker/src/analysis-store.js";
 import {
   call,
   signUp,
@@ -133,5 +143,23 @@ describe("the entry state's finished analysis", () => {
       .where(eq(schema.analyses.id, before.id));
     const state = await stateNow();
     expect(state.analysis?.state).toBe("queued");
+  });
+
+  it("shows a running analysis's nominal part, variants pending, until the full result is done", async () => {
+    const rev = (await loadRevision(app.db.db, revisionId))!;
+    let cheap: AnalysisOutput | null = null;
+    const full = await analyzeStoredRecord(rev.record, { onNominal: (o) => (cheap = o) });
+    if (!full.ok || cheap === null) throw new Error("no nominal part was handed out");
+    await markRunning(app.db.db, revisionId, ENGINE_VERSION);
+    await storeNominal(app.db.db, revisionId, ENGINE_VERSION, cheap);
+    const running = (await stateNow()).analysis;
+    expect(running?.state).toBe("running");
+    const shown = running as { result: { status: string; variants?: { state: string } } | null };
+    expect(shown.result?.status).toBe("partial");
+    expect(shown.result?.variants?.state).toBe("pending");
+    await storeDone(app.db.db, rev, ENGINE_VERSION, full.output);
+    const done = (await stateNow()).analysis as { state: string; result: object | null };
+    expect(done.state).toBe("done");
+    expect(done.result).not.toHaveProperty("variants");
   });
 });

@@ -32,14 +32,44 @@ describe("the engine stage-order rule", () => {
   });
 
   it.each([
-    ["flags/right-way.ts", 'import { solveSteady } from "../solver/variants/steady-variant.js";'],
+    [
+      "flags/right-way.ts",
+      'import type { SteadyCircuit } from "../solver/variants/steady-variant.js";',
+    ],
+    ["flags/types-only.ts", 'import { type Budget } from "../solver/transient.js";'],
+    ["flags/reads-figures.ts", 'import { SURGE_KINDS } from "../figures/risk-variants.js";'],
     ["figures/right-way.ts", 'import { GROUND } from "../solver/circuit-model.js";'],
     ["solver/variants/right-way.ts", 'import { compileCircuit } from "../circuit-model.js";'],
-    ["analyze-right-way.ts", 'import { assessRisks } from "./flags/assess-risks.js";'],
+    ["analyze-right-way.ts", 'import { judgeRisks } from "./flags/judge-risks.js";'],
+    ["analyze-runs-variants.ts", 'import { simulateUnplug } from "./solver/variants/unplug.js";'],
     ["solver/right-way.ts", 'import { ENGINE_VERSION } from "../engine-version.js";'],
     ["record/right-way.ts", 'import { parseValue } from "../values/parse-value.js";'],
   ])("accepts a right-way import in %s", async (file, code) => {
     expect(await stageProblems(src(file), `${code}\nexport const x = 1;\n`)).toEqual([]);
+  });
+
+  it.each([
+    ["flags/runs-unplug.ts", 'import { simulateUnplug } from "../solver/variants/unplug.js";'],
+    ["flags/spends-budget.ts", 'import { budgetSpent } from "../solver/variants/budget.js";'],
+    ["flags/mixed.ts", 'import { type Budget, makeBudget } from "../solver/variants/budget.js";'],
+    ["flags/side-effect.ts", 'import "../solver/transient.js";'],
+    [
+      "flags/re-export.ts",
+      'export { simulateCrestSwitchOn } from "../solver/variants/plug-in.js";',
+    ],
+  ])("rejects a solver value imported by the flags in %s", async (file, code) => {
+    const found = await stageProblems(src(file), `${code}\nexport const x = 1;\n`);
+    expect(found).toHaveLength(1);
+    expect(found[0]).toMatch(/flags\/ may import only types from solver\//);
+  });
+
+  it("finds no solver value imported by the flags stage as it stands", async () => {
+    const results = await eslint.lintFiles([src("flags/*.ts")]);
+    const found = results.flatMap((r) =>
+      r.messages.filter((m) => m.ruleId === RULE).map((m) => `${r.filePath}: ${m.message}`),
+    );
+    expect(results.length).toBeGreaterThan(10);
+    expect(found).toEqual([]);
   });
 
   it("names an engine folder it does not know", async () => {

@@ -13,7 +13,15 @@ import { revisionByNumber } from "./revisions";
 /** An analysis as the API shows it; which fields are set depends on the state. */
 export type AnalysisView =
   | { state: "queued"; engineVersion: string; queuedAt: Date }
-  | { state: "running"; engineVersion: string; queuedAt: Date; startedAt: Date | null }
+  | {
+      state: "running";
+      engineVersion: string;
+      queuedAt: Date;
+      startedAt: Date | null;
+      /** The nominal part while the variants run (partial, variants pending); null before it is stored. */
+      result: AnalysisResult | null;
+      layout: unknown;
+    }
   | {
       state: "done";
       engineVersion: string;
@@ -40,13 +48,18 @@ export function analysisView(row: AnalysisRow): AnalysisView {
   switch (row.state) {
     case "queued":
       return { state: "queued", engineVersion: row.engineVersion, queuedAt: row.queuedAt };
-    case "running":
+    case "running": {
+      // The worker stores the nominal part here while the variants run; an unreadable one is not shown.
+      const read = row.result === null ? null : parseStoredResult(row.result);
       return {
         state: "running",
         engineVersion: row.engineVersion,
         queuedAt: row.queuedAt,
         startedAt: row.startedAt,
+        result: read?.ok ? read.result : null,
+        layout: read?.ok ? row.layout : null,
       };
+    }
     case "done": {
       // Read back through the engine's schema: the page gets a typed result or a reason.
       const read = parseStoredResult(row.result);
@@ -120,6 +133,19 @@ type LightAnalysisRow = Omit<AnalysisRow, "result" | "layout" | "timings">;
  * cache, or has its JSON fetched and parsed once; the others need nothing more.
  */
 async function viewOfLight(db: Database, light: LightAnalysisRow): Promise<AnalysisView> {
+  if (light.state === "running") {
+    // A running row may hold the nominal part already; it changes once, so it is not cached.
+    const [nominal] = await db
+      .select({ result: schema.analyses.result, layout: schema.analyses.layout })
+      .from(schema.analyses)
+      .where(eq(schema.analyses.id, light.id));
+    return analysisView({
+      ...light,
+      result: nominal?.result ?? null,
+      layout: nominal?.layout ?? null,
+      timings: {},
+    });
+  }
   if (light.state !== "done")
     return analysisView({ ...light, result: null, layout: null, timings: {} });
   const key = doneKey(light.id, light.finishedAt);

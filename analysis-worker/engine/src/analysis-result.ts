@@ -163,6 +163,15 @@ const SolvedFields = {
   comparisons: z.array(ComparisonSchema),
   /** Free-text notes of the risk assessment that are not defaults (those are assumptions). */
   risk_notes: z.array(z.string()),
+  /**
+   * Present only while the variants (lowest firing supply, bands, hints, unplug, plug-in) have
+   * not all run: `pending` while the worker still runs them, `stopped` when the worker's hard
+   * stop ended them; the reason says what is missing. Absent once they ran (what their own
+   * budget cut short is in `gaps`).
+   */
+  variants: z
+    .object({ state: z.enum(["pending", "stopped"]), reason: z.string().min(1) })
+    .optional(),
 };
 
 export const SolvedResultSchema = z.object({
@@ -188,17 +197,19 @@ export const AnalysisResultSchema = z
     // left out or the cycle search did not settle.
     if (r.status === "not-solved") return;
     const unsettled = r.solver.converged === false;
-    if (r.status === "complete" && (r.gaps.length > 0 || unsettled))
+    const unfinished = r.variants !== undefined;
+    if (r.status === "complete" && (r.gaps.length > 0 || unsettled || unfinished))
       ctx.addIssue({
         code: "custom",
         path: ["status"],
-        message: "a complete analysis has no gaps and a settled steady state",
+        message: "a complete analysis has no gaps, a settled steady state and every variant run",
       });
-    if (r.status === "partial" && r.gaps.length === 0 && !unsettled)
+    if (r.status === "partial" && r.gaps.length === 0 && !unsettled && !unfinished)
       ctx.addIssue({
         code: "custom",
         path: ["status"],
-        message: "a partial analysis names at least one gap or an unsettled steady state",
+        message:
+          "a partial analysis names at least one gap, an unsettled steady state or variants not run",
       });
   });
 

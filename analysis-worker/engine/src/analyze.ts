@@ -14,14 +14,20 @@ import { fingerprint } from "./fingerprint/wl-fingerprint.js";
 import { layoutSchematic } from "./layout/layout-schematic.js";
 import { ENGINE_VERSION } from "./engine-version.js";
 import { searchColumnsFor, type SearchColumns } from "./search-columns.js";
-import { analyzeCircuitStaged } from "./figures/analyze-circuit.js";
+import type { CircuitAnalysis, NominalCircuitAnalysis } from "./figures/analyze-circuit.js";
+import { analyzeNominal, searchLowestSupplies } from "./figures/analyze-circuit.js";
+import { unsolvedVariants } from "./figures/risk-variants.js";
+import type { SolverError } from "./solver/solver-error.js";
+import type { Gap } from "./record/gaps-and-assumptions.js";
+import type { RiskAssessment } from "./flags/flag-types.js";
+import { judgeRisks } from "./flags/judge-risks.js";
 import {
   DEFAULT_RISK_BUDGET_MS,
   MAX_STEPS_PER_ANALYSIS,
   makeBudget,
 } from "./solver/variants/budget.js";
 import { selectStoredWaveforms } from "./stored-waveforms.js";
-import { assessRisks } from "./flags/assess-risks.js";
+import { assessRisks } from "./assess-risks.js";
 import type { AnalysisResult } from "./analysis-result.js";
 import { missingSupplyRole, notSolved } from "./analysis-accounting.js";
 
@@ -41,6 +47,8 @@ export interface AnalysisOptions {
    * the reason, instead of failing it.
    */
   variantBudgetMs?: number;
+  /** Called with the cheap part before the variants run (see `RecordAnalysisOptions`). */
+  onNominal?: (output: AnalysisOutput) => void;
 }
 
 /** Of the variants' budget, the lowest-firing-supply searches may take this share; the risk variants get the rest. */
@@ -86,19 +94,36 @@ export async function analyzeStoredRecord(
     supply: opts.supply,
     budgetMs: opts.budgetMs,
     variantBudgetMs: opts.variantBudgetMs,
+    onNominal: opts.onNominal,
   });
 }
 
-/** Analyses a validated record. */
+/** Options of `analyzeRecord` beyond `AnalysisOptions`: the clock is required, timings may be shared. */
+export interface RecordAnalysisOptions {
+  now: () => number;
+  timings?: Partial<Record<AnalysisStage, number>>;
+  supply?: Supply;
+  budgetMs?: number;
+  variantBudgetMs?: number;
+  /**
+   * Called once with the cheap part (validate, blocks, nominal solve, layout) before the
+   * variants run: a `partial` result whose `variants` says they are pending, so a caller can
+   * store something to show while the variants take their budget.
+   */
+  onNominal?: (output: AnalysisOutput) => void;
+}
+
+/** What an analysis keeps whether it is solved or not. */
+type Kept = Pick<AnalysisResult, "engine" | "supply" | "blocks" | "checks" | "series">;
+
+/** What the variants still to run are, in words, for the pending result. */
+export const PENDING_VARIANTS =
+  "the lowest firing supply of each trigger, the tolerance bands and hints of the measurements, and the unplugging and plug-in checks";
+
+/** Analyses a validated record: the cheap nominal part first, then the variants under their own budget. */
 export async function analyzeRecord(
   record: TeardownRecord,
-  opts: {
-    now: () => number;
-    timings?: Partial<Record<AnalysisStage, number>>;
-    supply?: Supply;
-    budgetMs?: number;
-    variantBudgetMs?: number;
-  },
+  opts: RecordAnalysisOptions,
 ): Promise<AnalysisOutcome> {
   const { now } = opts;
   const timings = opts.timings ?? {};
@@ -117,81 +142,108 @@ export async function analyzeRecord(
   if (!layout.ok)
     return { ok: false, stage: "layout", code: layout.code, message: layout.message, errors: [] };
   const supply = opts.supply ?? record.device.rated_supply;
-  const kept = { engine: ENGINE_VERSION, supply, blocks, checks, series: seriesMembership(record) };
+  const kept: Kept = {
+    engine: ENGINE_VERSION,
+    supply,
+    blocks,
+    checks,
+    series: seriesMembership(record),
+  };
+  const output = (result: AnalysisResult): AnalysisOutput => ({
+    result,
+    layout: layout.layout,
+    search: searchColumnsFor(record, result, features),
+    timings: { ...timings },
+  });
   const missingRole = missingSupplyRole(record);
-  let result: AnalysisResult;
   if (missingRole !== null) {
     // A board fragment with no line or neutral: drawn and checked, nothing computed, and the
     // result says so rather than "done" with empty figures.
-    result = notSolved(
-      kept,
-      missingRole,
-      null,
-      record.parts.map((p) => ({
-        part: p.ref,
-        reason: "not simulated: there is no supply to solve against",
-      })),
-    );
-  } else {
-    const t1 = now();
-    // The cheap part first: the nominal steady state and its figures (nothing else can be
-    // shown without it); the variants then share their own budget, counted from there.
-    let endAt = Infinity;
-    const variantBudget = () => {
-      const ms = opts.variantBudgetMs ?? DEFAULT_RISK_BUDGET_MS;
-      endAt = now() + ms;
-      return makeBudget(now, ms * MIN_SUPPLY_BUDGET_SHARE, MAX_STEPS_PER_ANALYSIS);
-    };
-    const solved = analyzeCircuitStaged(
-      record,
-      { supply, now, budgetMs: opts.budgetMs },
-      variantBudget,
-    );
-    timings.solve = now() - t1;
-    if (!solved.ok) {
-      const { code, message, where } = solved.error;
-      result = notSolved(kept, message, code, [
-        ...where.parts.map((part) => ({ part, reason: message })),
-        ...where.nets.map((net) => ({ net, reason: message })),
-      ]);
-    } else {
-      const a = solved.value.analysis;
-      const t2 = now();
-      const risks = assessRisks(record, a, {
-        now,
-        budgetMs: Math.max(0, endAt - now()),
-        nominal: solved.value.solved,
-      });
-      timings.flags = now() - t2;
-      // Variants cut short by the budget are gaps too: the result is partial and says why.
-      const gaps = [...a.gaps, ...solved.value.unfinished, ...risks.unfinished];
-      result = {
-        ...kept,
-        // figures of a cycle that had not settled are not the steady state: say so
-        status: gaps.length > 0 || !a.solver.converged ? "partial" : "complete",
-        gaps,
-        assumptions: [...a.assumptions, ...risks.assumptions],
-        input: a.input,
-        parts: a.parts,
-        nets: a.nets,
-        triggers: a.triggers,
-        waveforms: selectStoredWaveforms(record, a.waveforms, a.nets, a.parts),
-        linear: a.linear,
-        solver: a.solver,
-        flags: risks.flags.map((f) => ({ ...f })),
-        comparisons: risks.comparisons,
-        risk_notes: risks.notes,
-      };
-    }
+    const gaps = record.parts.map((p) => ({
+      part: p.ref,
+      reason: "not simulated: there is no supply to solve against",
+    }));
+    return { ok: true, output: output(notSolved(kept, missingRole, null, gaps)) };
   }
+  const nominal = timed("solve", () =>
+    analyzeNominal(record, { supply, now, budgetMs: opts.budgetMs }),
+  );
+  if (!nominal.ok) return { ok: true, output: output(solverFailed(kept, nominal.error)) };
+  if (opts.onNominal) {
+    const cheap = timed("flags", () => nominalFlags(record, nominal.value));
+    opts.onNominal(
+      output(solvedResult(record, kept, nominal.value.analysis, [], cheap, "pending")),
+    );
+  }
+  // The variants share their own budget, counted from the end of the nominal part: half for
+  // the lowest-firing-supply searches, the rest (whatever they left) for the risk variants.
+  const variantMs = opts.variantBudgetMs ?? DEFAULT_RISK_BUDGET_MS;
+  const endAt = now() + variantMs;
+  const searched = timed("solve", () =>
+    searchLowestSupplies(
+      record,
+      nominal.value,
+      { supply, now },
+      makeBudget(now, variantMs * MIN_SUPPLY_BUDGET_SHARE, MAX_STEPS_PER_ANALYSIS),
+    ),
+  );
+  if (!searched.ok) return { ok: true, output: output(solverFailed(kept, searched.error)) };
+  const a = searched.value.analysis;
+  const risks = timed("flags", () =>
+    assessRisks(record, a, {
+      now,
+      budgetMs: Math.max(0, endAt - now()),
+      nominal: searched.value.solved,
+    }),
+  );
+  // Variants cut short by the budget are gaps too: the result is partial and says why.
+  const gaps = [...searched.value.unfinished, ...risks.unfinished];
+  return { ok: true, output: output(solvedResult(record, kept, a, gaps, risks, null)) };
+}
+
+/** The flags that need no variant, judged before the variants run (the pending result's). */
+function nominalFlags(record: TeardownRecord, nominal: NominalCircuitAnalysis): RiskAssessment {
+  return judgeRisks(record, nominal.analysis, unsolvedVariants(nominal.analysis, nominal.solved));
+}
+
+/** A not-solved result for a solver failure, its gaps naming where. */
+function solverFailed(kept: Kept, error: SolverError): AnalysisResult {
+  const { code, message, where } = error;
+  return notSolved(kept, message, code, [
+    ...where.parts.map((part) => ({ part, reason: message })),
+    ...where.nets.map((net) => ({ net, reason: message })),
+  ]);
+}
+
+/** The stored result of a solved analysis: partial when anything was left out, unsettled or still pending. */
+function solvedResult(
+  record: TeardownRecord,
+  kept: Kept,
+  a: CircuitAnalysis,
+  unfinished: Gap[],
+  risks: RiskAssessment,
+  pending: "pending" | null,
+): AnalysisResult {
+  const gaps = [...a.gaps, ...unfinished];
   return {
-    ok: true,
-    output: {
-      result,
-      layout: layout.layout,
-      search: searchColumnsFor(record, result, features),
-      timings,
-    },
+    ...kept,
+    // figures of a cycle that had not settled are not the steady state: say so
+    status: gaps.length > 0 || !a.solver.converged || pending !== null ? "partial" : "complete",
+    gaps,
+    assumptions: [...a.assumptions, ...risks.assumptions],
+    input: a.input,
+    parts: a.parts,
+    nets: a.nets,
+    triggers: a.triggers,
+    waveforms: selectStoredWaveforms(record, a.waveforms, a.nets, a.parts),
+    linear: a.linear,
+    solver: a.solver,
+    flags: risks.flags.map((f) => ({ ...f })),
+    comparisons: risks.comparisons,
+    risk_notes: risks.notes,
+    ...(pending !== null
+      ? { variants: { state: "pending" as const, reason: `still to run: ${PENDING_VARIANTS}` } }
+      : {}),
   };
 }
 

@@ -1,11 +1,11 @@
 /**
- * What-if runs: another supply, a sweep of one part's value, and the nearest E-series trigger
- * resistor for a wanted firing angle.
+ * What-if runs: another supply and a sweep of one part's value (the gate-feed suggestion is
+ * checked in tests/reference/what-if-gate-feed.test.ts).
  */
 import { describe, expect, it } from "vitest";
-import { analyzeCircuit, E_SERIES, suggestTriggerResistor, sweepPartValue } from "@teardown/engine";
+import { analyzeCircuit, sweepPartValue } from "@teardown/engine";
 import { part, record } from "../../support/record-factory.js";
-import { dropperIntoResistor, phaseControlled } from "./reference-circuits.js";
+import { dropperIntoResistor } from "./reference-circuits.js";
 
 describe("what-if runs", () => {
   it("draws less current through a dropper at 120 V 60 Hz by the closed-form ratio", () => {
@@ -64,24 +64,5 @@ describe("what-if runs", () => {
   it("refuses to sweep a part that is not in the record", () => {
     const sweep = sweepPartValue(dropperIntoResistor(), "C9", [1e-9]);
     expect(sweep.ok).toBe(false);
-  });
-
-  it("suggests an E24 upper divider resistor that fires near the wanted angle at 120 V", () => {
-    const s = suggestTriggerResistor(phaseControlled(100_000), {
-      thyristor: "Q1",
-      resistor: "RA",
-      wantedAngleDeg: 30,
-      supply: { vrms: 120, hz: 60 },
-      series: "E24",
-    });
-    if (!s.ok) throw new Error(s.error.message);
-    const mantissa = s.value.suggested_ohms / 10 ** Math.floor(Math.log10(s.value.suggested_ohms));
-    // Source: IEC 60063 E24 (the values module's table).
-    expect(E_SERIES.E24.some((v) => Math.abs(v - mantissa) < 1e-9)).toBe(true);
-    // Source: closed form for the continuous value, Ra = (Vpk·sin α − 2·Vd − vgt)/(vgt/Rb + igt), Vd ≈ 0.6 V.
-    const expected = (120 * Math.SQRT2 * 0.5 - 1.2 - 0.6) / (0.6 / 1000 + 200e-6);
-    expect(Math.abs(s.value.continuous_ohms / expected - 1)).toBeLessThan(0.02);
-    // E24 steps are about 10%, so the rounded value fires within a few degrees of the wanted angle.
-    expect(Math.abs(s.value.angle_deg! - 30)).toBeLessThan(3);
   });
 });

@@ -96,8 +96,3 @@ export function partsAcross(
   if (a === b) return [];
   return graph.parts.filter((p) => p.simulated && kinds.includes(p.kind) && joins(p, a, b));
 }
-
-/** Parts of a kind in record order. */
-export function partsOfKind(graph: CircuitGraph, kind: string): PartNode[] {
-  return graph.parts.filter((p) => p.kind === kind);
-}

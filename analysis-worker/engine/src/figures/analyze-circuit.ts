@@ -291,39 +291,73 @@ export function analyzeCircuit(
   return { ok: true, value: circuitAnalysis(solved.value, linear.value, search.value) };
 }
 
-/** The staged analysis: the nominal part, and what the variants left unfinished. */
-export interface StagedCircuitAnalysis {
+/** The cheap nominal part of an analysis: what can be shown before any variant runs. */
+export interface NominalCircuitAnalysis {
+  /** The record-format fields, each trigger's lowest firing supply still null. */
   analysis: CircuitAnalysis;
   /** The nominal solve, for the variants that start from it (bands, hints, unplug, plug-in). */
+  solved: SolvedCircuit;
+  linear: AcSolution;
+}
+
+/**
+ * The nominal part under `opts.budgetMs`: the steady state, its figures and the linear view, the
+ * triggers with their firing angles but no lowest firing supply (that search is a variant).
+ */
+export function analyzeNominal(
+  rec: TeardownRecord,
+  opts: SolveOptions,
+): SolverOutcome<NominalCircuitAnalysis> {
+  const supply = opts.supply ?? rec.device.rated_supply;
+  const solved = solveWith(rec, supply, opts, budgetFrom(opts));
+  if (!solved.ok) return solved;
+  const linear = solveAcCircuit(solved.value.circuit, opts.lu ?? "sparse");
+  if (!linear.ok) return linear;
+  // With minSupply off the search only lists the triggers: no budget is spent.
+  const listed = searchTriggers(
+    rec,
+    solved.value,
+    { ...opts, minSupply: false },
+    budgetFrom(opts),
+    false,
+  );
+  if (!listed.ok) return listed;
+  return {
+    ok: true,
+    value: {
+      analysis: circuitAnalysis(solved.value, linear.value, listed.value),
+      solved: solved.value,
+      linear: linear.value,
+    },
+  };
+}
+
+/** The nominal analysis completed with each trigger's lowest firing supply, and what the searches left unfinished. */
+export interface StagedCircuitAnalysis {
+  analysis: CircuitAnalysis;
   solved: SolvedCircuit;
   /** What a variant could not finish within its budget, and why. */
   unfinished: Gap[];
 }
 
 /**
- * The analysis in two budgets: the cheap nominal part (steady state, figures, linear view)
- * under `opts.budgetMs`, then the lowest-firing-supply searches under `variantBudget()`. A search
- * that runs out of its budget leaves that trigger's lowest supply null and says why, instead of
- * failing the whole analysis.
+ * The lowest-firing-supply searches of a nominal analysis, under their own budget. A search
+ * that runs out of it leaves that trigger's lowest supply null and says why, instead of failing
+ * the whole analysis.
  */
-export function analyzeCircuitStaged(
+export function searchLowestSupplies(
   rec: TeardownRecord,
+  nominal: NominalCircuitAnalysis,
   opts: SolveOptions,
-  /** Built once the nominal part is done, so the variants get what it left. */
-  variantBudget: () => Budget,
+  budget: Budget,
 ): SolverOutcome<StagedCircuitAnalysis> {
-  const supply = opts.supply ?? rec.device.rated_supply;
-  const solved = solveWith(rec, supply, opts, budgetFrom(opts));
-  if (!solved.ok) return solved;
-  const linear = solveAcCircuit(solved.value.circuit, opts.lu ?? "sparse");
-  if (!linear.ok) return linear;
-  const search = searchTriggers(rec, solved.value, opts, variantBudget(), false);
+  const search = searchTriggers(rec, nominal.solved, opts, budget, false);
   if (!search.ok) return search;
   return {
     ok: true,
     value: {
-      analysis: circuitAnalysis(solved.value, linear.value, search.value),
-      solved: solved.value,
+      analysis: circuitAnalysis(nominal.solved, nominal.linear, search.value),
+      solved: nominal.solved,
       unfinished: search.value.unfinished,
     },
   };

@@ -5,7 +5,8 @@
  * method on log(value). For a capacitor the nearest E6 and E12 values (a misread marking?),
  * for a resistor the nearest E12 and E24 values.
  */
-import type { Supply, TeardownRecord } from "../record/types.js";
+import type { Part, Supply, TeardownRecord } from "../record/types.js";
+import { kindInfo } from "../graph/kinds.js";
 import type { Budget } from "../solver/transient.js";
 import { budgetSpent } from "../solver/variants/budget.js";
 import { partValueOf } from "../solver/variants/part-value.js";
@@ -44,6 +45,14 @@ export interface MismatchHint {
     achieved: number;
     nearest: Record<string, number | null>;
   } | null;
+}
+
+/** The unit of the value a hint varies: a load's resistance or capacitance, else the kind's unit. */
+export function valueUnitOf(p: Part): string {
+  const slot = partValueOf(p)?.slot;
+  if (slot === "model.r") return "Ω";
+  if (slot === "model.c") return "F";
+  return kindInfo(p.kind)?.unit ?? "";
 }
 
 /** Ranks the parts by sensitivity of `figure` and solves the top part's explaining value. */

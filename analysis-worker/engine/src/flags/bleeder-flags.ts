@@ -6,7 +6,6 @@
  * 22.5) and τ ≤ 1 s (IEC 60950-1 2.1.1.7, type A). A pin capacitance at or below 0.1 µF is noted
  * as "rule does not apply".
  */
-import type { CircuitAnalysis } from "../figures/analyze-circuit.js";
 import type { Flag } from "./flag-types.js";
 import { cite } from "./citations.js";
 import { ev, evYes } from "./flag-types.js";
@@ -22,20 +21,6 @@ import {
   equivalentTimeConstant,
   maxTimeConstantFor,
 } from "./discharge-rules.js";
-import { simulateUnplug } from "../solver/variants/unplug.js";
-
-/** The capacitance the plug pins present at the supply frequency (0 for a resistive or inductive input). */
-export function pinCapacitance(analysis: CircuitAnalysis): number {
-  const i = analysis.waveforms.series["input.current"];
-  const n = i?.length ?? 0;
-  if (i === undefined || n === 0) return 0;
-  const w = 2 * Math.PI * analysis.supply.hz;
-  const vpk = analysis.supply.vrms * Math.SQRT2;
-  let quad = 0;
-  // v = V̂ sin ωt, so a capacitor's current is ωCV̂ cos ωt: its cos-component over one cycle.
-  for (let k = 0; k < n; k++) quad += i[k]! * Math.cos(w * analysis.waveforms.t[k]!);
-  return Math.max(0, (2 * quad) / n / (w * vpk));
-}
 
 /** Capacitors on the supply side: in series in a supply chain or straight across the mains nets. */
 function supplyCapacitors(ctx: RiskContext): string[] {
@@ -58,14 +43,15 @@ function supplyCapacitors(ctx: RiskContext): string[] {
 export function bleederFlags(ctx: RiskContext): Flag[] {
   if (ctx.solved === null || ctx.paths.lineNets.length === 0 || ctx.paths.neutralNets.length === 0)
     return [];
-  const cPins = pinCapacitance(ctx.analysis);
+  const cPins = ctx.variants.pinCapacitanceF;
   if (cPins <= DISCHARGE_CAPACITANCE_THRESHOLD_F) {
     ctx.notes.push(
       `discharge: the pins present ${sig3(cPins * 1e6)} µF, not above 0.1 µF, so the pin-voltage rules do not apply`,
     );
     return [];
   }
-  const sim = simulateUnplug(ctx.solved, PIN_VOLTAGE_DELAY_S, ctx.budget);
+  const sim = ctx.variants.unplug;
+  if (sim === null) return [];
   if (!sim.ok) {
     ctx.notes.push(
       `discharge: the unplugging run failed (${sim.error.code}: ${sim.error.message}); no discharge flag was computed`,

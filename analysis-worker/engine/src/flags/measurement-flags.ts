@@ -3,11 +3,8 @@
  * value would explain it (figures/measurement-hints.ts).
  */
 import type { MeasurementKind, Part, TeardownRecord } from "../record/types.js";
-import { kindInfo } from "../graph/kinds.js";
-import { partValueOf } from "../solver/variants/part-value.js";
-import type { Budget } from "../solver/transient.js";
-import type { MeasurementCheck } from "../figures/measurement-comparisons.js";
-import { mismatchHint } from "../figures/measurement-hints.js";
+import type { RiskVariants } from "../figures/risk-variants.js";
+import { valueUnitOf } from "../figures/measurement-hints.js";
 import type { Flag } from "./flag-types.js";
 import { sig3 } from "./risk-context.js";
 import { cite } from "./citations.js";
@@ -25,27 +22,19 @@ function measurementUnit(what: MeasurementKind): string {
   return "V";
 }
 
-/** The unit of the value a hint varies: a load's resistance or capacitance, else the kind's unit. */
+/** The unit of the value a hint varies ("" when the part is not in the record). */
 function partUnit(p: Part | undefined): string {
-  if (p === undefined) return "";
-  const slot = partValueOf(p)?.slot;
-  if (slot === "model.r") return "Ω";
-  if (slot === "model.c") return "F";
-  return kindInfo(p.kind)?.unit ?? "";
+  return p === undefined ? "" : valueUnitOf(p);
 }
 
-/** One warning per disagreeing measurement. */
-export function measurementFlags(
-  rec: TeardownRecord,
-  checks: readonly MeasurementCheck[],
-  budget: Budget,
-): Flag[] {
+/** One warning per disagreeing measurement, with the hint solved for it before the checks. */
+export function measurementFlags(rec: TeardownRecord, variants: RiskVariants): Flag[] {
   const flags: Flag[] = [];
-  for (const chk of checks) {
+  for (const [k, chk] of variants.checks.entries()) {
     const c = chk.comparison;
-    if (c.verdict === "agrees") continue;
+    const hint = variants.hints.get(k);
+    if (c.verdict === "agrees" || hint === undefined) continue;
     const m = rec.measurements[c.measurement]!;
-    const hint = mismatchHint(rec, chk.supply, chk.nominal, chk.figure, c.measured, budget);
     const ex = hint.explaining;
     const part = ex ? rec.parts.find((p) => p.ref === ex.part) : undefined;
     const near = ex

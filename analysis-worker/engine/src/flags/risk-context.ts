@@ -1,12 +1,13 @@
 /**
  * What every risk check reads: the record, the solver's analysis at the analysed supply, the
- * re-solved steady cycle (for the variants that start from it: unplugging, tolerance samples),
- * the conducting connections, the supply chains and the budget shared by all re-solves.
+ * variants solved before the checks (figures/risk-variants.ts: the steady cycle, unplugging,
+ * plug-in, bands and hints), the conducting connections and the supply chains. Nothing here
+ * runs a simulation.
  */
 import type { Assumption } from "../record/gaps-and-assumptions.js";
 import type { TeardownRecord } from "../record/types.js";
 import type { CircuitAnalysis, SolvedCircuit } from "../figures/analyze-circuit.js";
-import type { Budget } from "../solver/transient.js";
+import type { RiskVariants } from "../figures/risk-variants.js";
 import { buildCircuitGraph } from "../graph/circuit-graph.js";
 import type { SupplyPaths } from "../blocks/supply-path.js";
 import { traceSupplyPaths } from "../blocks/supply-path.js";
@@ -18,9 +19,10 @@ import { galvanicEdges, galvanicReach } from "./galvanic-paths.js";
 export interface RiskContext {
   record: TeardownRecord;
   analysis: CircuitAnalysis;
-  /** The steady cycle re-solved at the analysed supply, or null when that failed (checks that need it are skipped). */
+  /** The steady cycle at the analysed supply, or null when it could not be solved (checks that need it are skipped). */
   solved: SolvedCircuit | null;
-  budget: Budget;
+  /** The solved variants: unplugging, plug-in, bands and hints. */
+  variants: RiskVariants;
   edges: GalvanicEdge[];
   supplyNets: Set<string>;
   /** Nets with a conducting path to line or neutral. */
@@ -40,12 +42,11 @@ export interface RiskContext {
   notes: string[];
 }
 
-/** Builds the context; `solved` comes from the caller, which owns the re-solve. */
+/** Builds the context from the analysis and the variants solved before it. */
 export function riskContext(
   record: TeardownRecord,
   analysis: CircuitAnalysis,
-  solved: SolvedCircuit | null,
-  budget: Budget,
+  variants: RiskVariants,
 ): RiskContext {
   const edges = galvanicEdges(record);
   const names = Object.keys(record.nets);
@@ -57,8 +58,8 @@ export function riskContext(
   return {
     record,
     analysis,
-    solved,
-    budget,
+    solved: variants.solved,
+    variants,
     edges,
     supplyNets,
     mainsConnected: galvanicReach(edges, supplyNets),

@@ -1,7 +1,7 @@
 /**
  * no-fuse and no-surge-limit: the protection in the supply path of a mains-connected circuit.
  * - no-fuse: no fuse in series in a supply chain (blocks/supply-path.ts).
- * - no-surge-limit: the crest switch-on (plug-in-surge.ts); a diode whose peak exceeds its
+ * - no-surge-limit: the crest switch-on (solved before the checks, figures/risk-variants.ts); a diode whose peak exceeds its
  *   surge rating (rating.surge_amps, else 30 A for a 1 A silicon rectifier), or no series
  *   resistor in any supply chain while the mains-side surge is limited by less than 10 Ω
  *   (supply peak / peak current), i.e. only by parasitic resistance.
@@ -10,14 +10,13 @@ import type { Flag } from "./flag-types.js";
 import { MAINS_CAUTION, ev } from "./flag-types.js";
 import { safetyClassOf } from "./capacitor-class.js";
 import { diodeSurgeRating } from "./rating-defaults.js";
-import { simulateCrestSwitchOn } from "../solver/variants/plug-in.js";
 import type { RiskContext } from "./risk-context.js";
 import { assume, sig3 } from "./risk-context.js";
 import { cite } from "./citations.js";
+import { SURGE_KINDS } from "../figures/risk-variants.js";
 
 /** A surge limited by less than this (supply peak over peak current) counts as unlimited (common practice). */
 export const MIN_SURGE_LIMIT_OHMS = 10;
-const SURGE_KINDS = new Set(["diode", "led", "zener", "capacitor"]);
 const SURGE_CAUTION =
   "The simulated peak ignores wiring inductance and capacitor ESR; the real first peak depends on them and on the mains impedance.";
 
@@ -73,14 +72,19 @@ export function surgeFlags(ctx: RiskContext): Flag[] {
   if (ctx.solved === null || ctx.paths.lineNets.length === 0) return [];
   const watch = surgeParts(ctx);
   if (watch.size === 0) return [];
-  const run = simulateCrestSwitchOn(ctx.solved, watch, ctx.budget);
+  const run = ctx.variants.plugIn;
+  if (run === null) return [];
   if (!run.ok) {
     ctx.notes.push(
       `plug-in surge: the run failed (${run.error.code}: ${run.error.message}); no surge flag was computed`,
     );
     return [];
   }
-  const { peak_a, at_s, window_s } = run.value;
+  const { at_s, window_s } = run.value;
+  // The run records every part that can take a surge; the X/Y capacitors across the mains are not judged.
+  const peak_a = Object.fromEntries(
+    Object.entries(run.value.peak_a).filter(([ref]) => watch.has(ref)),
+  );
   const flags: Flag[] = [];
   for (const p of ctx.record.parts) {
     if (p.kind !== "diode" || peak_a[p.ref] === undefined) continue;

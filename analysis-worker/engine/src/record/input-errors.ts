@@ -21,10 +21,6 @@ export interface SourceLocator {
   /** The source text of a plain numeric scalar at the path (`1e6`, not 1000000), if known. */
   numberText?(path: readonly PathSegment[]): string | null;
 }
-
-/** A locator for input with no source positions (an object built in code). */
-export const NO_SOURCE: SourceLocator = { place: () => ({ line: null, column: null }) };
-
 const IDENTIFIER = /^[A-Za-z_][A-Za-z0-9_]*$/;
 
 /** `["parts", 1, "value"]` → `parts[1].value`; odd keys are quoted (`nets["a b"]`). */

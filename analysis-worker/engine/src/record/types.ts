@@ -30,6 +30,15 @@ export const KNOWN_KINDS = [
 ] as const;
 export type KnownKind = (typeof KNOWN_KINDS)[number];
 
+/**
+ * A net's name, branded where the engine keys maps and lists by it (the solver's nodes, the
+ * graph's adjacency), so a part's ref cannot be passed where a net is meant, nor the other way.
+ * The record itself holds plain strings; stages brand them where they build their own maps.
+ */
+export type NetName = string & { readonly __brand: "NetName" };
+/** A part's reference designator, branded like `NetName`. */
+export type PartRef = string & { readonly __brand: "PartRef" };
+
 /** Ratings as printed or taken from a datasheet; every field optional. */
 export interface Rating {
   volts?: number;
@@ -43,10 +52,8 @@ export interface Rating {
   surge_amps?: number;
 }
 
-export interface Part {
+export interface PartFields {
   ref: string;
-  /** A known kind, or any other word kept for documentation and search. */
-  kind: string;
   /** The main value in the kind's unit (ohm, farad, henry, volt, amp), or null when none. */
   value: number | null;
   /** The value as written in the record, for display and export. */
@@ -67,6 +74,20 @@ export interface Part {
    */
   pins: Record<string, string>;
   note: string | null;
+}
+
+/** A part of a known kind, discriminated by `kind`: a switch over it is checked for exhaustiveness. */
+export type KnownPart = { [K in KnownKind]: PartFields & { kind: K } }[KnownKind];
+
+/** A part of any other kind, a word kept for documentation and search (never simulated). */
+export type OtherPart = PartFields & { kind: string };
+
+/** A part as the record holds it: a known kind, or any other word. */
+export type Part = KnownPart | OtherPart;
+
+/** True when the part's kind is one the engine knows, narrowing it to the discriminated union. */
+export function isKnownPart(p: Part): p is KnownPart {
+  return (KNOWN_KINDS as readonly string[]).includes(p.kind);
 }
 
 export const NET_ROLES = ["line", "neutral", "earth", "output"] as const;

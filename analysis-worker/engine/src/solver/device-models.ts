@@ -49,8 +49,8 @@ export interface SwitchingParams {
 /** Why a default model value was used, in plain words. */
 const NOT_IN_RECORD = "not in the record; a typical value for the part's kind";
 
-/** Reads a model value or a default, listing the default as an assumption. */
-function param(
+/** Reads a model value or a default, listing the default as an assumption (the one way a model default is chosen). */
+export function param(
   p: Part,
   key: string,
   fallback: number,

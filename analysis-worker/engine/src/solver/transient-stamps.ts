@@ -282,7 +282,7 @@ export function stampLinearRhs(
 ): void {
   switch (d.type) {
     case "supply":
-      rhs[d.branch] = d.vpk * Math.sin(2 * Math.PI * d.hz * t);
+      rhs[d.branch] = d.vpk * Math.sin(2 * Math.PI * d.hz * t + d.phase);
       return;
     case "capacitor": {
       const geq = ((trap ? 2 : 1) * d.c) / h;

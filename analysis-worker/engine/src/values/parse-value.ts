@@ -162,8 +162,3 @@ export function parseValue(input: string | number, options: ParseValueOptions = 
   if (!Number.isFinite(value)) return fail("not-finite", `"${text}" is too large to be a value`);
   return { ok: true, value, unit: unitCheck };
 }
-
-/** True when the text reads as a value in the given notation and unit. */
-export function isValueText(text: string, options: ParseValueOptions = {}): boolean {
-  return parseValue(text, options).ok;
-}

@@ -1,11 +1,12 @@
 /**
  * The worst plug-in: switched on at the supply crest with every capacitor discharged and every
- * winding at rest. The solver's cycle runner starts at the zero crossing, so this file drives
- * the solver's single step itself with the supply's clock offset by a quarter period, using
- * backward-Euler steps (the damped method the solver uses after a switching event) that start
- * small and grow, and records the peak current of the parts that take the surge.
+ * winding at rest. The circuit is the compiled one with its supply's phase set to start at the
+ * crest (v = V̂·cos ωt from t = 0); the run steps it with backward Euler (the damped method the
+ * solver uses after a switching event), steps that start small and grow, and records the peak
+ * current of the parts that take the surge. The cycle runner is not used: it places its
+ * breakpoints at a zero-phase supply's zero crossings, and this window has none.
  */
-import type { CircuitDevice } from "../circuit-model.js";
+import type { Circuit, CircuitDevice } from "../circuit-model.js";
 import type { SolverOutcome } from "../solver-error.js";
 import { solverFailure } from "../solver-error.js";
 import type { Budget } from "../transient.js";
@@ -30,13 +31,21 @@ export interface SurgeRun {
   window_s: number;
 }
 
+/** The compiled circuit with its supply starting at the positive crest at t = 0. */
+export function crestStartCircuit(c: Circuit): Circuit {
+  return {
+    ...c,
+    devices: c.devices.map((d) => (d.type === "supply" ? { ...d, phase: Math.PI / 2 } : d)),
+  };
+}
+
 /** Simulates the crest switch-on for a quarter period and returns the watched parts' peak currents. */
 export function simulateCrestSwitchOn(
   solved: SteadyCircuit,
   watch: ReadonlySet<string>,
   budget: Budget,
 ): SolverOutcome<SurgeRun> {
-  const c = solved.circuit;
+  const c = crestStartCircuit(solved.circuit);
   const solver = new TransientSolver(c, {
     lu: "sparse",
     maxNewtonIterations: MAX_NEWTON_ITERATIONS,
@@ -63,8 +72,7 @@ export function simulateCrestSwitchOn(
     if (budget.now && budget.now() > budget.deadlineMs)
       return solverFailure("time-budget", "the plug-in run ran out of time", { time_s: t });
     const hTry = Math.min(h, window - t);
-    // The supply's clock runs a quarter period ahead: at t = 0 it stands at its crest.
-    const out = solver.step(period / 4 + t + hTry, hTry, false, x, mem);
+    const out = solver.step(t + hTry, hTry, false, x, mem);
     if (!out.ok) {
       h = hTry / 4;
       if (h < SURGE_MIN_STEP_S)

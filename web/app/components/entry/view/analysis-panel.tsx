@@ -8,10 +8,13 @@ import { when } from "../si-units";
 import type { AnalysisView, EntryState } from "../../../client/api-types";
 import css from "../entry.module.css";
 
-/** The finished analysis the page shows: this engine's, else an older finished one, else null. */
+/**
+ * The analysis the page shows: this engine's when done, or running with its nominal part stored
+ * (the variants still to come), else an older finished one, else null.
+ */
 export function shownAnalysis(state: EntryState): AnalysisView | null {
   const { analysis, olderAnalysis } = state;
-  return analysis?.state === "done"
+  return analysis?.state === "done" || (analysis?.state === "running" && analysis.result)
     ? analysis
     : olderAnalysis?.state === "done"
       ? olderAnalysis
@@ -33,6 +36,12 @@ export function AnalysisStateLine({ analysis }: { analysis: AnalysisView | null 
           : `finished ${when(analysis.finishedAt)}`;
   // A finished analysis that left something out, or found no solution, is never a clean "done".
   const status = state === "done" ? (analysis?.result?.status ?? null) : null;
+  // The nominal part is shown while the worker still runs the variants (bands, hints, unplug,
+  // plug-in), and kept when the hard stop ended them.
+  const variants =
+    (state === "done" || state === "running") && analysis?.result?.status === "partial"
+      ? (analysis.result.variants ?? null)
+      : null;
   const outcomeCls =
     status === "not-solved" ? css.stateFailed : status === "partial" ? css.statePartial : cls;
   return (
@@ -43,6 +52,12 @@ export function AnalysisStateLine({ analysis }: { analysis: AnalysisView | null 
           <span data-testid="analysis-outcome">
             {" "}
             · {status === "not-solved" ? "not solved" : status}
+          </span>
+        ) : null}
+        {variants !== null ? (
+          <span data-testid="analysis-variants" title={variants.reason}>
+            {" "}
+            · {variants.state === "pending" ? "variants pending" : "variants stopped"}
           </span>
         ) : null}
       </span>
