@@ -160,6 +160,7 @@ function minSupplyOf(
   const supply = solved.circuit.supply;
   const solvedStarts = [{ vrms: supply.vrms, mem: solved.steady.startMem }];
   let jacobian = solved.steady.jacobian;
+  let jacobianCycles = solved.steady.jacobianCycles ?? 1;
   let steps = 0;
   let cycles = 0;
   const found = lowestFiringSupply(
@@ -172,7 +173,11 @@ function minSupplyOf(
         rec,
         {
           supply: { vrms: v, hz: supply.hz },
-          warm: { mem: near.mem, scale: v / near.vrms, ...(jacobian ? { jacobian } : {}) },
+          warm: {
+            mem: near.mem,
+            scale: v / near.vrms,
+            ...(jacobian ? { jacobian, jacobianCycles } : {}),
+          },
           toleranceScale: MIN_SUPPLY_TOLERANCE_SCALE,
           maxCycles: MIN_SUPPLY_MAX_CYCLES,
           ...solverChoices(opts),
@@ -180,7 +185,10 @@ function minSupplyOf(
         budget,
       );
       if (!r.ok) return r;
-      jacobian = r.value.steady.jacobian ?? jacobian;
+      if (r.value.steady.jacobian) {
+        jacobian = r.value.steady.jacobian;
+        jacobianCycles = r.value.steady.jacobianCycles ?? 1;
+      }
       solvedStarts.push({ vrms: v, mem: r.value.steady.startMem });
       steps += r.value.steps;
       cycles += r.value.steady.cycles;

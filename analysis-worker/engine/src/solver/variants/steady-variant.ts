@@ -32,8 +32,10 @@ export interface WarmStart {
   scale?: number;
   /** Repeat length (mains cycles) of the orbit the memory came from. */
   periodCycles?: number;
-  /** One-cycle Jacobian of a nearby solve, tried before a finite-difference one. */
+  /** Jacobian of a nearby solve's shooting map, tried before a finite-difference one... */
   jacobian?: Float64Array;
+  /** ...and the cycles of that map (1 when not given). */
+  jacobianCycles?: number;
 }
 
 /** What to solve besides the record: the supply, changed values, how close to settle. */
@@ -87,16 +89,24 @@ export function solveSteady(
     toleranceScale: req.toleranceScale,
     maxCycles: req.maxCycles,
     periodHint: req.warm?.periodCycles,
-    ...(req.warm?.jacobian ? { jacobian: req.warm.jacobian } : {}),
+    ...(req.warm?.jacobian
+      ? { jacobian: req.warm.jacobian, jacobianCycles: req.warm.jacobianCycles ?? 1 }
+      : {}),
   });
   if (!steady.ok) return steady;
   return { ok: true, value: { circuit, steady: steady.value, steps: solver.totalSteps } };
 }
 
-/** The warm start a variant of `nominal` takes: its cycle-start state and orbit length. */
+/**
+ * The warm start a variant of `nominal` takes: its cycle-start state, orbit length and shooting
+ * Jacobian (a changed value moves the fixed point a little and the Jacobian less: Broyden
+ * updates correct it, and a borrowed Jacobian that gives no step is replaced by differences).
+ */
 export function warmFrom(nominal: SteadyCircuit): WarmStart {
+  const { startMem, periodCycles, jacobian, jacobianCycles } = nominal.steady;
   return {
-    mem: nominal.steady.startMem,
-    periodCycles: nominal.steady.periodCycles,
+    mem: startMem,
+    periodCycles,
+    ...(jacobian ? { jacobian, jacobianCycles: jacobianCycles ?? 1 } : {}),
   };
 }
