@@ -175,6 +175,7 @@ export async function analyzeRecord(
         parts: a.parts,
         nets: a.nets,
         triggers: a.triggers,
+        ...(a.steady_states ? { steady_states: a.steady_states } : {}),
         waveforms: selectStoredWaveforms(record, a.waveforms, a.nets, a.parts),
         linear: a.linear,
         solver: a.solver,

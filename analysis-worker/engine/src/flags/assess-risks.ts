@@ -24,6 +24,7 @@ import { assume, riskContext } from "./risk-context.js";
 import { spacingFlags } from "./spacing-flags.js";
 import { fuseFlags, surgeFlags } from "./supply-protection.js";
 import { triggerFlags } from "./trigger-flags.js";
+import { startStateFlags } from "./start-state-flags.js";
 import { budgetSpent, riskBudget } from "../solver/variants/budget.js";
 import { solveVariant } from "../figures/solved-variant.js";
 
@@ -79,6 +80,7 @@ export function assessRisks(
     ...overstressFlags(ctx),
     ...spacingFlags(ctx),
     ...triggerFlags(ctx),
+    ...startStateFlags(ctx),
     ...domainNotes(ctx),
     ...bleederFlags(ctx),
     ...surgeFlags(ctx),

@@ -81,6 +81,13 @@ export interface SteadyState {
   jacobian?: Float64Array;
   /** Cycles of the map the Jacobian belongs to (1 for the one-cycle map). */
   jacobianCycles?: number;
+  /**
+   * When the search stopped at its cycle cap: the switching events of its last
+   * PSS_MAX_SUBHARMONIC plain cycles, each timed within its own cycle. A firing pattern longer
+   * than any window looked for (a pulse stage near its lowest supply fires every tenth cycle)
+   * shows here that it still fires.
+   */
+  lateEvents?: CycleRun["events"];
 }
 
 function layout(devices: CircuitDevice[]): Slot[] {
@@ -316,6 +323,7 @@ export function periodicSteadyState(
       converged: !capped && final <= 1,
       periodCycles: period,
       ...(jacobian ? { jacobian, jacobianCycles } : {}),
+      ...(capped ? { lateEvents: recent.flatMap((r) => r.events) } : {}),
     },
   };
 }

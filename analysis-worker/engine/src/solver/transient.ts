@@ -77,6 +77,11 @@ export interface Budget {
 export interface TransientOptions {
   lu: LuChoice;
   maxNewtonIterations: number;
+  /**
+   * Thyristors and triacs keep the latch state they start the cycle in: the circuit as it runs
+   * from power-on before its first firing, whose gate drive says whether it would ever fire.
+   */
+  holdLatches?: boolean;
 }
 
 /** One recorded point of a cycle. */
@@ -389,8 +394,8 @@ export class TransientSolver {
       let accepted = out;
       let hAcc = hTry;
       let flips =
-        this.switching.length === 0
-          ? this.switching
+        this.switching.length === 0 || this.opts.holdLatches === true
+          ? NO_FLIPS
           : this.switching.filter((d) => latchEvent(d, out.x, mem).flip && mayFlip(d, t + hTry));
       if (flips.length > 0) {
         const startValues = this.switching.map((d) => latchEvent(d, x, mem).value);
@@ -457,6 +462,9 @@ export class TransientSolver {
     return { ok: true, run: { endMem: mem, endX: x, samples, events, steps } };
   }
 }
+
+/** No latch flips in a step (one shared empty list, not one per step). */
+const NO_FLIPS: Array<Extract<CircuitDevice, { type: "switching" }>> = [];
 
 function allFinite(x: Float64Array): boolean {
   for (let i = 0; i < x.length; i++) if (!Number.isFinite(x[i]!)) return false;
