@@ -63,3 +63,40 @@ describe("a thyristor latched on smoothed DC starts and keeps running at differe
     expect(value("lowest supply, while running (RMS)")).toBe(q1.min_supply_vrms);
   });
 });
+
+describe("the same latch analysed at a supply between its two lowest supplies", () => {
+  const vrms = 45;
+  const vpk = vrms * Math.SQRT2;
+  const result = analyzeCircuit(latchedOnDc(rl), { supply: { vrms, hz: 50 } });
+  if (!result.ok) throw new Error(result.error.message);
+  const states = result.value.steady_states ?? [];
+  const cold = states.find((s) => s.start === "cold");
+  const running = states.find((s) => s.start === "running");
+  // The input power of a capacitor-input rectifier: it draws its charge near the crest, so the
+  // mean power is the crest voltage times the mean DC current (closed form, to the droop).
+  const bracket = (current: (vdc: number) => number) => [
+    vpk * current(vpk - diodeHigh) * 0.98,
+    vpk * current(vpk - diodeLow) * 1.02,
+  ];
+
+  it("reports two steady states: off from cold, latched on while running", () => {
+    expect(states.map((s) => s.start)).toEqual(["cold", "running"]);
+    expect(cold!.triggers.find((t) => t.part === "Q1")!.fires).toBe(false);
+    expect(running!.triggers.find((t) => t.part === "Q1")!.fires).toBe(true);
+    expect(result.value.triggers.find((t) => t.part === "Q1")!.running?.fires).toBe(true);
+  });
+
+  it("draws the divider's power from cold", () => {
+    // Source: closed form, Vdc²/(Ra + Rb) drawn at the crest.
+    const [low, high] = bracket((vdc) => vdc / (ra + rb));
+    expect(cold!.input.power).toBeGreaterThanOrEqual(low!);
+    expect(cold!.input.power).toBeLessThanOrEqual(high!);
+  });
+
+  it("draws the load's power as well while running", () => {
+    // Source: closed form, load current (Vdc − von)/(RL + ron) plus the divider's.
+    const [low, high] = bracket((vdc) => (vdc - von) / (rl + ron) + vdc / (ra + rb));
+    expect(running!.input.power).toBeGreaterThanOrEqual(low!);
+    expect(running!.input.power).toBeLessThanOrEqual(high!);
+  });
+});

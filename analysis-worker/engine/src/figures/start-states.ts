@@ -3,9 +3,9 @@
  * thyristor into a transformer, a bug zapper's trigger) or a trigger with hysteresis can settle
  * into different firing patterns depending on where it starts: the figures of the analysis are
  * those of a cold start (from rest at the analysed supply), and the state kept while running is
- * reached by continuation: the circuit runs at the top of the usual mains range
- * (RUNNING_FROM_FRACTION above the analysed supply, warm-started from the cold state) and the
- * supply sags to the analysed one, the state carried along. When the two differ in their firing
+ * reached by continuation: the circuit is switched on at the top of the usual mains range
+ * (RUNNING_FROM_FRACTION above the rated supply, or above the analysed one when that is
+ * higher) and runs there, and the supply sags to the analysed one, the state carried along. When the two differ in their firing
  * rate, or in their input power by more than STATE_POWER_DIFFERENCE, both are reported.
  */
 import type { Supply, TeardownRecord } from "../record/types.js";
@@ -17,7 +17,7 @@ import type { SearchChoices } from "./lowest-firing-supplies.js";
 import type { SolvedCircuit } from "./solved-variant.js";
 import { withFigures } from "./solved-variant.js";
 
-/** The running state comes down from this fraction above the analysed supply (the usual +10 % mains tolerance, common practice). */
+/** The running state comes down from this fraction above the rated supply (the usual +10 % mains tolerance, common practice). */
 export const RUNNING_FROM_FRACTION = 0.1;
 /** Two states whose firing rates agree still differ when their input powers differ by more than this fraction. */
 export const STATE_POWER_DIFFERENCE = 0.05;
@@ -71,13 +71,13 @@ export function startState(
   };
 }
 
-/** True when two states fire at different rates, or draw input powers further apart than STATE_POWER_DIFFERENCE. */
+/** True when a trigger fires in one state and not the other or at another rate, or the input powers are further apart than STATE_POWER_DIFFERENCE. */
 export function statesDiffer(a: StartState, b: StartState): boolean {
-  const rates = (s: StartState) => new Map(s.triggers.map((t) => [t.part, t.firings_per_cycle]));
-  const ra = rates(a);
-  for (const [part, rate] of rates(b)) {
+  for (const t of b.triggers) {
+    const u = a.triggers.find((q) => q.part === t.part);
+    if (u === undefined || u.fires !== t.fires) return true;
     // Rates are counts over whole windows: equal ones agree to rounding.
-    if (Math.abs((ra.get(part) ?? 0) - rate) > 1e-9) return true;
+    if (Math.abs(u.firings_per_cycle - t.firings_per_cycle) > 1e-9) return true;
   }
   const pa = a.input.power;
   const pb = b.input.power;
@@ -86,9 +86,9 @@ export function statesDiffer(a: StartState, b: StartState): boolean {
 }
 
 /**
- * The state kept while running at the supply of `cold` (see the file comment): a solve at the
- * top of the range warm-started from the cold state, then one at the analysed supply
- * warm-started from it. Only circuits with a thyristor or triac can have it differ.
+ * The state kept while running at the supply of `cold` (see the file comment): a solve from
+ * rest at the top of the range, then one at the analysed supply warm-started from it. Only
+ * circuits with a thyristor or triac can have it differ.
  */
 export function runningState(
   rec: TeardownRecord,
@@ -97,12 +97,9 @@ export function runningState(
   budget: Budget,
 ): SolverOutcome<{ state: SolvedCircuit; fromVrms: number; steps: number; cycles: number }> {
   const supply: Supply = cold.circuit.supply;
-  const high: Supply = { vrms: supply.vrms * (1 + RUNNING_FROM_FRACTION), hz: supply.hz };
-  const up = solveSteady(
-    rec,
-    { supply: high, warm: { ...warmFrom(cold), scale: high.vrms / supply.vrms }, ...choices },
-    budget,
-  );
+  const top = Math.max(rec.device.rated_supply.vrms, supply.vrms);
+  const high: Supply = { vrms: top * (1 + RUNNING_FROM_FRACTION), hz: supply.hz };
+  const up = solveSteady(rec, { supply: high, ...choices }, budget);
   if (!up.ok) return up;
   const down = solveSteady(
     rec,
