@@ -189,6 +189,8 @@ export function periodicSteadyState(
   const hint = Math.min(Math.max(1, Math.round(opts.periodHint ?? 1)), PSS_MAX_SUBHARMONIC);
   let period = 1;
   let shot = false;
+  // The recorded run of the state shooting settled on, when it has one (no cycle run again).
+  let shotRun: CycleRun | null = null;
   let jacobian: Float64Array | undefined;
   let jacobianCycles = 1;
   // With a borrowed Jacobian a shot costs a few cycles instead of one per state: it is tried
@@ -280,6 +282,7 @@ export function periodicSteadyState(
         jacobianCycles = likely;
         if (found.mem !== null) {
           mem = found.mem;
+          shotRun = found.run ?? null;
           residual = found.distance;
           method = "shooting";
           period = likely;
@@ -293,7 +296,8 @@ export function periodicSteadyState(
     }
   }
   let run: CycleRun;
-  if (shot) {
+  if (shot && shotRun !== null) run = shotRun;
+  else if (shot) {
     const final = cyclesOf(period)(mem, true);
     if (!final.ok) return final;
     run = final.run;
