@@ -112,3 +112,21 @@ export function latchedOnDc(rl = 10_000): TeardownRecord {
     part("RB", "resistor", ["G", "N"], 1000),
   ]);
 }
+
+/**
+ * A capacitor-dump pulse stage: a half-wave rectifier charges C1 through R1; a divider from C1
+ * drives a thyristor's gate; the thyristor dumps C1 through a small resistor.
+ */
+export function pulseStage(): TeardownRecord {
+  return record([
+    part("D1", "diode", { anode: "L", cathode: "P" }),
+    part("R1", "resistor", ["P", "S"], 47_000),
+    part("C1", "capacitor", ["S", "N"], 470e-9),
+    part("R2", "resistor", ["S", "G"], 1e6),
+    part("R3", "resistor", ["G", "N"], 10_000),
+    part("R4", "resistor", ["S", "X"], 10),
+    part("Q1", "thyristor", { anode: "X", gate: "G", cathode: "N" }, null, {
+      model: { vgt: 0.7, igt: 50e-6, ih: 3e-3, von: 1.2 },
+    }),
+  ]);
+}
