@@ -3,9 +3,9 @@
  * thyristor into a transformer, a bug zapper's trigger) or a trigger with hysteresis can settle
  * into different firing patterns depending on where it starts: the figures of the analysis are
  * those of a cold start (from rest at the analysed supply), and the state kept while running is
- * reached by continuation: the circuit is switched on at the top of the usual mains range
+ * reached by continuation: the circuit runs at the top of the usual mains range
  * (RUNNING_FROM_FRACTION above the rated supply, or above the analysed one when that is
- * higher) and runs there, and the supply sags to the analysed one, the state carried along. When the two differ in their firing
+ * higher), and the supply sags to the analysed one, the state carried along. When the two differ in their firing
  * rate, or in their input power by more than STATE_POWER_DIFFERENCE, both are reported.
  */
 import type { Supply, TeardownRecord } from "../record/types.js";
@@ -86,9 +86,9 @@ export function statesDiffer(a: StartState, b: StartState): boolean {
 }
 
 /**
- * The state kept while running at the supply of `cold` (see the file comment): a solve from
- * rest at the top of the range, then one at the analysed supply warm-started from it. Only
- * circuits with a thyristor or triac can have it differ.
+ * The state kept while running at the supply of `cold` (see the file comment): a solve at the
+ * top of the range, then one at the analysed supply warm-started from it. Only circuits with a
+ * thyristor or triac can have it differ.
  */
 export function runningState(
   rec: TeardownRecord,
@@ -99,7 +99,14 @@ export function runningState(
   const supply: Supply = cold.circuit.supply;
   const top = Math.max(rec.device.rated_supply.vrms, supply.vrms);
   const high: Supply = { vrms: top * (1 + RUNNING_FROM_FRACTION), hz: supply.hz };
-  const up = solveSteady(rec, { supply: high, ...choices }, budget);
+  // Warm-started from the cold state (scaled, with its shooting Jacobian): at the top of the
+  // range a trigger fires from any state it would fire from at rest, and the start costs a few
+  // cycles instead of a whole power-on.
+  const up = solveSteady(
+    rec,
+    { supply: high, warm: { ...warmFrom(cold), scale: high.vrms / supply.vrms }, ...choices },
+    budget,
+  );
   if (!up.ok) return up;
   const down = solveSteady(
     rec,
