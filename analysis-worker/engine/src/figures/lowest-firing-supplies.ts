@@ -180,21 +180,33 @@ export function lowestFiringSupplies(
   if (!running.ok) return running;
 
   // From cold: the held circuit's gate drive, over its start transient and its steady state.
-  // Its steady state is unique, so each trial's search starts from the nearest one solved.
-  const held: SolvedStart[] = [];
+  // Its steady state is unique, so each trial's search starts from the nearest one solved; the
+  // first from the analysed state with its latches off (the storage states are mostly those of
+  // the held circuit, and its one-cycle Jacobian nearly so).
+  const latchesOff = solved.steady.startMem.slice();
+  for (const d of solved.circuit.devices) if (d.type === "switching") latchesOff[d.mem] = 0;
+  const analysed = startOf(supply.vrms, solved.steady);
+  const held: SolvedStart[] = [
+    {
+      vrms: supply.vrms,
+      mem: latchesOff,
+      periodCycles: 1,
+      ...(analysed.jacobianCycles === 1 ? { jacobian: analysed.jacobian, jacobianCycles: 1 } : {}),
+    },
+  ];
   const cold = lowestFiringSupply(
     supply.vrms,
     MIN_SUPPLY_RESOLUTION_V,
     (v) => {
-      let near: SolvedStart | undefined;
-      for (const s of held) if (!near || Math.abs(s.vrms - v) < Math.abs(near.vrms - v)) near = s;
+      let near = held[0]!;
+      for (const s of held) if (Math.abs(s.vrms - v) < Math.abs(near.vrms - v)) near = s;
       const r = solveSteady(
         rec,
         {
           supply: { vrms: v, hz: supply.hz },
           holdLatches: true,
           watchStartCycles: COLD_START_WATCH_CYCLES,
-          ...(near ? { warm: warmAt(near, v) } : {}),
+          warm: warmAt(near, v),
           toleranceScale: MIN_SUPPLY_TOLERANCE_SCALE,
           maxCycles: MIN_SUPPLY_MAX_CYCLES,
           ...choices,
