@@ -22,7 +22,8 @@ import type { LuChoice } from "../solver/mna.js";
 import { gateMargin, gateMarginOver, lowestFiringSupply } from "../solver/min-firing-supply.js";
 import type { SolverOutcome } from "../solver/solver-error.js";
 import type { Budget } from "../solver/transient.js";
-import { solveSteady } from "../solver/variants/steady-variant.js";
+import type { WarmStart } from "../solver/variants/steady-variant.js";
+import { solveSteady, warmFrom } from "../solver/variants/steady-variant.js";
 import type { FiringFigures } from "./circuit-figures.js";
 import { firingFigures } from "./circuit-figures.js";
 import type { SolvedCircuit } from "./solved-variant.js";
@@ -93,32 +94,10 @@ function firesLate(
   return ons.length > 0 && (!f.halves.positive || pos) && (!f.halves.negative || neg);
 }
 
-/** A solved supply to warm-start from: its cycle-start state, repeat length and shooting Jacobian. */
+/** A solved supply and the warm start a trial near it takes (see warmFrom). */
 interface SolvedStart {
   vrms: number;
-  mem: Float64Array;
-  periodCycles: number;
-  jacobian?: Float64Array;
-  jacobianCycles?: number;
-}
-
-function startOf(vrms: number, s: SolvedCircuit["steady"]): SolvedStart {
-  return {
-    vrms,
-    mem: s.startMem,
-    periodCycles: s.periodCycles,
-    ...(s.jacobian ? { jacobian: s.jacobian, jacobianCycles: s.jacobianCycles ?? 1 } : {}),
-  };
-}
-
-/** The warm start from `near` at supply `v`. */
-function warmAt(near: SolvedStart, v: number) {
-  return {
-    mem: near.mem,
-    scale: v / near.vrms,
-    periodCycles: near.periodCycles,
-    ...(near.jacobian ? { jacobian: near.jacobian, jacobianCycles: near.jacobianCycles } : {}),
-  };
+  warm: WarmStart;
 }
 
 /** Both lowest firing supplies of the trigger `f` of a solved circuit (see the file comment). */
@@ -135,7 +114,7 @@ export function lowestFiringSupplies(
   let cycles = 0;
 
   // While running: continuation downwards from the firing states already solved.
-  const firing: SolvedStart[] = [startOf(supply.vrms, solved.steady)];
+  const firing: SolvedStart[] = [{ vrms: supply.vrms, warm: warmFrom(solved) }];
   const running = lowestFiringSupply(
     supply.vrms,
     MIN_SUPPLY_RESOLUTION_V,
@@ -146,11 +125,11 @@ export function lowestFiringSupplies(
         rec,
         {
           supply: { vrms: v, hz: supply.hz },
-          warm: warmAt(near, v),
+          warm: { ...near.warm, scale: v / near.vrms },
           // A pattern that fires every k-th cycle changes its firing count under a Newton
           // step, and the k-cycle map jumps with it: shooting there can land on a state the
           // running circuit never reaches. Such a stage is followed by plain cycles.
-          shooting: near.periodCycles === 1,
+          shooting: (near.warm.periodCycles ?? 1) === 1,
           toleranceScale: MIN_SUPPLY_TOLERANCE_SCALE,
           maxCycles: MIN_SUPPLY_MAX_CYCLES,
           ...choices,
@@ -166,7 +145,7 @@ export function lowestFiringSupplies(
           firingFigures(r.value.circuit, steady).find((g) => g.part === f.part),
           f,
         ) || firesLate(steady.lateEvents, f, 1 / supply.hz);
-      if (fires) firing.push(startOf(v, steady));
+      if (fires) firing.push({ vrms: v, warm: warmFrom(r.value) });
       return {
         ok: true,
         value: {
@@ -185,13 +164,14 @@ export function lowestFiringSupplies(
   // the held circuit, and its one-cycle Jacobian nearly so).
   const latchesOff = solved.steady.startMem.slice();
   for (const d of solved.circuit.devices) if (d.type === "switching") latchesOff[d.mem] = 0;
-  const analysed = startOf(supply.vrms, solved.steady);
+  const analysed = warmFrom(solved);
   const held: SolvedStart[] = [
     {
       vrms: supply.vrms,
-      mem: latchesOff,
-      periodCycles: 1,
-      ...(analysed.jacobianCycles === 1 ? { jacobian: analysed.jacobian, jacobianCycles: 1 } : {}),
+      warm: {
+        mem: latchesOff,
+        ...(analysed.jacobianCycles === 1 ? { jacobian: analysed.jacobian } : {}),
+      },
     },
   ];
   const cold = lowestFiringSupply(
@@ -206,7 +186,7 @@ export function lowestFiringSupplies(
           supply: { vrms: v, hz: supply.hz },
           holdLatches: true,
           watchStartCycles: COLD_START_WATCH_CYCLES,
-          warm: warmAt(near, v),
+          warm: { ...near.warm, scale: v / near.vrms },
           toleranceScale: MIN_SUPPLY_TOLERANCE_SCALE,
           maxCycles: MIN_SUPPLY_MAX_CYCLES,
           ...choices,
@@ -216,7 +196,7 @@ export function lowestFiringSupplies(
       if (!r.ok) return r;
       steps += r.value.steps;
       cycles += r.value.steady.cycles + COLD_START_WATCH_CYCLES;
-      held.push(startOf(v, r.value.steady));
+      held.push({ vrms: v, warm: warmFrom(r.value) });
       const c = r.value.circuit;
       const margins = [
         gateMargin(c, r.value.steady, f.part, f.halves),
