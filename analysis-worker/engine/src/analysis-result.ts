@@ -64,17 +64,42 @@ const GateFeedSuggestionSchema = z.object({
   angle_deg: Figure,
 });
 
+/** A trigger in one steady state: whether, where and how often it fires. */
+const StateTriggerSchema = z.object({
+  part: z.string(),
+  fires: z.boolean(),
+  angle_deg: Figure,
+  angle_negative_deg: Figure,
+  /** Firings per mains cycle over the repeating window (1/3: once every three cycles). */
+  firings_per_cycle: Figure,
+});
+
 const TriggerSchema = z.object({
   part: z.string(),
   fires: z.boolean(),
   angle_deg: Figure,
   angle_negative_deg: Figure,
+  /** Lowest supply at which it keeps firing while running, as the supply sags. */
   min_supply_vrms: Figure,
+  /** Lowest supply at which it starts firing from cold (absent in results before engine 1.4.0). */
+  min_supply_cold_vrms: Figure.optional(),
+  /** The trigger in the state kept while running, present only when that state differs from the cold start's. */
+  running: StateTriggerSchema.optional(),
   /** What-if runs only: whether it fires at the rated supply, and at what angle. */
   rated: z.object({ fires: z.boolean(), angle_deg: Figure }).optional(),
   /** What-if runs only, when it fires at the rated supply but not here: what to change, or why nothing found. */
   suggestion: GateFeedSuggestionSchema.optional(),
   suggestion_note: z.string().optional(),
+});
+
+/** One steady state named by where it started: from rest (`cold`) or kept while running. */
+const StartStateSchema = z.object({
+  start: z.enum(["cold", "running"]),
+  /** The supply the running state came down from; null for the cold start. */
+  from_vrms: Figure,
+  period_cycles: z.number().int().positive(),
+  input: InputFiguresSchema,
+  triggers: z.array(StateTriggerSchema),
 });
 
 const PhasorSchema = z.object({ re: Figure, im: Figure, rms: Figure, phase_deg: Figure });
@@ -157,6 +182,11 @@ const SolvedFields = {
   parts: z.record(z.string(), PartFiguresSchema),
   nets: z.record(z.string(), NetFiguresSchema),
   triggers: z.array(TriggerSchema),
+  /**
+   * The cold-start and the running steady state, present only when they differ (a pulse stage
+   * that settles into another firing pattern); the other figures are the cold start's.
+   */
+  steady_states: z.array(StartStateSchema).optional(),
   waveforms: WaveformsSchema,
   linear: LinearSchema,
   solver: SolverInfoSchema,

@@ -235,6 +235,7 @@ function solvedResult(
     parts: a.parts,
     nets: a.nets,
     triggers: a.triggers,
+    ...(a.steady_states ? { steady_states: a.steady_states } : {}),
     waveforms: selectStoredWaveforms(record, a.waveforms, a.nets, a.parts),
     linear: a.linear,
     solver: a.solver,

@@ -1,2 +1,2 @@
 /** The engine's version: stored with every analysis; a change makes `npm run reanalyze` redo all. */
-export const ENGINE_VERSION = "1.3.0";
+export const ENGINE_VERSION = "1.4.0";

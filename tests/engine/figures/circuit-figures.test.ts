@@ -59,6 +59,7 @@ describe("figures of a steady cycle", () => {
         angle_deg: null,
         angle_negative_deg: null,
         min_supply_vrms: null,
+        min_supply_cold_vrms: null,
       },
     ]);
     expect(r.value.assumptions).toContainEqual(

@@ -17,6 +17,7 @@ import {
 import { part, record } from "../../support/record-factory.js";
 import { ALL_TEST_CIRCUITS } from "../../support/circuits/all-test-circuits.js";
 import { dropperHeater, stepUp, thyristorHeater, xCapacitorInput } from "./flag-circuits.js";
+import { latchedOnDc } from "../solver/reference-circuits.js";
 
 /** File names (with the extensions our notes and sources use), note folders and confidence marks. */
 const FORBIDDEN = [
@@ -56,6 +57,7 @@ const flagged = [
   { name: "step-up", record: stepUp({ ratio: 0.2, dischargeLoad: false, tags: ["ionizer"] }) },
   { name: "marginal thyristor", record: thyristorHeater(390e3) },
   { name: "dead thyristor", record: thyristorHeater(1e6) },
+  { name: "thyristor latched on DC", record: latchedOnDc() },
   {
     name: "milli for mega",
     record: record(

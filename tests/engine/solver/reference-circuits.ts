@@ -90,3 +90,43 @@ export function allReferenceCircuits(): Record<string, TeardownRecord> {
     "triac phase controller": triacDimmer(),
   };
 }
+
+/**
+ * A thyristor latched on smoothed DC: a half-wave rectifier charges a large capacitor, which
+ * feeds a load through the thyristor; a divider from the same DC drives its gate. From rest it
+ * fires once the divider reaches the gate threshold; once on, the DC holds it on for as long as
+ * the load current stays above the holding current, far below that threshold (a latch with
+ * hysteresis: it starts from cold and keeps running at different supplies).
+ */
+export function latchedOnDc(rl = 10_000): TeardownRecord {
+  return record([
+    part("D1", "diode", { anode: "L", cathode: "P" }, null, {
+      model: { is: 5e-9, n: 1.9, rs: 0.05 },
+    }),
+    part("C1", "capacitor", { plus: "P", minus: "N" }, 1000e-6, { polarised: true }),
+    part("RL", "resistor", ["P", "A"], rl),
+    part("Q1", "thyristor", { anode: "A", gate: "G", cathode: "N" }, null, {
+      model: { vgt: 0.6, igt: 200e-6, ih: 5e-3, von: 1.0, ron: 0.05 },
+    }),
+    part("RA", "resistor", ["P", "G"], 100_000),
+    part("RB", "resistor", ["G", "N"], 1000),
+  ]);
+}
+
+/**
+ * A capacitor-dump pulse stage: a half-wave rectifier charges C1 through R1; a divider from C1
+ * drives a thyristor's gate; the thyristor dumps C1 through a small resistor.
+ */
+export function pulseStage(): TeardownRecord {
+  return record([
+    part("D1", "diode", { anode: "L", cathode: "P" }),
+    part("R1", "resistor", ["P", "S"], 47_000),
+    part("C1", "capacitor", ["S", "N"], 470e-9),
+    part("R2", "resistor", ["S", "G"], 1e6),
+    part("R3", "resistor", ["G", "N"], 10_000),
+    part("R4", "resistor", ["S", "X"], 10),
+    part("Q1", "thyristor", { anode: "X", gate: "G", cathode: "N" }, null, {
+      model: { vgt: 0.7, igt: 50e-6, ih: 3e-3, von: 1.2 },
+    }),
+  ]);
+}

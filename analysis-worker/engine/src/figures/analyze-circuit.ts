@@ -13,25 +13,19 @@ import { solveAcCircuit } from "../solver/ac-phasor.js";
 import { THERMAL_VOLTAGE_V } from "../solver/device-models.js";
 import type { LuChoice } from "../solver/mna.js";
 import { GMIN_SIEMENS } from "../solver/mna.js";
-import { gateMargin, lowestFiringSupply } from "../solver/min-firing-supply.js";
 import type { SolverOutcome } from "../solver/solver-error.js";
 import type { Budget } from "../solver/transient.js";
 import { analysisBudget } from "../solver/variants/budget.js";
 import type { SteadyRequest } from "../solver/variants/steady-variant.js";
 import { solveSteady } from "../solver/variants/steady-variant.js";
-import type { CycleFigures, FiringFigures } from "./circuit-figures.js";
-import { firingFigures } from "./circuit-figures.js";
+import type { CycleFigures } from "./circuit-figures.js";
+import { lowestFiringSupplies } from "./lowest-firing-supplies.js";
+import type { StartState, StateTrigger } from "./start-states.js";
+import { runningState, startState, statesDiffer } from "./start-states.js";
 import type { SolvedCircuit } from "./solved-variant.js";
 import { withFigures } from "./solved-variant.js";
 
 export type { SolvedCircuit };
-
-/** The lowest firing supply is bracketed to this many volts RMS. */
-export const MIN_SUPPLY_RESOLUTION_V = 0.5;
-/** The bisection's steady states only decide fires / does not fire: 100 times the usual tolerance (1e-3 of a state). */
-export const MIN_SUPPLY_TOLERANCE_SCALE = 100;
-/** Cycle cap of each bisection solve: a firing pattern that has not settled by then is judged on its last window. */
-export const MIN_SUPPLY_MAX_CYCLES = 60;
 
 /** Options of the solver's front doors. */
 export interface SolveOptions {
@@ -57,8 +51,15 @@ export interface CircuitAnalysis {
     fires: boolean;
     angle_deg: number | null;
     angle_negative_deg: number | null;
+    /** Lowest supply at which it keeps firing as the supply sags (while running). */
     min_supply_vrms: number | null;
+    /** Lowest supply at which it starts firing from cold. */
+    min_supply_cold_vrms: number | null;
+    /** The trigger in the state kept while running, when that state differs from the cold start's. */
+    running?: StateTrigger;
   }>;
+  /** The cold-start and the running steady state, when they differ (start-states.ts); the other figures are the cold start's. */
+  steady_states?: StartState[];
   waveforms: CycleFigures["waveforms"];
   linear: AcSolution;
   /** Parts and nets left out of the simulation, and why. */
@@ -112,93 +113,15 @@ export function solveCircuit(
   return solveWith(rec, opts.supply ?? rec.device.rated_supply, opts, budgetFrom(opts));
 }
 
-/** True when `f` fires in every half-cycle that `ref` fires in. */
-function coversHalves(f: FiringFigures | undefined, ref: FiringFigures): boolean {
-  if (f === undefined || !f.fires) return false;
-  return (!ref.halves.positive || f.halves.positive) && (!ref.halves.negative || f.halves.negative);
-}
-
-/**
- * Where to look first for the lowest firing supply: a gate drive that follows the supply fires
- * where it first reaches the threshold, sin(angle) = Vth / (k·Vpk), so at the supply
- * rated·sin(angle) it reaches the threshold only at the peak. The latest required half decides;
- * the search confirms or corrects the guess, so a trigger of another kind only costs a trial.
- */
-function firstGuess(rated: number, f: FiringFigures): number | undefined {
-  const angles: number[] = [];
-  if (f.halves.positive && f.angle_deg !== null) angles.push(f.angle_deg);
-  if (f.halves.negative && f.angle_negative_deg !== null) angles.push(f.angle_negative_deg);
-  if (angles.length === 0) return undefined;
-  const latest = Math.max(...angles);
-  if (!(latest > 0 && latest < 90)) return undefined;
-  return rated * Math.sin((latest * Math.PI) / 180);
-}
-
 /** The triggers of a solved circuit, each with its lowest firing supply when asked for. */
 interface TriggerSearch {
   triggers: CircuitAnalysis["triggers"];
+  /** Both steady states, when the running one differs from the cold start's. */
+  states?: StartState[];
   steps: number;
   cycles: number;
   /** Triggers whose lowest firing supply was not found, and why (a budget that ran out, a failed solve). */
   unfinished: Gap[];
-}
-
-/**
- * The lowest firing supply of one trigger: a bracket on the supply voltage, first probed around
- * a guess from the firing angle, then narrowed by bisection steered by the gate margin; the
- * answer fires in every half it fires in at the rated supply. Every trial starts from the
- * nearest supply already solved (the nominal first), its state scaled by the amplitude ratio,
- * and reuses the last one-cycle Jacobian, so it settles in a few cycles.
- */
-function minSupplyOf(
-  rec: TeardownRecord,
-  solved: SolvedCircuit,
-  f: FiringFigures,
-  opts: SolveOptions,
-  budget: Budget,
-): SolverOutcome<{ vrms: number; steps: number; cycles: number }> {
-  const supply = solved.circuit.supply;
-  const solvedStarts = [{ vrms: supply.vrms, mem: solved.steady.startMem }];
-  let jacobian = solved.steady.jacobian;
-  let steps = 0;
-  let cycles = 0;
-  const found = lowestFiringSupply(
-    supply.vrms,
-    MIN_SUPPLY_RESOLUTION_V,
-    (v) => {
-      let near = solvedStarts[0]!;
-      for (const s of solvedStarts) if (Math.abs(s.vrms - v) < Math.abs(near.vrms - v)) near = s;
-      const r = solveSteady(
-        rec,
-        {
-          supply: { vrms: v, hz: supply.hz },
-          warm: { mem: near.mem, scale: v / near.vrms, ...(jacobian ? { jacobian } : {}) },
-          toleranceScale: MIN_SUPPLY_TOLERANCE_SCALE,
-          maxCycles: MIN_SUPPLY_MAX_CYCLES,
-          ...solverChoices(opts),
-        },
-        budget,
-      );
-      if (!r.ok) return r;
-      jacobian = r.value.steady.jacobian ?? jacobian;
-      solvedStarts.push({ vrms: v, mem: r.value.steady.startMem });
-      steps += r.value.steps;
-      cycles += r.value.steady.cycles;
-      const fires = coversHalves(
-        firingFigures(r.value.circuit, r.value.steady).find((g) => g.part === f.part),
-        f,
-      );
-      return {
-        ok: true,
-        value: {
-          fires,
-          margin: fires ? null : gateMargin(r.value.circuit, r.value.steady, f.part, f.halves),
-        },
-      };
-    },
-    firstGuess(supply.vrms, f),
-  );
-  return found.ok ? { ok: true, value: { vrms: found.value.vrms, steps, cycles } } : found;
 }
 
 /**
@@ -214,12 +137,13 @@ function searchTriggers(
   strict: boolean,
 ): SolverOutcome<TriggerSearch> {
   const out: TriggerSearch = { triggers: [], steps: 0, cycles: 0, unfinished: [] };
+  const choices = solverChoices(opts);
   for (const f of solved.figures.firings) {
-    let minSupply: number | null = null;
+    let lowest: { running: number; cold: number } | null = null;
     if (f.fires && opts.minSupply !== false) {
-      const found = minSupplyOf(rec, solved, f, opts, budget);
+      const found = lowestFiringSupplies(rec, solved, f, choices, budget);
       if (found.ok) {
-        minSupply = found.value.vrms;
+        lowest = found.value;
         out.steps += found.value.steps;
         out.cycles += found.value.cycles;
       } else if (strict) return found;
@@ -234,8 +158,30 @@ function searchTriggers(
       fires: f.fires,
       angle_deg: f.angle_deg,
       angle_negative_deg: f.angle_negative_deg,
-      min_supply_vrms: minSupply,
+      min_supply_vrms: lowest?.running ?? null,
+      min_supply_cold_vrms: lowest?.cold ?? null,
     });
+  }
+  // The state kept while running, beside the cold start's, for a circuit with a trigger.
+  if (opts.minSupply !== false && solved.figures.firings.length > 0) {
+    const run = runningState(rec, solved, choices, budget);
+    if (run.ok) {
+      out.steps += run.value.steps;
+      out.cycles += run.value.cycles;
+      const cold = startState(solved, "cold", null);
+      const running = startState(run.value.state, "running", run.value.fromVrms);
+      if (statesDiffer(cold, running)) {
+        out.states = [cold, running];
+        for (const t of out.triggers) {
+          const r = running.triggers.find((q) => q.part === t.part);
+          if (r) t.running = r;
+        }
+      }
+    } else if (!strict)
+      out.unfinished.push({
+        part: solved.figures.firings[0]!.part,
+        reason: `steady state while running not computed: ${run.error.message} (${run.error.code})`,
+      });
   }
   return { ok: true, value: out };
 }
@@ -254,6 +200,7 @@ function circuitAnalysis(
     parts: figures.parts,
     nets: figures.nets,
     triggers: search.triggers,
+    ...(search.states ? { steady_states: search.states } : {}),
     waveforms: figures.waveforms,
     linear,
     gaps: circuit.gaps,

@@ -80,7 +80,12 @@ export interface CycleFigures {
   kclResidualAmps: number;
 }
 
-/** Computes the figures of the recorded steady cycle (the whole window of a k-cycle orbit). */
+/**
+ * Computes the figures of the recorded steady cycle (the whole window of a k-cycle orbit).
+ * Each section (input, parts with the KCL check, nets, firings, waveforms) is computed on first
+ * read and kept: a tolerance sample or a sensitivity that reads the input power never pays for
+ * every part's currents, the nets and the plotted waveforms.
+ */
 export function cycleFigures(c: Circuit, steady: SteadyState): CycleFigures {
   const cyclesInWindow = steady.periodCycles ?? 1;
   const window = cyclesInWindow / c.supply.hz;
@@ -97,91 +102,146 @@ export function cycleFigures(c: Circuit, steady: SteadyState): CycleFigures {
   )!;
   const vIn = Float64Array.from(samples, (s) => nodeV(s.x, supply.terminals[0]!));
   const iIn = Float64Array.from(samples, (s) => s.x[supply.branch]!);
-
-  const parts: Record<string, PartFigures> = {};
-  const series: Record<string, Float64Array> = { "supply.voltage": vIn, "input.current": iIn };
-  // KCL sums per sample and node, filled device by device.
-  const kclSum = new Float64Array(ns * c.nodeCount);
-  for (const d of c.devices) {
-    const nt = d.terminals.length;
-    const volts = new Float64Array(ns * nt);
-    const amps = new Float64Array(ns * nt);
-    for (let k = 0; k < ns; k++) {
-      const s = samples[k]!;
-      const i = terminalCurrents(d, s.x, s.mem);
-      for (let q = 0; q < nt; q++) {
-        const node = d.terminals[q]!;
-        volts[k * nt + q] = nodeV(s.x, node);
-        amps[k * nt + q] = i[q]!;
-        if (node >= 0) kclSum[k * c.nodeCount + node]! += i[q]!;
-      }
-    }
-    if (d.type === "supply") continue;
-    let vPeak = 0;
-    for (let k = 0; k < ns; k++)
-      for (let a = 0; a < nt; a++)
-        for (let b = a + 1; b < nt; b++)
-          vPeak = Math.max(vPeak, Math.abs(volts[k * nt + a]! - volts[k * nt + b]!));
-    const main = new Float64Array(ns);
-    for (let k = 0; k < ns; k++) main[k] = amps[k * nt]!;
-    const storage = d.type === "capacitor" || d.type === "coupled";
-    parts[d.ref] = {
-      voltage_peak: vPeak,
-      current_rms: periodRms(t, main, damped),
-      current_dc: periodMean(t, main, damped),
-      power: periodMeanPower(t, volts, amps, nt, damped, storage),
-    };
-    series[`${d.ref}.current`] = main;
-  }
-
-  const nets: Record<string, NetFigures> = { [c.reference]: { dc: 0, rms: 0, peak: 0 } };
   const netNodes = c.nodeNames.map((n, i) => ({ n, i })).filter(({ n }) => !n.includes("#"));
-  for (const { n, i } of netNodes) {
-    const v = Float64Array.from(samples, (s) => s.x[i]!);
-    nets[n] = {
-      dc: periodMean(t, v, damped),
-      rms: periodRms(t, v, damped),
-      peak: peakMagnitude(v),
+
+  const inputFigures = (): InputFigures => {
+    const currentRms = periodRms(t, iIn, damped);
+    const power = periodMeanPower(t, vIn, iIn, 1, damped);
+    const apparent = periodRms(t, vIn, damped) * currentRms;
+    const fftPoints = FFT_POINTS * 2 ** Math.ceil(Math.log2(cyclesInWindow));
+    const uniformCurrent = resampleUniform(t, iIn, fftPoints);
+    return {
+      current_rms: currentRms,
+      power,
+      apparent_power: apparent,
+      power_factor: apparent > 0 ? power / apparent : null,
+      thd: thdFromSamples(uniformCurrent, cyclesInWindow),
+      harmonics: lineHarmonics(uniformCurrent, cyclesInWindow),
     };
-    series[`net.${n}`] = v;
-  }
-
-  // KCL at every net and sample: currents into the parts' pins plus the gmin leak.
-  let kcl = 0;
-  for (let k = 0; k < ns; k++)
-    for (const { i } of netNodes)
-      kcl = Math.max(
-        kcl,
-        Math.abs(kclSum[k * c.nodeCount + i]! + GMIN_SIEMENS * samples[k]!.x[i]!),
-      );
-
-  const currentRms = periodRms(t, iIn, damped);
-  const power = periodMeanPower(t, vIn, iIn, 1, damped);
-  const apparent = periodRms(t, vIn, damped) * currentRms;
-  const fftPoints = FFT_POINTS * 2 ** Math.ceil(Math.log2(cyclesInWindow));
-  const uniformCurrent = resampleUniform(t, iIn, fftPoints);
-  const input: InputFigures = {
-    current_rms: currentRms,
-    power,
-    apparent_power: apparent,
-    power_factor: apparent > 0 ? power / apparent : null,
-    thd: thdFromSamples(uniformCurrent, cyclesInWindow),
-    harmonics: lineHarmonics(uniformCurrent, cyclesInWindow),
   };
 
-  const firings = firingFigures(c, steady);
+  // Every part's figures and current series, and the largest KCL residual (which needs every
+  // part's currents anyway).
+  const partFigures = () => {
+    const parts: Record<string, PartFigures> = {};
+    const series: Record<string, Float64Array> = {};
+    // KCL sums per sample and node, filled device by device.
+    const kclSum = new Float64Array(ns * c.nodeCount);
+    for (const d of c.devices) {
+      const nt = d.terminals.length;
+      const volts = new Float64Array(ns * nt);
+      const amps = new Float64Array(ns * nt);
+      for (let k = 0; k < ns; k++) {
+        const s = samples[k]!;
+        const i = terminalCurrents(d, s.x, s.mem);
+        for (let q = 0; q < nt; q++) {
+          const node = d.terminals[q]!;
+          volts[k * nt + q] = nodeV(s.x, node);
+          amps[k * nt + q] = i[q]!;
+          if (node >= 0) kclSum[k * c.nodeCount + node]! += i[q]!;
+        }
+      }
+      if (d.type === "supply") continue;
+      let vPeak = 0;
+      for (let k = 0; k < ns; k++)
+        for (let a = 0; a < nt; a++)
+          for (let b = a + 1; b < nt; b++)
+            vPeak = Math.max(vPeak, Math.abs(volts[k * nt + a]! - volts[k * nt + b]!));
+      const main = new Float64Array(ns);
+      for (let k = 0; k < ns; k++) main[k] = amps[k * nt]!;
+      const storage = d.type === "capacitor" || d.type === "coupled";
+      parts[d.ref] = {
+        voltage_peak: vPeak,
+        current_rms: periodRms(t, main, damped),
+        current_dc: periodMean(t, main, damped),
+        power: periodMeanPower(t, volts, amps, nt, damped, storage),
+      };
+      series[`${d.ref}.current`] = main;
+    }
+    // KCL at every net and sample: currents into the parts' pins plus the gmin leak.
+    let kcl = 0;
+    for (let k = 0; k < ns; k++)
+      for (const { i } of netNodes)
+        kcl = Math.max(
+          kcl,
+          Math.abs(kclSum[k * c.nodeCount + i]! + GMIN_SIEMENS * samples[k]!.x[i]!),
+        );
+    return { parts, series, kcl };
+  };
 
-  const nOut = Math.min(MAX_WAVEFORM_POINTS, t.length);
-  const tOut = Array.from({ length: nOut }, (_, k) => (window * k) / nOut);
-  const names = Object.keys(series);
-  const plotted = resampleForPlot(
-    t,
-    names.map((name) => series[name]!),
-    nOut,
-  );
-  const out: Record<string, number[]> = {};
-  names.forEach((name, k) => (out[name] = Array.from(plotted[k]!)));
-  return { input, parts, nets, firings, waveforms: { t: tOut, series: out }, kclResidualAmps: kcl };
+  const netFigures = () => {
+    const nets: Record<string, NetFigures> = { [c.reference]: { dc: 0, rms: 0, peak: 0 } };
+    const series: Record<string, Float64Array> = {};
+    for (const { n, i } of netNodes) {
+      const v = Float64Array.from(samples, (s) => s.x[i]!);
+      nets[n] = {
+        dc: periodMean(t, v, damped),
+        rms: periodRms(t, v, damped),
+        peak: peakMagnitude(v),
+      };
+      series[`net.${n}`] = v;
+    }
+    return { nets, series };
+  };
+
+  const waveforms = (): CycleFigures["waveforms"] => {
+    const series: Record<string, Float64Array> = {
+      "supply.voltage": vIn,
+      "input.current": iIn,
+      ...partsOnce().series,
+      ...netsOnce().series,
+    };
+    const nOut = Math.min(MAX_WAVEFORM_POINTS, t.length);
+    const tOut = Array.from({ length: nOut }, (_, k) => (window * k) / nOut);
+    const names = Object.keys(series);
+    const plotted = resampleForPlot(
+      t,
+      names.map((name) => series[name]!),
+      nOut,
+    );
+    const out: Record<string, number[]> = {};
+    names.forEach((name, k) => (out[name] = Array.from(plotted[k]!)));
+    return { t: tOut, series: out };
+  };
+
+  const partsOnce = once(partFigures);
+  const netsOnce = once(netFigures);
+  const inputOnce = once(inputFigures);
+  const firingsOnce = once(() => firingFigures(c, steady));
+  const waveformsOnce = once(waveforms);
+  return {
+    get input() {
+      return inputOnce();
+    },
+    get parts() {
+      return partsOnce().parts;
+    },
+    get nets() {
+      return netsOnce().nets;
+    },
+    get firings() {
+      return firingsOnce();
+    },
+    get waveforms() {
+      return waveformsOnce();
+    },
+    get kclResidualAmps() {
+      return partsOnce().kcl;
+    },
+  };
+}
+
+/** The value of `f`, computed on the first call and kept. */
+function once<T>(f: () => T): () => T {
+  let done = false;
+  let value: T;
+  return () => {
+    if (!done) {
+      value = f();
+      done = true;
+    }
+    return value;
+  };
 }
 
 /** Whether and where each thyristor/triac fires in the steady cycle (cheap: events and latches only). */

@@ -27,6 +27,7 @@ export const FLAG_CODES = [
   "high-voltage-output",
   "ozone",
   "implausible-input",
+  "start-dependent-state",
 ] as const;
 export type FlagCode = (typeof FLAG_CODES)[number];
 

@@ -19,6 +19,7 @@ import { assume, riskContext } from "./risk-context.js";
 import { spacingFlags } from "./spacing-flags.js";
 import { fuseFlags, surgeFlags } from "./supply-protection.js";
 import { triggerFlags } from "./trigger-flags.js";
+import { startStateFlags } from "./start-state-flags.js";
 
 const SEVERITY_ORDER: Record<FlagSeverity, number> = { danger: 0, warning: 1, info: 2 };
 
@@ -47,6 +48,7 @@ export function judgeRisks(
     ...overstressFlags(ctx),
     ...spacingFlags(ctx),
     ...triggerFlags(ctx),
+    ...startStateFlags(ctx),
     ...domainNotes(ctx),
     ...bleederFlags(ctx),
     ...surgeFlags(ctx),

@@ -12,6 +12,7 @@
 import type { Circuit, CircuitDevice } from "./circuit-model.js";
 import type { SteadyState } from "./periodic-steady-state.js";
 import type { SolverOutcome } from "./solver-error.js";
+import type { CycleSample } from "./transient.js";
 import { switchingCurrents } from "./transient-stamps.js";
 
 /** The half-cycles a switching device fires in. */
@@ -41,6 +42,16 @@ export function gateMargin(
   ref: string,
   halves: FiringHalves,
 ): number | null {
+  return gateMarginOver(c, steady.run.samples, ref, halves);
+}
+
+/** The gate margin (see gateMargin) over any recorded samples of whole cycles: a start transient, a steady window. */
+export function gateMarginOver(
+  c: Circuit,
+  samples: ReadonlyArray<CycleSample>,
+  ref: string,
+  halves: FiringHalves,
+): number | null {
   const d = c.devices.find(
     (q): q is Extract<CircuitDevice, { type: "switching" }> =>
       q.type === "switching" && q.ref === ref,
@@ -49,7 +60,7 @@ export function gateMargin(
   const period = 1 / c.supply.hz;
   let posPeak = -Infinity;
   let negPeak = -Infinity;
-  for (const s of steady.run.samples) {
+  for (const s of samples) {
     if (s.mem[d.mem]! > 0.5) continue;
     const { gate, vMain } = switchingCurrents(d, s.x, s.mem);
     if (!d.triac && vMain <= 0) continue;

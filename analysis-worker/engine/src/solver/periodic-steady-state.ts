@@ -72,8 +72,22 @@ export interface SteadyState {
   converged: boolean;
   /** Mains cycles in the repeating window (1, or k for an orbit that repeats every k cycles); the run spans them all. */
   periodCycles: number;
-  /** Jacobian of the one-cycle mismatch over the continuous states (row-major), when one-cycle shooting ran. */
+  /**
+   * Jacobian of the k-cycle mismatch over the continuous states (row-major), k =
+   * `jacobianCycles`, when shooting ran: a variant warm-started from this state (a tolerance
+   * sample, a sensitivity, a nearby supply) borrows it instead of building its own by finite
+   * differences, one k-cycle map per state.
+   */
   jacobian?: Float64Array;
+  /** Cycles of the map the Jacobian belongs to (1 for the one-cycle map). */
+  jacobianCycles?: number;
+  /**
+   * When the search stopped at its cycle cap: the switching events of its last
+   * PSS_MAX_SUBHARMONIC plain cycles, each timed within its own cycle. A firing pattern longer
+   * than any window looked for (a pulse stage near its lowest supply fires every tenth cycle)
+   * shows here that it still fires.
+   */
+  lateEvents?: CycleRun["events"];
 }
 
 function layout(devices: CircuitDevice[]): Slot[] {
@@ -101,8 +115,10 @@ export function periodicSteadyState(
     maxCycles?: number;
     toleranceScale?: number;
     periodHint?: number;
-    /** A one-cycle Jacobian from a nearby solve (row-major, continuous states), tried before a finite-difference one. */
+    /** A Jacobian from a nearby solve (row-major, continuous states), tried before a finite-difference one... */
     jacobian?: Float64Array;
+    /** ...for the map of this many cycles (1 when not given). */
+    jacobianCycles?: number;
   } = {},
 ): { ok: true; value: SteadyState } | { ok: false; error: SolverError } {
   const c = solver.circuit;
@@ -173,10 +189,16 @@ export function periodicSteadyState(
   const hint = Math.min(Math.max(1, Math.round(opts.periodHint ?? 1)), PSS_MAX_SUBHARMONIC);
   let period = 1;
   let shot = false;
+  // The recorded run of the state shooting settled on, when it has one (no cycle run again).
+  let shotRun: CycleRun | null = null;
   let jacobian: Float64Array | undefined;
+  let jacobianCycles = 1;
   // With a borrowed Jacobian a shot costs a few cycles instead of one per state: it is tried
   // after a single plain cycle, and whenever plain cycling would take longer than that.
   const borrowed = opts.jacobian !== undefined && opts.jacobian.length === cont.length ** 2;
+  const borrowedCycles = Math.round(opts.jacobianCycles ?? 1);
+  const borrowedFor = (k: number): Float64Array | null =>
+    borrowed && borrowedCycles === k ? opts.jacobian! : null;
   const warmup = borrowed ? 1 : PSS_WARMUP_CYCLES;
   const shotCost = borrowed ? BORROWED_SHOT_CYCLES : cont.length + 4;
   // Distance to the steady state from the latest changes (see SteadyState.residual).
@@ -253,12 +275,14 @@ export function periodicSteadyState(
           cont,
           change,
           stepSize,
-          likely === 1 ? (opts.jacobian ?? null) : null,
+          borrowedFor(likely),
         );
         if (!found.ok) return found;
-        if (likely === 1) jacobian = found.jac;
+        jacobian = found.jac;
+        jacobianCycles = likely;
         if (found.mem !== null) {
           mem = found.mem;
+          shotRun = found.run ?? null;
           residual = found.distance;
           method = "shooting";
           period = likely;
@@ -272,7 +296,8 @@ export function periodicSteadyState(
     }
   }
   let run: CycleRun;
-  if (shot) {
+  if (shot && shotRun !== null) run = shotRun;
+  else if (shot) {
     const final = cyclesOf(period)(mem, true);
     if (!final.ok) return final;
     run = final.run;
@@ -301,7 +326,8 @@ export function periodicSteadyState(
       residual: final,
       converged: !capped && final <= 1,
       periodCycles: period,
-      ...(jacobian ? { jacobian } : {}),
+      ...(jacobian ? { jacobian, jacobianCycles } : {}),
+      ...(capped ? { lateEvents: recent.flatMap((r) => r.events) } : {}),
     },
   };
 }

@@ -54,6 +54,8 @@ export function shoot(
       jac: Float64Array;
       /** Normalised size of the Newton step still left at the returned state. */
       distance: number;
+      /** The recorded run from `mem`, when there is one. */
+      run?: CycleRun | null;
     }
   | { ok: false; error: SolverError } {
   const m = cont.length;
@@ -63,12 +65,27 @@ export function shoot(
     cont.forEach((slot, k) => (mem[slot.index] = s[k]!));
     return mem;
   };
-  type Eval = { ok: true; f: Float64Array; end: Float64Array; start: Float64Array };
-  const evalF = (s: Float64Array): Eval | { ok: false; error: SolverError } => {
-    const r = cycle(inject(s), false);
+  type Eval = {
+    ok: true;
+    f: Float64Array;
+    end: Float64Array;
+    start: Float64Array;
+    /** The run itself, when recorded: the state Newton accepts is then the steady window as it stands. */
+    run: CycleRun | null;
+  };
+  // Candidate states are recorded (the last one is the steady window, so it is not run again);
+  // the finite-difference columns are not.
+  const evalF = (s: Float64Array, record = true): Eval | { ok: false; error: SolverError } => {
+    const r = cycle(inject(s), record);
     if (!r.ok) return r;
     const f = Float64Array.from(cont, (slot, k) => r.run.endMem[slot.index]! - s[k]!);
-    return { ok: true as const, f, end: r.run.endMem, start: inject(s) };
+    return {
+      ok: true as const,
+      f,
+      end: r.run.endMem,
+      start: inject(s),
+      run: record ? r.run : null,
+    };
   };
   let s: Float64Array = Float64Array.from(cont, (slot) => base[slot.index]!);
   const first = evalF(s);
@@ -84,7 +101,7 @@ export function shoot(
           : SHOOTING_FD_RELATIVE_AMP * Math.max(Math.abs(s[k]!), 1e-3);
       const sp = s.slice();
       sp[k]! += delta;
-      const fp = evalF(sp);
+      const fp = evalF(sp, false);
       if (!fp.ok) return fp;
       for (let i = 0; i < m; i++) jac[i * m + k] = (fp.f[i]! - cur.f[i]!) / delta;
     }
@@ -117,7 +134,8 @@ export function shoot(
     }
     if (!lu.factor(jac).ok) {
       // No Newton step to measure: a cycle within tolerance is taken as it stands.
-      if (settled <= 1) return { ok: true, mem: cur.start, best: cur.end, jac, distance: settled };
+      if (settled <= 1)
+        return { ok: true, mem: cur.start, best: cur.end, jac, distance: settled, run: cur.run };
       if (!borrowed) return { ok: true, mem: null, best: cur.end, jac, distance };
       const fd = replace();
       if (!fd.ok) return fd;
@@ -127,7 +145,8 @@ export function shoot(
     // Settled when the cycle changes within tolerance and Newton has no step left to take: a
     // slow mode changes little per cycle yet may still be far from its fixed point.
     distance = Math.max(settled, stepSize(s, step));
-    if (distance <= 1) return { ok: true, mem: cur.start, best: cur.end, jac, distance };
+    if (distance <= 1)
+      return { ok: true, mem: cur.start, best: cur.end, jac, distance, run: cur.run };
     let lambda = 1;
     let next: Eval | null = null;
     let sNext = s;
@@ -168,5 +187,12 @@ export function shoot(
     cur = next;
   }
   // Out of iterations: the last state counts only when it also leaves no step to take.
-  return { ok: true, mem: distance <= 1 ? cur.start : null, best: cur.end, jac, distance };
+  return {
+    ok: true,
+    mem: distance <= 1 ? cur.start : null,
+    best: cur.end,
+    jac,
+    distance,
+    run: distance <= 1 ? cur.run : null,
+  };
 }

@@ -77,6 +77,11 @@ export interface Budget {
 export interface TransientOptions {
   lu: LuChoice;
   maxNewtonIterations: number;
+  /**
+   * Thyristors and triacs keep the latch state they start the cycle in: the circuit as it runs
+   * from power-on before its first firing, whose gate drive says whether it would ever fire.
+   */
+  holdLatches?: boolean;
 }
 
 /** One recorded point of a cycle. */
@@ -266,27 +271,34 @@ export class TransientSolver {
     return best;
   }
 
+  /** The LTE ratio over the points of `hist` followed by the trial point (tNew, sNew). */
   private lteRatio(
     hist: Array<{ t: number; s: Float64Array }>,
+    tNew: number,
+    sNew: Float64Array,
     trap: boolean,
     vpk: number,
   ): number {
     // Divided differences of the storage states over the last points estimate x'' (or x''').
     const need = trap ? 4 : 3;
-    if (hist.length < need) return 0;
-    const base = hist.length - need;
+    const count = hist.length + 1;
+    if (count < need) return 0;
+    const base = count - need;
+    // Point q of the window, the trial point last (no array is built per step).
+    const tAt = (q: number) => (q === hist.length ? tNew : hist[q]!.t);
+    const sAt = (q: number) => (q === hist.length ? sNew : hist[q]!.s);
     const dd = this.ddWork;
-    const h = hist[hist.length - 1]!.t - hist[hist.length - 2]!.t;
+    const h = tNew - hist[hist.length - 1]!.t;
     let worst = 0;
     for (let k = 0; k < this.storage.length; k++) {
       let mag = 0;
       for (let q = 0; q < need; q++) {
-        dd[q] = hist[base + q]!.s[k]!;
+        dd[q] = sAt(base + q)[k]!;
         mag = Math.max(mag, Math.abs(dd[q]!));
       }
       for (let order = 1; order < need; order++) {
         for (let q = 0; q + order < need; q++)
-          dd[q] = (dd[q + 1]! - dd[q]!) / (hist[base + q + order]!.t - hist[base + q]!.t);
+          dd[q] = (dd[q + 1]! - dd[q]!) / (tAt(base + q + order) - tAt(base + q));
       }
       const lte = trap ? (h ** 3 / 12) * 6 * Math.abs(dd[0]!) : (h ** 2 / 2) * 2 * Math.abs(dd[0]!);
       const tol =
@@ -298,7 +310,9 @@ export class TransientSolver {
   }
 
   private storageOf(mem: Float64Array): Float64Array {
-    return Float64Array.from(this.storage, (s) => mem[s.index]!);
+    const out = new Float64Array(this.storage.length);
+    for (let k = 0; k < out.length; k++) out[k] = mem[this.storage[k]!.index]!;
+    return out;
   }
 
   /** Simulates one supply cycle [0, T] from a start memory; records samples when asked. */
@@ -371,7 +385,7 @@ export class TransientSolver {
         continue;
       }
       const s = this.storageOf(out.work);
-      const ratio = this.lteRatio([...hist, { t: t + hTry, s }], trap, vpk);
+      const ratio = this.lteRatio(hist, t + hTry, s, trap, vpk);
       if (ratio > 1.5 && hTry > 4 * (afterEvent ? hEvent : hDamped)) {
         h = hTry * Math.max(0.2, 0.9 * Math.cbrt(1 / ratio));
         continue;
@@ -379,9 +393,10 @@ export class TransientSolver {
       // Switching events in this step: locate the earliest crossing by bisection on the step.
       let accepted = out;
       let hAcc = hTry;
-      let flips = this.switching.filter(
-        (d) => latchEvent(d, out.x, mem).flip && mayFlip(d, t + hTry),
-      );
+      let flips =
+        this.switching.length === 0 || this.opts.holdLatches === true
+          ? NO_FLIPS
+          : this.switching.filter((d) => latchEvent(d, out.x, mem).flip && mayFlip(d, t + hTry));
       if (flips.length > 0) {
         const startValues = this.switching.map((d) => latchEvent(d, x, mem).value);
         const crossesInside = flips.some((d) => startValues[this.switching.indexOf(d)]! < 0);
@@ -447,6 +462,9 @@ export class TransientSolver {
     return { ok: true, run: { endMem: mem, endX: x, samples, events, steps } };
   }
 }
+
+/** No latch flips in a step (one shared empty list, not one per step). */
+const NO_FLIPS: Array<Extract<CircuitDevice, { type: "switching" }>> = [];
 
 function allFinite(x: Float64Array): boolean {
   for (let i = 0; i < x.length; i++) if (!Number.isFinite(x[i]!)) return false;

@@ -14,7 +14,7 @@ import type { LuChoice } from "../mna.js";
 import type { SteadyState } from "../periodic-steady-state.js";
 import { periodicSteadyState } from "../periodic-steady-state.js";
 import type { SolverOutcome } from "../solver-error.js";
-import type { Budget } from "../transient.js";
+import type { Budget, CycleRun } from "../transient.js";
 import { MAX_NEWTON_ITERATIONS, TransientSolver } from "../transient.js";
 import { withPartValues } from "./part-value.js";
 
@@ -23,6 +23,8 @@ export interface SteadyCircuit {
   circuit: Circuit;
   steady: SteadyState;
   steps: number;
+  /** The recorded cycles of the start transient, when asked for (`watchStartCycles`). */
+  startRuns?: CycleRun[];
 }
 
 /** A warm start: a cycle-start memory of the same circuit, optionally scaled to a new supply. */
@@ -32,8 +34,10 @@ export interface WarmStart {
   scale?: number;
   /** Repeat length (mains cycles) of the orbit the memory came from. */
   periodCycles?: number;
-  /** One-cycle Jacobian of a nearby solve, tried before a finite-difference one. */
+  /** Jacobian of a nearby solve's shooting map, tried before a finite-difference one... */
   jacobian?: Float64Array;
+  /** ...and the cycles of that map (1 when not given). */
+  jacobianCycles?: number;
 }
 
 /** What to solve besides the record: the supply, changed values, how close to settle. */
@@ -47,6 +51,16 @@ export interface SteadyRequest {
   maxCycles?: number;
   lu?: LuChoice;
   maxNewtonIterations?: number;
+  /** False: plain cycles only, no Newton shooting (default true). */
+  shooting?: boolean;
+  /** Thyristors and triacs never switch (the circuit before its first firing). */
+  holdLatches?: boolean;
+  /**
+   * Record this many cycles from rest (a cold start, the start transient) before the
+   * steady-state search, which then starts from the warm state when one is given, else from
+   * where these cycles end.
+   */
+  watchStartCycles?: number;
 }
 
 /** The start memory: the warm state when it fits the circuit, else windings on their AC orbit, else rest. */
@@ -80,23 +94,59 @@ export function solveSteady(
   const solver = new TransientSolver(circuit, {
     lu: req.lu ?? "sparse",
     maxNewtonIterations: req.maxNewtonIterations ?? MAX_NEWTON_ITERATIONS,
+    holdLatches: req.holdLatches === true,
   });
   const start = startMemory(circuit, req);
   if (!start.ok) return start;
-  const steady = periodicSteadyState(solver, budget, start.value, {
+  // The start transient from rest, recorded cycle by cycle.
+  const startRuns: CycleRun[] = [];
+  let from: Float64Array | undefined = start.value;
+  const watch = req.watchStartCycles ?? 0;
+  if (watch > 0) {
+    const rest = req.warm === undefined ? start : startMemory(circuit, { ...req, warm: undefined });
+    if (!rest.ok) return rest;
+    let mem = rest.value ?? new Float64Array(circuit.memSize);
+    let x: Float64Array = new Float64Array(circuit.size);
+    for (let k = 0; k < watch; k++) {
+      const r = solver.runCycle(mem, x, true, budget);
+      if (!r.ok) return r;
+      startRuns.push(r.run);
+      mem = r.run.endMem;
+      x = r.run.endX;
+    }
+    if (req.warm === undefined) from = mem;
+  }
+  const steady = periodicSteadyState(solver, budget, from, {
+    shooting: req.shooting,
     toleranceScale: req.toleranceScale,
     maxCycles: req.maxCycles,
     periodHint: req.warm?.periodCycles,
-    ...(req.warm?.jacobian ? { jacobian: req.warm.jacobian } : {}),
+    ...(req.warm?.jacobian
+      ? { jacobian: req.warm.jacobian, jacobianCycles: req.warm.jacobianCycles ?? 1 }
+      : {}),
   });
   if (!steady.ok) return steady;
-  return { ok: true, value: { circuit, steady: steady.value, steps: solver.totalSteps } };
+  return {
+    ok: true,
+    value: {
+      circuit,
+      steady: steady.value,
+      steps: solver.totalSteps,
+      ...(startRuns.length > 0 ? { startRuns } : {}),
+    },
+  };
 }
 
-/** The warm start a variant of `nominal` takes: its cycle-start state and orbit length. */
+/**
+ * The warm start a variant of `nominal` takes: its cycle-start state, orbit length and shooting
+ * Jacobian (a changed value moves the fixed point a little and the Jacobian less: Broyden
+ * updates correct it, and a borrowed Jacobian that gives no step is replaced by differences).
+ */
 export function warmFrom(nominal: SteadyCircuit): WarmStart {
+  const { startMem, periodCycles, jacobian, jacobianCycles } = nominal.steady;
   return {
-    mem: nominal.steady.startMem,
-    periodCycles: nominal.steady.periodCycles,
+    mem: startMem,
+    periodCycles,
+    ...(jacobian ? { jacobian, jacobianCycles: jacobianCycles ?? 1 } : {}),
   };
 }

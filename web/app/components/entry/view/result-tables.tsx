@@ -199,44 +199,63 @@ export function NetFiguresTable({
   );
 }
 
-/** Each thyristor or triac: whether it fires, the firing angle and the lowest supply at which it still fires. */
+/**
+ * Each thyristor or triac: whether it fires, the firing angle and the lowest supply at which it
+ * keeps firing while running and at which it starts from cold; below, when the circuit settles
+ * differently from a cold start and while running, both states' input power.
+ */
 export function TriggersTable({ result }: { result: Obj }) {
   if (!Array.isArray(result.triggers)) return <NotComputed what="Triggers" />;
   const triggers = arr(result.triggers).map(obj);
   if (triggers.length === 0) return <p className="muted">No thyristor or triac in this circuit.</p>;
+  const states = Array.isArray(result.steady_states) ? arr(result.steady_states).map(obj) : [];
+  const cold = states.find((s) => s.start === "cold");
+  const running = states.find((s) => s.start === "running");
   return (
-    <table className={css.table} data-testid="triggers">
-      <thead>
-        <tr>
-          <th>Part</th>
-          <th>Fires</th>
-          <th className={css.num}>Firing angle (positive half)</th>
-          <th className={css.num}>Firing angle (negative half)</th>
-          <th className={css.num}>Lowest firing supply</th>
-        </tr>
-      </thead>
-      <tbody>
-        {triggers.map((t, i) => (
-          <tr key={i}>
-            <td>
-              <strong>{str(t.part) ?? "?"}</strong>
-            </td>
-            <td>
-              {t.fires === true ? (
-                "yes"
-              ) : t.fires === false ? (
-                <strong className={css.danger}>no</strong>
-              ) : (
-                <span className={css.missing}>{NOT_COMPUTED}</span>
-              )}
-            </td>
-            <Cell>{t.fires === false ? "—" : degrees(t.angle_deg)}</Cell>
-            <Cell>{has(t, "angle_negative_deg") ? degrees(t.angle_negative_deg) : "—"}</Cell>
-            <Cell>{si(t.min_supply_vrms, "V")}</Cell>
+    <>
+      <table className={css.table} data-testid="triggers">
+        <thead>
+          <tr>
+            <th>Part</th>
+            <th>Fires</th>
+            <th className={css.num}>Firing angle (positive half)</th>
+            <th className={css.num}>Firing angle (negative half)</th>
+            <th className={css.num}>Lowest firing supply while running</th>
+            <th className={css.num}>Lowest firing supply from cold</th>
           </tr>
-        ))}
-      </tbody>
-    </table>
+        </thead>
+        <tbody>
+          {triggers.map((t, i) => (
+            <tr key={i}>
+              <td>
+                <strong>{str(t.part) ?? "?"}</strong>
+              </td>
+              <td>
+                {t.fires === true ? (
+                  "yes"
+                ) : t.fires === false ? (
+                  <strong className={css.danger}>no</strong>
+                ) : (
+                  <span className={css.missing}>{NOT_COMPUTED}</span>
+                )}
+              </td>
+              <Cell>{t.fires === false ? "—" : degrees(t.angle_deg)}</Cell>
+              <Cell>{has(t, "angle_negative_deg") ? degrees(t.angle_negative_deg) : "—"}</Cell>
+              <Cell>{si(t.min_supply_vrms, "V")}</Cell>
+              <Cell>{has(t, "min_supply_cold_vrms") ? si(t.min_supply_cold_vrms, "V") : "—"}</Cell>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+      {cold && running ? (
+        <p data-testid="steady-states">
+          From a cold start and while running (come down from {si(running.from_vrms, "V")}) the
+          circuit settles into different states: input power {si(obj(cold.input).power, "W")} from
+          cold, {si(obj(running.input).power, "W")} while running. The figures on this page are the
+          cold start&apos;s.
+        </p>
+      ) : null}
+    </>
   );
 }
 
