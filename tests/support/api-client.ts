@@ -42,6 +42,10 @@ const ROUTES: [string, () => Promise<RouteModule>][] = [
   ["/api/entries/:entryId", () => import("@/app/api/entries/[entryId]/route")],
   ["/api/entries/:entryId/revisions", () => import("@/app/api/entries/[entryId]/revisions/route")],
   [
+    "/api/entries/:entryId/revisions/:number/waveforms",
+    () => import("@/app/api/entries/[entryId]/revisions/[number]/waveforms/route"),
+  ],
+  [
     "/api/entries/:entryId/revisions/:number",
     () => import("@/app/api/entries/[entryId]/revisions/[number]/route"),
   ],

@@ -2,6 +2,10 @@
  * An entry as the client needs it: the entry, its current revision (record and number), the
  * analysis of that revision for this engine version with its state, and, while that one is not
  * done, the newest finished analysis by an older engine version so the page has something to show.
+ *
+ * A finished result goes out without its waveforms: they were over half of a solved entry's
+ * answer (7-50 kB of 26-72 kB on the demo entries) and only the "nets and waveforms" tab draws
+ * them, so the page fetches them on their own when that tab opens (`shownWaveforms`).
  */
 import { and, desc, eq, ne } from "drizzle-orm";
 import { cachedDoneView, doneKey, keepDoneView } from "./analysis-view-cache";
@@ -42,6 +46,16 @@ export type AnalysisView =
       error: string;
       stage: string | null;
     };
+
+/** A finished result as entry reads send it: everything but the waveforms. */
+export type ResultWithoutWaveforms = AnalysisResult extends infer R
+  ? R extends unknown
+    ? Omit<R, "waveforms">
+    : never
+  : never;
+
+/** The stored waveforms of a solved result (time in seconds and named series). */
+export type Waveforms = Extract<AnalysisResult, { waveforms: unknown }>["waveforms"];
 
 /** The API view of an analysis row. */
 export function analysisView(row: AnalysisRow): AnalysisView {
@@ -168,8 +182,8 @@ async function viewOfLight(db: Database, light: LightAnalysisRow): Promise<Analy
   return view;
 }
 
-/** Everything the entry page shows, for a caller who may read the entry. */
-export async function entryState(
+/** The entry state with every finished result whole (waveforms included); callers trim it. */
+async function fullEntryState(
   db: Database,
   entry: EntryRow,
   role: Role | null,
@@ -216,5 +230,51 @@ export async function entryState(
     engineVersion: ENGINE_VERSION,
     analysis: current ? await viewOfLight(db, current) : null,
     olderAnalysis: previous,
+  };
+}
+
+/** A view as entry reads send it: a finished result without its waveforms. */
+function withoutWaveforms(view: AnalysisView | null) {
+  if (view?.state !== "done" || view.result === null) return view;
+  // A copy: the view is shared through the cache (analysis-view-cache.ts) and must stay whole.
+  const result = Object.fromEntries(
+    Object.entries(view.result).filter(([key]) => key !== "waveforms"),
+  ) as ResultWithoutWaveforms;
+  return { ...view, result };
+}
+
+/** Everything the entry page shows first, for a caller who may read the entry (no waveforms). */
+export async function entryState(
+  db: Database,
+  entry: EntryRow,
+  role: Role | null,
+  revisionNumber?: number,
+) {
+  const full = await fullEntryState(db, entry, role, revisionNumber);
+  return {
+    ...full,
+    analysis: withoutWaveforms(full.analysis),
+    olderAnalysis: withoutWaveforms(full.olderAnalysis),
+  };
+}
+
+/**
+ * The waveforms of the finished analysis the page shows for a revision (this engine's, else the
+ * newest older one), with which analysis that is; null waveforms when none is finished and solved.
+ */
+export async function shownWaveforms(
+  db: Database,
+  entry: EntryRow,
+  revisionNumber: number,
+): Promise<{ engineVersion: string | null; finishedAt: Date | null; waveforms: Waveforms | null }> {
+  const { analysis, olderAnalysis } = await fullEntryState(db, entry, null, revisionNumber);
+  const shown =
+    analysis?.state === "done" ? analysis : olderAnalysis?.state === "done" ? olderAnalysis : null;
+  if (shown?.state !== "done") return { engineVersion: null, finishedAt: null, waveforms: null };
+  const result = shown.result;
+  return {
+    engineVersion: shown.engineVersion,
+    finishedAt: shown.finishedAt,
+    waveforms: result !== null && "waveforms" in result ? result.waveforms : null,
   };
 }

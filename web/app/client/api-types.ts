@@ -30,6 +30,21 @@ export interface ApiErrorBody {
 
 export type Role = "owner" | "editor" | "viewer";
 
+/** A finished result as entry reads send it: everything but the waveforms (fetched on their own). */
+export type EntryResult = AnalysisResult extends infer R
+  ? R extends unknown
+    ? Omit<R, "waveforms">
+    : never
+  : never;
+
+/** GET /api/entries/:id/revisions/:number/waveforms. */
+export interface WaveformsAnswer {
+  engineVersion: string | null;
+  finishedAt: string | null;
+  /** Time in seconds and named series; null while no finished, solved analysis is shown. */
+  waveforms: { t: number[]; series: Record<string, number[]> } | null;
+}
+
 /** An analysis as GET /api/entries/:id shows it; fields by state (see web/lib/entry-state.ts). */
 export interface AnalysisView {
   state: "queued" | "running" | "done" | "failed";
@@ -37,8 +52,8 @@ export interface AnalysisView {
   queuedAt?: string;
   startedAt?: string | null;
   finishedAt?: string | null;
-  /** The parsed result (done); null when the stored one could not be read. */
-  result?: AnalysisResult | null;
+  /** The parsed result without its waveforms (done); null when the stored one could not be read. */
+  result?: EntryResult | null;
   /** The older engine an upgraded result came from, else null. */
   upgradedFrom?: string | null;
   /** Why a stored result could not be read. */

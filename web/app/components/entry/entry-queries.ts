@@ -12,6 +12,7 @@ import type {
   PhotoView,
   RevisionSummary,
   TeamView,
+  WaveformsAnswer,
   WhatIfAnswer,
   WhatIfRequest,
 } from "../../client/api-types";
@@ -80,6 +81,20 @@ export function useComments(entryId: string, enabled: boolean) {
         (r) => r.comments,
       ),
     enabled,
+    retry: false,
+  });
+}
+
+/**
+ * The waveforms of the analysis shown for a revision, fetched when first drawn. `analysisKey`
+ * names that analysis (engine version and finish time), so a finished re-run asks again.
+ */
+export function useWaveforms(entryId: string, revision: number, analysisKey: string) {
+  return useQuery({
+    queryKey: ["entry", entryId, "waveforms", revision, analysisKey],
+    queryFn: () =>
+      getJson<WaveformsAnswer>(`/api/entries/${entryId}/revisions/${revision}/waveforms`),
+    staleTime: Infinity,
     retry: false,
   });
 }

@@ -6,6 +6,7 @@
  * reading them.
  */
 import { analysisStateLine, type AnalysisResult } from "@teardown/engine";
+import type { EntryResult } from "../../../client/api-types";
 import css from "../entry.module.css";
 
 const STATUS_CLASS = {
@@ -15,7 +16,7 @@ const STATUS_CLASS = {
 } as const;
 
 /** Parts and nets left out, by name, with why (for the tables' "left out" cells). */
-export function leftOutOf(result: AnalysisResult | null): {
+export function leftOutOf(result: EntryResult | null): {
   parts: Map<string, string>;
   nets: Map<string, string>;
 } {
@@ -32,7 +33,7 @@ export function AnalysisStatus({
   result,
   upgradedFrom,
 }: {
-  result: AnalysisResult;
+  result: EntryResult;
   upgradedFrom: string | null;
 }) {
   return (
@@ -43,7 +44,8 @@ export function AnalysisStatus({
       role={result.status === "complete" ? undefined : "status"}
     >
       <p className={css.statusLine} data-testid="analysis-status-line">
-        {analysisStateLine(result)}
+        {/* The state line reads the status, gaps and assumptions, never the waveforms the entry read leaves out. */}
+        {analysisStateLine(result as AnalysisResult)}
       </p>
       {result.status === "not-solved" ? (
         <p className={css.meta}>

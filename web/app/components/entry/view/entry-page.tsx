@@ -8,10 +8,9 @@
  * TanStack Query; the first render carries the entry from the server.
  */
 import { useMemo, useState, type ReactNode } from "react";
-import type { AnalysisResult } from "@teardown/engine";
 import { ApiFailure, failureText } from "../../../client/http";
 import { useEntry, useTeam } from "../entry-queries";
-import type { EntryState } from "../../../client/api-types";
+import type { EntryResult, EntryState } from "../../../client/api-types";
 import { SchematicViewer } from "../../schematic/schematic-viewer";
 import { when } from "../si-units";
 import { AnalysisPanel, shownAnalysis } from "./analysis-panel";
@@ -36,7 +35,7 @@ import {
 } from "./result-tables";
 import { RevisionsSection } from "./revisions-section";
 import { SectionTabs, useTab, type TabId } from "./section-tabs";
-import { WaveformPlots } from "./waveform-plot";
+import { StoredWaveforms } from "./stored-waveforms";
 import { WhatIfPanel } from "./what-if-panel";
 import css from "../entry.module.css";
 
@@ -68,7 +67,7 @@ export function EntryPage({ entryId, initial }: { entryId: string; initial?: Ent
   });
   const [focusKey, setFocusKey] = useState(0);
   const shown = state ? shownAnalysis(state) : null;
-  const result: AnalysisResult | null = shown?.result ?? null;
+  const result: EntryResult | null = shown?.result ?? null;
   const findings = useMemo(() => (result ? findingsOf(result.flags) : null), [result]);
   const marks = useMemo(() => markedParts(findings ?? []), [findings]);
 
@@ -147,7 +146,12 @@ export function EntryPage({ entryId, initial }: { entryId: string; initial?: Ent
             <TriggersTable result={r} />
           </Block>
           <Block title="Waveforms" hint="in the steady state the solver settled on">
-            <WaveformPlots result={r} />
+            <StoredWaveforms
+              entryId={entry.id}
+              revision={revision.number}
+              analysisKey={`${shown?.engineVersion}@${String(shown?.finishedAt)}`}
+              result={r}
+            />
           </Block>
           <Block title="Harmonics of the line current" hint="RMS magnitude by order">
             <HarmonicsChart result={r} />

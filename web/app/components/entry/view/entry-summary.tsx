@@ -5,7 +5,7 @@
  * each (severity first), each measurement's verdict against the prediction, and the safety
  * caution once, beside those figures.
  */
-import type { AnalysisResult } from "@teardown/engine";
+import type { EntryResult } from "../../../client/api-types";
 import { SafetyCaution } from "../../safety-caution";
 import { ratio, si } from "../si-units";
 import { AnalysisStatus } from "./analysis-status";
@@ -28,7 +28,7 @@ export function EntrySummary({
   onShow,
   onOpen,
 }: {
-  result: AnalysisResult;
+  result: EntryResult;
   record: Obj;
   upgradedFrom: string | null;
   findings: readonly Finding[];
