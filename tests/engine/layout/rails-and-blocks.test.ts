@@ -52,7 +52,11 @@ function horizontalRuns(layout: SchematicLayout, net: string): [number, number, 
 }
 
 describe("the neutral is a straight return along the bottom", () => {
-  it.each(["dimmbo-lamp-dimmer.yaml", "breezel-desk-ionizer.yaml"])("%s", async (file) => {
+  it.each([
+    "dimmbo-lamp-dimmer.yaml",
+    "breezel-desk-ionizer.yaml",
+    "thermbrook-heater-controller.yaml",
+  ])("%s", async (file) => {
     const layout = await laidOut(demo(file));
     const neutralPins = [...layout.parts, ...layout.terminals].flatMap((o) =>
       o.pins.filter((p) => p.net === "N"),
@@ -68,6 +72,11 @@ describe("the neutral is a straight return along the bottom", () => {
     const x0 = rail[0]![1];
     const x1 = rail[rail.length - 1]![2];
     for (const p of layout.parts) expect(p.y + p.height).toBeLessThan(y);
+    // It is the bottom return: no other net's wire runs below it.
+    for (const w of layout.wires.filter((x) => x.net !== "N"))
+      for (const s of w.sections)
+        for (const pt of [s.start, ...s.bends, s.end])
+          expect(pt.y, `${w.net} below the neutral`).toBeLessThan(y);
     for (const pin of neutralPins) {
       expect(pin.x).toBeGreaterThanOrEqual(x0 - 20);
       expect(pin.x).toBeLessThanOrEqual(x1 + 20);

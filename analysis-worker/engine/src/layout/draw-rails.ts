@@ -27,6 +27,9 @@ function crossingCount(net: string, runs: readonly Run[]): number {
   return n;
 }
 
+/** Crossings the neutral may add over ELK's route to be drawn as the straight bottom return. */
+const NEUTRAL_EXTRA_CROSSINGS = 1;
+
 /** Nets with at least this many ends may be drawn as a straight bus to cut crossings. */
 const BUS_MIN_ENDS = 3;
 
@@ -85,7 +88,8 @@ export function drawRails(
     const railY = down ? extent.y + extent.height + RAIL_GAP_PX : extent.y - RAIL_GAP_PX;
     const rail = railFor(net, ends, railY, { bodies, runs: others, pins });
     const before = crossingCount(net, runs);
-    if (rail === null || rail.crossings > before || (strict && rail.crossings === before))
+    const allowed = before + (graph.netRoles.get(net) === "neutral" ? NEUTRAL_EXTRA_CROSSINGS : 0);
+    if (rail === null || rail.crossings > allowed || (strict && rail.crossings === before))
       return false;
     const leads = leadsByNet.get(net) ?? [];
     sectionsByNet.set(
