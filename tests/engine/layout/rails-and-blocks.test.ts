@@ -213,3 +213,22 @@ describe("a negative three-stage multiplier, and a ladder with a tapped node", (
     expect(lying.length).toBeGreaterThan(0);
   });
 });
+
+describe("a rectifier output with only two ends is a plain wire, not a rail", () => {
+  it("breezel-desk-ionizer: D1 to R1 (net P) is one straight run between the two pins", async () => {
+    const layout = await laidOut(demo("breezel-desk-ionizer.yaml"));
+    const pins = layout.parts.flatMap((p) => p.pins.filter((pin) => pin.net === "P"));
+    expect(pins).toHaveLength(2);
+    const sections = layout.wires.filter((w) => w.net === "P").flatMap((w) => w.sections);
+    expect(sections).toHaveLength(1);
+    expect(sections[0]!.bends).toHaveLength(0);
+    // The wire is as long as the gap between the pins: no climb to the top of the drawing.
+    const length =
+      Math.abs(sections[0]!.end.x - sections[0]!.start.x) +
+      Math.abs(sections[0]!.end.y - sections[0]!.start.y);
+    expect(length).toBeCloseTo(
+      Math.abs(pins[0]!.x - pins[1]!.x) + Math.abs(pins[0]!.y - pins[1]!.y),
+      6,
+    );
+  });
+});

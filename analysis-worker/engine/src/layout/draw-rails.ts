@@ -30,6 +30,9 @@ function crossingCount(net: string, runs: readonly Run[]): number {
 /** Crossings the neutral may add over ELK's route to be drawn as the straight bottom return. */
 const NEUTRAL_EXTRA_CROSSINGS = 1;
 
+/** A rail net is drawn as a rail only with at least this many ends. */
+const RAIL_MIN_ENDS = 3;
+
 /** Nets with at least this many ends may be drawn as a straight bus to cut crossings. */
 const BUS_MIN_ENDS = 3;
 
@@ -55,7 +58,11 @@ export function drawRails(
   for (const node of drawnNodes(graph))
     for (const port of node.ports) portCount.set(port.net, (portCount.get(port.net) ?? 0) + 1);
   const tries = [
-    ...rails.map((r) => ({ ...r, strict: false })),
+    // A rail is where parts hang: a rail net with only two ends is one wire, and lifting it
+    // to the edge of the drawing only makes both ends climb (the ionizer's D1 to R1).
+    ...rails
+      .filter((r) => (portCount.get(r.net) ?? 0) >= RAIL_MIN_ENDS)
+      .map((r) => ({ ...r, strict: false })),
     // Any other net with three or more ends becomes a straight bus above or below the
     // drawing when that crosses strictly fewer wires than ELK's route.
     ...[...portCount]
