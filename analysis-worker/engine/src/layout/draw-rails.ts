@@ -5,13 +5,11 @@
  * ELK's route only where every lead comes out clean (rail-routes.ts decides that).
  */
 import type { PlacedGraph } from "./elk-adapter.js";
-import { boundsOf } from "./free-space.js";
+import { boundsOf, boxOf } from "./free-space.js";
 import { drawnNodes, type LayoutGraph } from "./layout-graph.js";
-import type { Box, PlacedPin, WireSection } from "./layout-types.js";
+import type { PlacedPin, WireSection } from "./layout-types.js";
 import { mergeNetSections } from "./merge-wires.js";
 import { RAIL_GAP_PX, railFor, runsOfSections, type RailEnd, type Run } from "./rail-routes.js";
-
-const boxOf = (b: Box): Box => ({ x: b.x, y: b.y, width: b.width, height: b.height });
 
 /** Crossings between one net's runs and every other net's. */
 function crossingCount(net: string, runs: readonly Run[]): number {
