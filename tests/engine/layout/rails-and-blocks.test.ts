@@ -52,7 +52,11 @@ function horizontalRuns(layout: SchematicLayout, net: string): [number, number, 
 }
 
 describe("the neutral is a straight return along the bottom", () => {
-  it.each(["dimmbo-lamp-dimmer.yaml", "breezel-desk-ionizer.yaml"])("%s", async (file) => {
+  it.each([
+    "dimmbo-lamp-dimmer.yaml",
+    "breezel-desk-ionizer.yaml",
+    "thermbrook-heater-controller.yaml",
+  ])("%s", async (file) => {
     const layout = await laidOut(demo(file));
     const neutralPins = [...layout.parts, ...layout.terminals].flatMap((o) =>
       o.pins.filter((p) => p.net === "N"),
@@ -68,6 +72,11 @@ describe("the neutral is a straight return along the bottom", () => {
     const x0 = rail[0]![1];
     const x1 = rail[rail.length - 1]![2];
     for (const p of layout.parts) expect(p.y + p.height).toBeLessThan(y);
+    // It is the bottom return: no other net's wire runs below it.
+    for (const w of layout.wires.filter((x) => x.net !== "N"))
+      for (const s of w.sections)
+        for (const pt of [s.start, ...s.bends, s.end])
+          expect(pt.y, `${w.net} below the neutral`).toBeLessThan(y);
     for (const pin of neutralPins) {
       expect(pin.x).toBeGreaterThanOrEqual(x0 - 20);
       expect(pin.x).toBeLessThanOrEqual(x1 + 20);
@@ -202,5 +211,24 @@ describe("a negative three-stage multiplier, and a ladder with a tapped node", (
       .map((r) => layout.parts.find((p) => p.ref === r)!)
       .filter((d) => d.width > d.height);
     expect(lying.length).toBeGreaterThan(0);
+  });
+});
+
+describe("a rectifier output with only two ends is a plain wire, not a rail", () => {
+  it("breezel-desk-ionizer: D1 to R1 (net P) is one straight run between the two pins", async () => {
+    const layout = await laidOut(demo("breezel-desk-ionizer.yaml"));
+    const pins = layout.parts.flatMap((p) => p.pins.filter((pin) => pin.net === "P"));
+    expect(pins).toHaveLength(2);
+    const sections = layout.wires.filter((w) => w.net === "P").flatMap((w) => w.sections);
+    expect(sections).toHaveLength(1);
+    expect(sections[0]!.bends).toHaveLength(0);
+    // The wire is as long as the gap between the pins: no climb to the top of the drawing.
+    const length =
+      Math.abs(sections[0]!.end.x - sections[0]!.start.x) +
+      Math.abs(sections[0]!.end.y - sections[0]!.start.y);
+    expect(length).toBeCloseTo(
+      Math.abs(pins[0]!.x - pins[1]!.x) + Math.abs(pins[0]!.y - pins[1]!.y),
+      6,
+    );
   });
 });

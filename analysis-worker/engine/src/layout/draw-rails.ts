@@ -5,13 +5,11 @@
  * ELK's route only where every lead comes out clean (rail-routes.ts decides that).
  */
 import type { PlacedGraph } from "./elk-adapter.js";
-import { boundsOf } from "./free-space.js";
+import { boundsOf, boxOf } from "./free-space.js";
 import { drawnNodes, type LayoutGraph } from "./layout-graph.js";
-import type { Box, PlacedPin, WireSection } from "./layout-types.js";
+import type { PlacedPin, WireSection } from "./layout-types.js";
 import { mergeNetSections } from "./merge-wires.js";
 import { RAIL_GAP_PX, railFor, runsOfSections, type RailEnd, type Run } from "./rail-routes.js";
-
-const boxOf = (b: Box): Box => ({ x: b.x, y: b.y, width: b.width, height: b.height });
 
 /** Crossings between one net's runs and every other net's. */
 function crossingCount(net: string, runs: readonly Run[]): number {
@@ -26,6 +24,12 @@ function crossingCount(net: string, runs: readonly Run[]): number {
   }
   return n;
 }
+
+/** Crossings the neutral may add over ELK's route to be drawn as the straight bottom return. */
+const NEUTRAL_EXTRA_CROSSINGS = 1;
+
+/** A rail net is drawn as a rail only with at least this many ends. */
+const RAIL_MIN_ENDS = 3;
 
 /** Nets with at least this many ends may be drawn as a straight bus to cut crossings. */
 const BUS_MIN_ENDS = 3;
@@ -52,7 +56,11 @@ export function drawRails(
   for (const node of drawnNodes(graph))
     for (const port of node.ports) portCount.set(port.net, (portCount.get(port.net) ?? 0) + 1);
   const tries = [
-    ...rails.map((r) => ({ ...r, strict: false })),
+    // A rail is where parts hang: a rail net with only two ends is one wire, and lifting it
+    // to the edge of the drawing only makes both ends climb (the ionizer's D1 to R1).
+    ...rails
+      .filter((r) => (portCount.get(r.net) ?? 0) >= RAIL_MIN_ENDS)
+      .map((r) => ({ ...r, strict: false })),
     // Any other net with three or more ends becomes a straight bus above or below the
     // drawing when that crosses strictly fewer wires than ELK's route.
     ...[...portCount]
@@ -85,7 +93,8 @@ export function drawRails(
     const railY = down ? extent.y + extent.height + RAIL_GAP_PX : extent.y - RAIL_GAP_PX;
     const rail = railFor(net, ends, railY, { bodies, runs: others, pins });
     const before = crossingCount(net, runs);
-    if (rail === null || rail.crossings > before || (strict && rail.crossings === before))
+    const allowed = before + (graph.netRoles.get(net) === "neutral" ? NEUTRAL_EXTRA_CROSSINGS : 0);
+    if (rail === null || rail.crossings > allowed || (strict && rail.crossings === before))
       return false;
     const leads = leadsByNet.get(net) ?? [];
     sectionsByNet.set(

@@ -14,6 +14,9 @@ const SEARCH_STEP_PX = 6;
 /** Positions tried on each ring of the widening search. */
 const SEARCH_DIRECTIONS = 16;
 
+/** A plain copy of a box's position and size (dropping whatever else the object carries). */
+export const boxOf = (b: Box): Box => ({ x: b.x, y: b.y, width: b.width, height: b.height });
+
 /** True when the two boxes share some area (touching edges do not count). */
 export function boxesOverlap(a: Box, b: Box): boolean {
   return a.x < b.x + b.width && b.x < a.x + a.width && a.y < b.y + b.height && b.y < a.y + a.height;
