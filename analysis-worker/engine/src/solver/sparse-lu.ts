@@ -249,8 +249,8 @@ export class SparseLu implements LinearSolver {
   /**
    * Factorises in the kept order; returns -1, or the first position whose pivot fails the test.
    * Row-by-row (Doolittle, IKJ order) elimination into a dense work row: called at every Newton
-   * iteration, so each row is read and written back in one pass and the fields are held in
-   * locals (no allocation, no property loads in the loops).
+   * iteration, so each row is read and written back in one pass (its largest entries taken on
+   * the way) and the fields are held in locals (no property loads in the loops).
    */
   private factorKept(values: Float64Array, strict: boolean): number {
     const { n, ptr, idx, diagAt, lu, work: w, slotAt, refRatio } = this;

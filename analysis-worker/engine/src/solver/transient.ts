@@ -189,8 +189,8 @@ export class TransientSolver {
   step(t: number, h: number, trap: boolean, xGuess: Float64Array, mem: Float64Array): StepOutcome {
     const c = this.circuit;
     // The step's memory and its two Newton iterates (used in turn) are solver-owned buffers;
-    // only an accepted step copies them out (callers keep them), so a trial or failed step
-    // allocates nothing and an accepted one two vectors instead of three.
+    // only a converged step copies them out (callers keep them), so a step that fails
+    // allocates nothing and one that converges two vectors instead of three.
     if (this.workBuf.length !== mem.length) this.workBuf = new Float64Array(mem.length);
     const work = this.workBuf;
     work.set(mem);
