@@ -246,38 +246,55 @@ export class SparseLu implements LinearSolver {
     return { ok: true };
   }
 
-  /** Factorises in the kept order; returns -1, or the first position whose pivot fails the test. */
+  /**
+   * Factorises in the kept order; returns -1, or the first position whose pivot fails the test.
+   * Row-by-row (Doolittle, IKJ order) elimination into a dense work row: called at every Newton
+   * iteration, so each row is read and written back in one pass (its largest entries taken on
+   * the way) and the fields are held in locals (no property loads in the loops).
+   */
   private factorKept(values: Float64Array, strict: boolean): number {
-    const { n, ptr, idx, diagAt, lu, work: w } = this;
+    const { n, ptr, idx, diagAt, lu, work: w, slotAt, refRatio } = this;
     lu.fill(0);
-    for (let s = 0; s < values.length; s++) lu[this.slotAt[s]!]! += values[s]!;
+    for (let s = 0; s < values.length; s++) lu[slotAt[s]!]! += values[s]!;
     for (let i = 0; i < n; i++) {
       const start = ptr[i]!;
       const end = ptr[i + 1]!;
-      for (let q = start; q < end; q++) w[idx[q]!] = lu[q]!;
+      const di = diagAt[i]!;
       let rowMax = 0;
-      for (let q = start; q < end; q++) rowMax = Math.max(rowMax, Math.abs(lu[q]!));
-      for (let q = start; q < diagAt[i]!; q++) {
+      for (let q = start; q < end; q++) {
+        const v = lu[q]!;
+        w[idx[q]!] = v;
+        rowMax = Math.max(rowMax, Math.abs(v));
+      }
+      for (let q = start; q < di; q++) {
         const k = idx[q]!;
         const l = w[k]! / lu[diagAt[k]!]!;
         if (strict && Math.abs(l) > MAX_MULTIPLIER) return i;
         w[k] = l;
         if (l === 0) continue;
-        for (let r = diagAt[k]! + 1; r < ptr[k + 1]!; r++) w[idx[r]!]! -= l * lu[r]!;
+        const kEnd = ptr[k + 1]!;
+        for (let r = diagAt[k]! + 1; r < kEnd; r++) w[idx[r]!]! -= l * lu[r]!;
+      }
+      for (let q = start; q < di; q++) {
+        const j = idx[q]!;
+        lu[q] = w[j]!;
+        w[j] = 0;
       }
       let uMax = 0;
-      for (let q = diagAt[i]!; q < end; q++) uMax = Math.max(uMax, Math.abs(w[idx[q]!]!));
-      for (let q = start; q < end; q++) {
-        lu[q] = w[idx[q]!]!;
-        w[idx[q]!] = 0;
+      for (let q = di; q < end; q++) {
+        const j = idx[q]!;
+        const v = w[j]!;
+        uMax = Math.max(uMax, Math.abs(v));
+        lu[q] = v;
+        w[j] = 0;
       }
-      const d = Math.abs(lu[diagAt[i]!]!);
+      const d = Math.abs(lu[di]!);
       const scale = Math.max(uMax, rowMax);
       const floor = strict
-        ? Math.min(PIVOT_REUSE_MIN_RATIO, PIVOT_REUSE_DECAY * this.refRatio[i]!) * scale
+        ? Math.min(PIVOT_REUSE_MIN_RATIO, PIVOT_REUSE_DECAY * refRatio[i]!) * scale
         : SINGULAR_PIVOT_ABS;
       if (!(d > floor) || !Number.isFinite(d)) return i;
-      if (!strict) this.refRatio[i] = scale > 0 ? d / scale : 1;
+      if (!strict) refRatio[i] = scale > 0 ? d / scale : 1;
     }
     return -1;
   }

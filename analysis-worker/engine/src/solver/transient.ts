@@ -127,6 +127,10 @@ export class TransientSolver {
   private readonly switching: Array<Extract<CircuitDevice, { type: "switching" }>>;
   private readonly storage: Array<{ index: number; isVolt: boolean }>;
   private readonly ddWork = new Float64Array(4);
+  /** The memory and the two Newton iterates of a step (see step). */
+  private workBuf: Float64Array;
+  private readonly iterA: Float64Array;
+  private readonly iterB: Float64Array;
   /** Pattern slots of each device (same order as circuit.devices). */
   private readonly slots: Int32Array[];
   private readonly linear: CircuitDevice[];
@@ -147,6 +151,9 @@ export class TransientSolver {
     this.vals = new Float64Array(this.pattern.count);
     this.rhs = new Float64Array(circuit.size);
     this.rhsBase = new Float64Array(circuit.size);
+    this.workBuf = new Float64Array(circuit.memSize);
+    this.iterA = new Float64Array(circuit.size);
+    this.iterB = new Float64Array(circuit.size);
     this.diagSlots = Array.from({ length: circuit.nodeCount }, (_, i) => this.pattern.slot(i, i));
     this.nonlinear = circuit.devices.filter(isNonlinear);
     this.linear = circuit.devices.filter((d) => !isNonlinear(d));
@@ -181,12 +188,15 @@ export class TransientSolver {
   /** One step from (x, mem) at time t - h to time t. */
   step(t: number, h: number, trap: boolean, xGuess: Float64Array, mem: Float64Array): StepOutcome {
     const c = this.circuit;
-    const work = mem.slice();
-    const n = c.size;
-    // Two iterate buffers used in turn; the accepted one is returned (callers keep it).
-    let x = new Float64Array(n);
+    // The step's memory and its two Newton iterates (used in turn) are solver-owned buffers;
+    // only a converged step copies them out (callers keep them), so a step that fails
+    // allocates nothing and one that converges two vectors instead of three.
+    if (this.workBuf.length !== mem.length) this.workBuf = new Float64Array(mem.length);
+    const work = this.workBuf;
+    work.set(mem);
+    let x = this.iterA;
     x.set(xGuess);
-    let next = new Float64Array(n);
+    let next = this.iterB;
     const ctx: StampContext = {
       p: this.pattern,
       vals: this.vals,
@@ -226,7 +236,7 @@ export class TransientSolver {
         )
       ) {
         for (const d of c.devices) commitDevice(d, ctx);
-        return { ok: true, x, work };
+        return { ok: true, x: x.slice(), work: work.slice() };
       }
       const status = this.lu.factor(this.vals);
       if (!status.ok) return { ok: false, kind: "singular", unknown: status.singularUnknown };
@@ -238,7 +248,7 @@ export class TransientSolver {
       if (nonlinear.length === 0 || (!limited && it > 0 && this.converged(prev, x))) {
         ctx.x = x;
         for (const d of c.devices) commitDevice(d, ctx);
-        return { ok: true, x, work };
+        return { ok: true, x: x.slice(), work: work.slice() };
       }
     }
     return { ok: false, kind: "newton", part: this.worstPart(x, next) };
