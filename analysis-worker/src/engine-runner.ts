@@ -51,12 +51,15 @@ export class EngineRunner {
   /**
    * Runs one analysis: its variants get a share of `budgetMs`, the thread is stopped at
    * `budgetMs`. `onNominal` receives the cheap part (nominal solve, figures, layout) as soon as
-   * the thread has it, before the variants run.
+   * the thread has it, before the variants run. `stop` ends the run early exactly as the hard
+   * stop does (thread terminated, reported as a timeout), for a caller that must stop at a
+   * known point rather than at a clock time (a shutdown, or a test of what the stop leaves).
    */
   async run(
     record: unknown,
     budgetMs: number,
     onNominal?: (output: AnalysisOutput) => void,
+    stop?: AbortSignal,
   ): Promise<EngineRun> {
     let worker: Worker;
     try {
@@ -69,7 +72,11 @@ export class EngineRunner {
     }
     const id = this.nextId++;
     return new Promise<EngineRun>((resolve) => {
+      let settled = false;
       const done = (r: EngineRun, reuse: boolean) => {
+        // Once only: a stop signalled after the run ended must not touch the reused thread.
+        if (settled) return;
+        settled = true;
         clearTimeout(timer);
         worker.off("message", onMessage);
         worker.off("error", onError);
@@ -91,6 +98,9 @@ export class EngineRunner {
       const onError = (err: Error) =>
         done({ kind: "crash", message: `${err.message}\n${err.stack ?? ""}` }, false);
       const timer = setTimeout(() => done({ kind: "timeout", budgetMs }, false), budgetMs);
+      stop?.addEventListener("abort", () => done({ kind: "timeout", budgetMs }, false), {
+        once: true,
+      });
       worker.on("message", onMessage);
       worker.on("error", onError);
       worker.postMessage({ id, record, variantBudgetMs: budgetMs * this.variantShare });
