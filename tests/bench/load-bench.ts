@@ -24,6 +24,7 @@ import {
   startEmbeddedServer,
   type EmbeddedServer,
 } from "@teardown/db/embedded-server";
+import { seeded } from "../support/generated-circuits.js";
 import { ladderDoc, nightLightDoc } from "../support/record-docs.js";
 
 if (process.env.BENCH_LOAD !== "1") {
@@ -229,18 +230,6 @@ async function waitForAnalyses(
 }
 
 const SEARCH_WORDS = ["ladder", "night", "light", "fuse", "capacitor", "dropper"];
-
-/** A small seeded generator (mulberry32), so two runs draw the same think times. */
-function seeded(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 /** One think time: exponential with mean `meanMs`, cut off at THINK_CAP_FACTOR means. */
 function thinkMs(random: () => number, meanMs: number): number {

@@ -9,8 +9,8 @@
 import type { Part, TeardownRecord } from "@teardown/engine";
 import { part, record } from "./record-factory.js";
 
-/** A small seeded generator (mulberry32), so circuits repeat exactly. */
-function seeded(seed: number): () => number {
+/** A small seeded generator (mulberry32), so circuits (and the load bench's think times) repeat exactly. */
+export function seeded(seed: number): () => number {
   let a = seed >>> 0;
   return () => {
     a = (a + 0x6d2b79f5) >>> 0;
